@@ -1,0 +1,5 @@
+import { AppTabs } from '@/components/nav/app-tabs';
+
+export default function TabsLayout() {
+  return <AppTabs />;
+}

@@ -1,0 +1,67 @@
+import { queryOptions, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
+import type { ChangePasswordInput, Me, Session, SignInInput, SignUpInput } from '../../shared/schemas/auth';
+import { useSession } from '../auth/session';
+import { apiFetch } from './client';
+
+export const authKeys = { all: ['auth'] as const, me: () => [...authKeys.all, 'me'] as const };
+
+export const fetchMe = () => apiFetch<Me>('/me');
+export const meQueryOptions = () => queryOptions({ queryKey: authKeys.me(), queryFn: fetchMe });
+
+/** The signed-in person and their profiles. */
+export function useMe() {
+  const { status } = useSession();
+  return useQuery({ ...meQueryOptions(), enabled: status === 'signed-in' });
+}
+
+/** The profile the person is working on: their own first, else the first they may open. */
+export function useActiveProfile() {
+  const me = useMe();
+  return { ...me, profile: me.data?.profiles[0] };
+}
+
+function useStartSession() {
+  const { signIn } = useSession();
+  const queryClient = useQueryClient();
+  return (session: Session) => {
+    queryClient.clear();
+    queryClient.setQueryData(authKeys.me(), session.me);
+    signIn(session.token);
+  };
+}
+
+export function useSignIn() {
+  const start = useStartSession();
+  return useMutation({
+    mutationFn: (input: SignInInput) => apiFetch<Session>('/auth/sign-in', { method: 'POST', body: input }),
+    onSuccess: start,
+  });
+}
+
+export function useSignUp() {
+  const start = useStartSession();
+  return useMutation({
+    mutationFn: (input: SignUpInput) => apiFetch<Session>('/auth/sign-up', { method: 'POST', body: input }),
+    onSuccess: start,
+  });
+}
+
+export function useChangePassword() {
+  const start = useStartSession();
+  return useMutation({
+    mutationFn: (input: ChangePasswordInput) => apiFetch<Session>('/auth/password', { method: 'POST', body: input }),
+    onSuccess: start,
+  });
+}
+
+export function useSignOut() {
+  const { signOut } = useSession();
+  const queryClient = useQueryClient();
+  return useMutation({
+    mutationFn: () => apiFetch<void>('/auth/sign-out', { method: 'POST' }).catch(() => undefined),
+    onSettled: () => {
+      signOut();
+      queryClient.clear();
+    },
+  });
+}

@@ -1,0 +1,68 @@
+import { apiErrorSchema } from '../../shared/schemas/api-error';
+import { tokenStore } from '../auth/token-store';
+
+/** An error answer from the API, in the one shape the server sends. */
+export class ApiError extends Error {
+  constructor(
+    readonly status: number,
+    readonly code: string,
+    message: string,
+    readonly fieldErrors?: Record<string, string[]>,
+  ) {
+    super(message);
+    this.name = 'ApiError';
+  }
+}
+
+let onUnauthorized: (() => void) | undefined;
+/** Registers what happens when any call answers 401 (the session signs out). */
+export function setUnauthorizedHandler(handler: (() => void) | undefined) {
+  onUnauthorized = handler;
+}
+
+/** Same origin on the web build; EXPO_PUBLIC_API_URL points elsewhere in development. */
+export const API_BASE = process.env.EXPO_PUBLIC_API_URL ?? '';
+
+type Init = Omit<RequestInit, 'body'> & { body?: unknown };
+
+/** The one fetch wrapper: JSON in and out, bearer token, errors as ApiError. */
+export async function apiFetch<T>(path: string, init: Init = {}): Promise<T> {
+  const token = tokenStore.get();
+  const headers = new Headers(init.headers);
+  headers.set('Accept', 'application/json');
+  const isForm = typeof FormData !== 'undefined' && init.body instanceof FormData;
+  if (init.body !== undefined && !isForm) headers.set('Content-Type', 'application/json');
+  if (token) headers.set('Authorization', `Bearer ${token}`);
+  let res: Response;
+  try {
+    res = await fetch(`${API_BASE}/api${path}`, {
+      ...init,
+      headers,
+      body: init.body === undefined ? undefined : isForm ? (init.body as FormData) : JSON.stringify(init.body),
+    });
+  } catch (err) {
+    if ((err as Error)?.name === 'AbortError') throw err;
+    throw new ApiError(0, 'network', 'We could not reach Carbwright. Check your connection and try again.');
+  }
+  if (res.status === 204) return undefined as T;
+  const text = await res.text();
+  const data: unknown = text ? safeJson(text) : undefined;
+  if (!res.ok) {
+    if (res.status === 401 && token) onUnauthorized?.();
+    const parsed = apiErrorSchema.safeParse(data);
+    if (parsed.success) {
+      const { code, message, fieldErrors } = parsed.data.error;
+      throw new ApiError(res.status, code, message, fieldErrors);
+    }
+    throw new ApiError(res.status, 'internal', 'Something went wrong on our side. Please try again.');
+  }
+  return data as T;
+}
+
+function safeJson(text: string): unknown {
+  try {
+    return JSON.parse(text);
+  } catch {
+    return undefined;
+  }
+}

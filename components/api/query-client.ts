@@ -1,0 +1,16 @@
+import { QueryClient } from '@tanstack/react-query';
+import { ApiError } from './client';
+
+/** One QueryClient for the app: no retries on 4xx, short stale time. */
+export function createQueryClient() {
+  return new QueryClient({
+    defaultOptions: {
+      queries: {
+        staleTime: 30_000,
+        retry: (count, error) => !(error instanceof ApiError && error.status >= 400 && error.status < 500) && count < 2,
+        refetchOnWindowFocus: false,
+      },
+      mutations: { retry: false },
+    },
+  });
+}

@@ -1,0 +1,51 @@
+import { createContext, useCallback, useContext, useEffect, useMemo, useState, type ReactNode } from 'react';
+import { useQueryClient } from '@tanstack/react-query';
+import { setUnauthorizedHandler } from '../api/client';
+import { tokenStore } from './token-store';
+
+type Status = 'loading' | 'signed-in' | 'signed-out';
+type SessionValue = { status: Status; signIn: (token: string) => void; signOut: () => void };
+
+const SessionContext = createContext<SessionValue | null>(null);
+
+/** Holds whether someone is signed in; any 401 from the API signs out. */
+export function SessionProvider({ children }: { children: ReactNode }) {
+  const queryClient = useQueryClient();
+  const [status, setStatus] = useState<Status>('loading');
+
+  useEffect(() => {
+    setStatus(tokenStore.get() ? 'signed-in' : 'signed-out');
+  }, []);
+
+  const signIn = useCallback((token: string) => {
+    tokenStore.set(token);
+    setStatus('signed-in');
+  }, []);
+  const signOut = useCallback(() => {
+    tokenStore.clear();
+    setStatus('signed-out');
+    queryClient.clear();
+  }, [queryClient]);
+
+  useEffect(() => {
+    setUnauthorizedHandler(signOut);
+    return () => setUnauthorizedHandler(undefined);
+  }, [signOut]);
+
+  const value = useMemo(() => ({ status, signIn, signOut }), [status, signIn, signOut]);
+  return <SessionContext.Provider value={value}>{children}</SessionContext.Provider>;
+}
+
+export function useSession(): SessionValue {
+  const value = useContext(SessionContext);
+  if (!value) throw new Error('useSession must be used inside SessionProvider');
+  return value;
+}
+
+/** A post-sign-in destination from ?next=, accepted only when it is a path inside the app. */
+export function safeNext(next: unknown): string {
+  const value = Array.isArray(next) ? next[0] : next;
+  if (typeof value !== 'string' || !value.startsWith('/') || value.startsWith('//') || value.includes('\\')) return '/';
+  if (value.startsWith('/sign-in') || value.startsWith('/sign-up')) return '/';
+  return value;
+}

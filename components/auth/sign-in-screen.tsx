@@ -1,0 +1,45 @@
+import { zodResolver } from '@hookform/resolvers/zod';
+import { Link, router, useLocalSearchParams } from 'expo-router';
+import { useState } from 'react';
+import { useForm } from 'react-hook-form';
+import { signInInputSchema, type SignInInput } from '../../shared/schemas/auth';
+import { useSignIn } from '../api/auth';
+import { Button } from '../ui/button';
+import { Callout } from '../ui/callout';
+import { FormTextField } from '../ui/form-text-field';
+import { applyServerErrors } from '../ui/form-errors';
+import { Text } from '../ui/text';
+import { AuthCard } from './auth-card';
+import { safeNext } from './session';
+
+export function SignInScreen() {
+  const { next } = useLocalSearchParams<{ next?: string }>();
+  const signIn = useSignIn();
+  const [formError, setFormError] = useState<string>();
+  const form = useForm<SignInInput>({ resolver: zodResolver(signInInputSchema), defaultValues: { email: '', password: '' } });
+
+  const onSubmit = form.handleSubmit((values) => {
+    setFormError(undefined);
+    signIn.mutate(values, {
+      onSuccess: () => router.replace(safeNext(next) as never),
+      onError: (error) => setFormError(applyServerErrors(error, form.setError, ['email', 'password'])),
+    });
+  });
+
+  return (
+    <AuthCard title="Sign in">
+      {formError ? <Callout tone="danger" title="Not signed in">{formError}</Callout> : null}
+      <FormTextField control={form.control} name="email" label="Email" autoComplete="email" keyboardType="email-address" autoCapitalize="none" inputMode="email" />
+      <FormTextField control={form.control} name="password" label="Password" secureTextEntry autoComplete="current-password" onSubmitEditing={onSubmit} />
+      <Button label="Sign in" size="lg" loading={signIn.isPending} onPress={onSubmit} />
+      <Text color="textMuted">
+        New here?{' '}
+        <Link href={{ pathname: '/sign-up', params: next ? { next } : {} }}>
+          <Text color="primary" weight="bold">
+            Create an account
+          </Text>
+        </Link>
+      </Text>
+    </AuthCard>
+  );
+}

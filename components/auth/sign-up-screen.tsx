@@ -1,0 +1,57 @@
+import { zodResolver } from '@hookform/resolvers/zod';
+import { Link, router, useLocalSearchParams } from 'expo-router';
+import { useState } from 'react';
+import { useForm } from 'react-hook-form';
+import { PASSWORD_MIN_LENGTH, signUpInputSchema, type SignUpInput } from '../../shared/schemas/auth';
+import { useSignUp } from '../api/auth';
+import { Button } from '../ui/button';
+import { Callout } from '../ui/callout';
+import { FormTextField } from '../ui/form-text-field';
+import { applyServerErrors } from '../ui/form-errors';
+import { Text } from '../ui/text';
+import { AuthCard } from './auth-card';
+import { safeNext } from './session';
+
+export function SignUpScreen() {
+  const { next } = useLocalSearchParams<{ next?: string }>();
+  const signUp = useSignUp();
+  const [formError, setFormError] = useState<string>();
+  const form = useForm<SignUpInput>({
+    resolver: zodResolver(signUpInputSchema),
+    defaultValues: { email: '', displayName: '', password: '' },
+  });
+
+  const onSubmit = form.handleSubmit((values) => {
+    setFormError(undefined);
+    signUp.mutate(values, {
+      onSuccess: () => router.replace(safeNext(next) as never),
+      onError: (error) => setFormError(applyServerErrors(error, form.setError, ['email', 'displayName', 'password'])),
+    });
+  });
+
+  return (
+    <AuthCard title="Create an account">
+      {formError ? <Callout tone="danger" title="Account not created">{formError}</Callout> : null}
+      <FormTextField control={form.control} name="displayName" label="Your name" autoComplete="name" />
+      <FormTextField control={form.control} name="email" label="Email" autoComplete="email" keyboardType="email-address" autoCapitalize="none" inputMode="email" />
+      <FormTextField
+        control={form.control}
+        name="password"
+        label="Password"
+        hint={`At least ${PASSWORD_MIN_LENGTH} characters. A few unrelated words work well.`}
+        secureTextEntry
+        autoComplete="new-password"
+        onSubmitEditing={onSubmit}
+      />
+      <Button label="Create account" size="lg" loading={signUp.isPending} onPress={onSubmit} />
+      <Text color="textMuted">
+        Already have an account?{' '}
+        <Link href={{ pathname: '/sign-in', params: next ? { next } : {} }}>
+          <Text color="primary" weight="bold">
+            Sign in
+          </Text>
+        </Link>
+      </Text>
+    </AuthCard>
+  );
+}

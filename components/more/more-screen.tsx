@@ -1,0 +1,53 @@
+import { Link } from 'expo-router';
+import { StyleSheet, View } from 'react-native';
+import { useMe, useSignOut } from '../api/auth';
+import { Button } from '../ui/button';
+import { Card } from '../ui/card';
+import { Screen } from '../ui/screen';
+import { ErrorState, LoadingState } from '../ui/states';
+import { Text } from '../ui/text';
+
+const ACCESS_WORDS = { owner: 'Your own profile', carer: 'You care for this person', clinician: 'You support this person' } as const;
+
+/** The person's own page: account, profiles they can open, settings and sign-out. */
+export function MoreScreen() {
+  const me = useMe();
+  const signOut = useSignOut();
+  if (me.isPending) return <LoadingState />;
+  if (me.isError) return <ErrorState error={me.error} onRetry={() => void me.refetch()} />;
+  const { user, profiles } = me.data;
+  return (
+    <Screen title="You" subtitle={`${user.displayName} · ${user.email}`}>
+      <Card>
+        <Text variant="heading">Profiles</Text>
+        {profiles.length === 0 ? (
+          <Text color="textMuted">
+            No profile yet. A profile holds one person&apos;s ratios, plans and logs; someone can give you access to theirs.
+          </Text>
+        ) : (
+          profiles.map((p) => (
+            <View key={p.id} style={styles.row}>
+              <Text weight="bold">{p.displayName}</Text>
+              <Text color="textMuted">{ACCESS_WORDS[p.access]}</Text>
+            </View>
+          ))
+        )}
+      </Card>
+      <Card>
+        <Text variant="heading">Account</Text>
+        <Text color="textMuted">Role: {user.role}</Text>
+        <View style={styles.actions}>
+          <Link href="/more/password" asChild>
+            <Button variant="secondary" label="Change password" />
+          </Link>
+          <Button variant="danger" label="Sign out" loading={signOut.isPending} onPress={() => signOut.mutate()} />
+        </View>
+      </Card>
+    </Screen>
+  );
+}
+
+const styles = StyleSheet.create({
+  row: { gap: 2, paddingVertical: 4 },
+  actions: { flexDirection: 'row', flexWrap: 'wrap', gap: 12 },
+});

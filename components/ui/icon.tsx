@@ -1,0 +1,43 @@
+import Svg, { Circle, Path, Rect } from 'react-native-svg';
+
+export type IconName = 'today' | 'recipes' | 'kitchen' | 'plan' | 'more';
+
+/** Hand-drawn line icons (our own), 24-unit grid, drawn in the given colour. */
+export function Icon({ name, color, size = 24 }: { name: IconName; color: string; size?: number }) {
+  const stroke = { stroke: color, strokeWidth: 1.8, fill: 'none', strokeLinecap: 'round', strokeLinejoin: 'round' } as const;
+  return (
+    <Svg width={size} height={size} viewBox="0 0 24 24" aria-hidden>
+      {name === 'today' ? (
+        <>
+          <Circle cx={12} cy={13} r={7} {...stroke} />
+          <Circle cx={12} cy={13} r={3.5} {...stroke} />
+          <Path d="M3 5.5h4M17 5.5h4M12 2.5v2" {...stroke} />
+        </>
+      ) : null}
+      {name === 'recipes' ? (
+        <>
+          <Path d="M5 4.5h10.5a3 3 0 0 1 3 3v12H8a3 3 0 0 1-3-3z" {...stroke} />
+          <Path d="M5 16.5a3 3 0 0 1 3-3h10.5M9 8h6" {...stroke} />
+        </>
+      ) : null}
+      {name === 'kitchen' ? (
+        <>
+          <Path d="M4 10h16v5.5a4.5 4.5 0 0 1-4.5 4.5h-7A4.5 4.5 0 0 1 4 15.5z" {...stroke} />
+          <Path d="M2 11.5h2M20 11.5h2M9 6.5c0-1.5 1.2-1.5 1.2-3M13.5 6.5c0-1.5 1.2-1.5 1.2-3" {...stroke} />
+        </>
+      ) : null}
+      {name === 'plan' ? (
+        <>
+          <Rect x={3.5} y={5} width={17} height={15} rx={2.5} {...stroke} />
+          <Path d="M3.5 9.5h17M8 3v4M16 3v4M7.5 13h2M11 13h2M14.5 13h2M7.5 16.5h2M11 16.5h2" {...stroke} />
+        </>
+      ) : null}
+      {name === 'more' ? (
+        <>
+          <Circle cx={12} cy={8} r={3.5} {...stroke} />
+          <Path d="M5 20c.8-3.6 3.6-5.5 7-5.5s6.2 1.9 7 5.5" {...stroke} />
+        </>
+      ) : null}
+    </Svg>
+  );
+}

@@ -1,0 +1,28 @@
+/**
+ * npm start's preparation step: migrate, create the admin from ADMIN_EMAIL/ADMIN_PASSWORD when given,
+ * then the later steps (default dataset, demo) each issue adds here. Every step is idempotent.
+ */
+import { loadConfig } from '../config';
+import { createSequelize, migrate } from '../db';
+import { ensureAdmin } from '../services/auth.service';
+
+async function main() {
+  const config = loadConfig();
+  const sequelize = createSequelize(config.DATABASE_URL, { poolMax: 4 });
+  try {
+    const applied = await migrate(sequelize);
+    console.log(applied.length ? `Migrations applied: ${applied.join(', ')}` : 'Database schema is up to date.');
+    if (config.ADMIN_EMAIL && config.ADMIN_PASSWORD) {
+      if (config.ADMIN_PASSWORD.length < 10) throw new Error('ADMIN_PASSWORD must have at least 10 characters.');
+      const { created } = await ensureAdmin(config, config.ADMIN_EMAIL, config.ADMIN_PASSWORD);
+      console.log(`Admin ${config.ADMIN_EMAIL} ${created ? 'created' : 'updated'}.`);
+    }
+  } finally {
+    await sequelize.close();
+  }
+}
+
+main().catch((err) => {
+  console.error(err instanceof Error ? err.message : err);
+  process.exit(1);
+});

@@ -1,0 +1,27 @@
+import { createApp } from './app';
+import { loadConfig } from './config';
+import { createSequelize } from './db';
+import { logger } from './logger';
+
+async function main() {
+  const config = loadConfig();
+  const sequelize = createSequelize(config.DATABASE_URL);
+  await sequelize.authenticate();
+  const app = createApp(config, sequelize);
+  const server = app.listen(config.PORT, config.HOST, () => {
+    const url = config.PUBLIC_URL ?? `http://${config.HOST}:${config.PORT}`;
+    logger.info({ url }, 'Carbwright is listening');
+    process.stdout.write(`\n  Carbwright is ready: ${url}\n\n`);
+  });
+  const shutdown = () => {
+    server.close(() => void sequelize.close().then(() => process.exit(0)));
+    setTimeout(() => process.exit(0), 5000).unref();
+  };
+  process.on('SIGINT', shutdown);
+  process.on('SIGTERM', shutdown);
+}
+
+main().catch((err) => {
+  logger.fatal({ err }, 'failed to start');
+  process.exit(1);
+});

@@ -1,0 +1,57 @@
+import type { NextFunction, Request, Response } from 'express';
+import type { ProfileAccessRole, UserRole } from '../../shared/schemas/auth';
+import { AppError } from '../errors';
+import type { ProfileAccessModel, UserModel } from '../models';
+import { findProfileAccess, verifyToken } from '../services/auth.service';
+import type { Config } from '../config';
+
+export type AuthContext = { user: UserModel; jti: string; expiresAt: Date };
+
+declare module 'express-serve-static-core' {
+  interface Request {
+    auth?: AuthContext;
+    profileAccess?: ProfileAccessModel;
+  }
+}
+
+/** Requires a valid bearer token; sets req.auth. */
+export function requireAuth(config: Config) {
+  return async (req: Request, _res: Response, next: NextFunction) => {
+    const header = req.get('authorization') ?? '';
+    const match = /^Bearer\s+(.+)$/i.exec(header);
+    if (!match) return next(AppError.unauthorized());
+    req.auth = await verifyToken(config, match[1].trim());
+    next();
+  };
+}
+
+/** Allows only the given account roles (after requireAuth). */
+export function requireRole(...roles: UserRole[]) {
+  return (req: Request, _res: Response, next: NextFunction) => {
+    if (!req.auth) return next(AppError.unauthorized());
+    if (!roles.includes(req.auth.user.role)) return next(AppError.forbidden());
+    next();
+  };
+}
+
+/**
+ * Allows only people with access to the profile named by req.params[param] (after requireAuth).
+ * Without access the answer is 404, so strangers cannot learn which profiles exist.
+ */
+export function requireProfileAccess(
+  roles: ProfileAccessRole[] = ['owner', 'carer', 'clinician'],
+  param = 'profileId',
+) {
+  return async (req: Request, _res: Response, next: NextFunction) => {
+    if (!req.auth) return next(AppError.unauthorized());
+    const profileId = Number(req.params[param]);
+    if (!Number.isInteger(profileId) || profileId <= 0) {
+      return next(AppError.validation({ [param]: ['Not a valid id.'] }));
+    }
+    const access = await findProfileAccess(req.auth.user.id, profileId);
+    if (!access) return next(AppError.notFound('profile'));
+    if (!roles.includes(access.role)) return next(AppError.forbidden('Your access to this profile does not allow that.'));
+    req.profileAccess = access;
+    next();
+  };
+}

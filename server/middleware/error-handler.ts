@@ -1,0 +1,41 @@
+import type { NextFunction, Request, Response } from 'express';
+import { MulterError } from 'multer';
+import { ZodError } from 'zod';
+import type { ApiErrorBody } from '../../shared/schemas/api-error';
+import { AppError } from '../errors';
+import { logger } from '../logger';
+import { toFieldErrors } from './validate';
+
+function send(res: Response, status: number, body: ApiErrorBody) {
+  res.status(status).json(body);
+}
+
+/** The catch-all 404 for API paths nothing answered. */
+export function notFoundHandler(req: Request, _res: Response, next: NextFunction) {
+  next(new AppError(404, 'not_found', `No API route for ${req.method} ${req.path}.`));
+}
+
+/** The last middleware: one error format for everything, never a stack trace. */
+export function errorHandler(err: unknown, req: Request, res: Response, _next: NextFunction) {
+  if (err instanceof AppError) {
+    return send(res, err.status, { error: { code: err.code, message: err.message, fieldErrors: err.fieldErrors } });
+  }
+  if (err instanceof ZodError) {
+    return send(res, 400, { error: { code: 'validation_failed', message: 'Some fields are invalid.', fieldErrors: toFieldErrors(err) } });
+  }
+  if (err instanceof MulterError) {
+    if (err.code === 'LIMIT_FILE_SIZE') {
+      return send(res, 413, { error: { code: 'payload_too_large', message: 'That file is too large.' } });
+    }
+    return send(res, 400, { error: { code: 'validation_failed', message: err.message, fieldErrors: err.field ? { [err.field]: [err.message] } : undefined } });
+  }
+  const httpErr = err as { type?: string; status?: number };
+  if (httpErr?.type === 'entity.too.large') {
+    return send(res, 413, { error: { code: 'payload_too_large', message: 'The request body is too large.' } });
+  }
+  if (httpErr?.type === 'entity.parse.failed') {
+    return send(res, 400, { error: { code: 'validation_failed', message: 'The request body is not valid JSON.' } });
+  }
+  logger.error({ err, method: req.method, path: req.path }, 'unhandled error');
+  return send(res, 500, { error: { code: 'internal', message: 'Something went wrong on our side. Please try again.' } });
+}

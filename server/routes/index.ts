@@ -1,0 +1,17 @@
+import { Router } from 'express';
+import type { Sequelize } from 'sequelize';
+import type { Config } from '../config';
+import { adminRouter } from './admin.routes';
+import { authRouter } from './auth.routes';
+import { benchRouter } from './bench.routes';
+import { healthRouter } from './health.routes';
+
+/** Every API router, mounted under /api by createApp. Add one line per new router file. */
+export function apiRouter(config: Config, sequelize: Sequelize) {
+  const api = Router();
+  api.use(healthRouter(sequelize));
+  api.use(authRouter(config));
+  api.use(adminRouter(config));
+  if (config.BENCH_ROUTES === '1') api.use(benchRouter(sequelize));
+  return api;
+}

@@ -1,0 +1,25 @@
+import { z } from 'zod';
+
+/** Stable, snake_case error codes the client may branch on. */
+export const apiErrorCodeSchema = z.enum([
+  'validation_failed',
+  'unauthorized',
+  'forbidden',
+  'not_found',
+  'conflict',
+  'payload_too_large',
+  'unprocessable',
+  'rate_limited',
+  'internal',
+]);
+export type ApiErrorCode = z.infer<typeof apiErrorCodeSchema>;
+
+/** The one error body every API error uses. */
+export const apiErrorSchema = z.object({
+  error: z.object({
+    code: z.string(),
+    message: z.string(),
+    fieldErrors: z.record(z.string(), z.array(z.string())).optional(),
+  }),
+});
+export type ApiErrorBody = z.infer<typeof apiErrorSchema>;

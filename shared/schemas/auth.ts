@@ -1,0 +1,71 @@
+import { z } from 'zod';
+
+export const userRoleSchema = z.enum(['member', 'clinician', 'admin']);
+export type UserRole = z.infer<typeof userRoleSchema>;
+
+/** How a person reaches a profile: their own, as a carer, or as a clinician. */
+export const profileAccessRoleSchema = z.enum(['owner', 'carer', 'clinician']);
+export type ProfileAccessRole = z.infer<typeof profileAccessRoleSchema>;
+
+export const PASSWORD_MIN_LENGTH = 10;
+
+const emailSchema = z
+  .string()
+  .trim()
+  .min(1, 'Enter your email address.')
+  .max(254, 'That email address is too long.')
+  .pipe(z.email('Enter a valid email address.'))
+  .transform((value) => value.toLowerCase());
+
+const newPasswordSchema = z
+  .string()
+  .min(PASSWORD_MIN_LENGTH, `Use at least ${PASSWORD_MIN_LENGTH} characters.`)
+  .max(200, 'Use at most 200 characters.');
+
+export const signUpInputSchema = z.object({
+  email: emailSchema,
+  displayName: z.string().trim().min(1, 'Tell us what to call you.').max(80, 'Use at most 80 characters.'),
+  password: newPasswordSchema,
+});
+export type SignUpInput = z.infer<typeof signUpInputSchema>;
+
+export const signInInputSchema = z.object({
+  email: emailSchema,
+  password: z.string().min(1, 'Enter your password.').max(200),
+});
+export type SignInInput = z.infer<typeof signInInputSchema>;
+
+export const changePasswordInputSchema = z.object({
+  currentPassword: z.string().min(1, 'Enter your current password.').max(200),
+  newPassword: newPasswordSchema,
+});
+export type ChangePasswordInput = z.infer<typeof changePasswordInputSchema>;
+
+export const userSchema = z.object({
+  id: z.number().int(),
+  email: z.string(),
+  displayName: z.string(),
+  role: userRoleSchema,
+  createdAt: z.string(),
+});
+export type User = z.infer<typeof userSchema>;
+
+export const profileSummarySchema = z.object({
+  id: z.number().int(),
+  displayName: z.string(),
+  access: profileAccessRoleSchema,
+});
+export type ProfileSummary = z.infer<typeof profileSummarySchema>;
+
+export const meSchema = z.object({
+  user: userSchema,
+  profiles: z.array(profileSummarySchema),
+});
+export type Me = z.infer<typeof meSchema>;
+
+export const sessionSchema = z.object({
+  token: z.string(),
+  expiresAt: z.string(),
+  me: meSchema,
+});
+export type Session = z.infer<typeof sessionSchema>;
