@@ -10,6 +10,7 @@ import { serveWeb } from './web';
 
 /** Builds the Express app (API + web build); server/index.ts calls listen(), tests use supertest. */
 export function createApp(config: Config, sequelize: Sequelize) {
+  logger.level = config.LOG_LEVEL;
   const app = express();
   app.disable('x-powered-by');
   app.use(

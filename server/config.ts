@@ -19,7 +19,7 @@ const envSchema = z.object({
   BCRYPT_COST: z.coerce.number().int().min(4).max(15).default(12),
   AUTH_RATE_LIMIT: z.coerce.number().int().positive().default(20),
   AUTH_RATE_WINDOW_SECONDS: z.coerce.number().int().positive().default(15 * 60),
-  LOG_LEVEL: z.enum(['fatal', 'error', 'warn', 'info', 'debug', 'trace', 'silent']).default('info'),
+  LOG_LEVEL: z.enum(['fatal', 'error', 'warn', 'info', 'debug', 'trace', 'silent']).optional(),
   BENCH_ROUTES: z.enum(['0', '1']).default('0'),
   ADMIN_EMAIL: z.string().optional(),
   ADMIN_PASSWORD: z.string().optional(),
@@ -28,7 +28,8 @@ const envSchema = z.object({
   path: ['BCRYPT_COST'],
 });
 
-export type Config = z.infer<typeof envSchema> & { jwtSecret: string };
+type LogLevel = NonNullable<z.infer<typeof envSchema>['LOG_LEVEL']>;
+export type Config = Omit<z.infer<typeof envSchema>, 'LOG_LEVEL'> & { jwtSecret: string; LOG_LEVEL: LogLevel };
 
 /** Reads the JWT secret from the environment, or from DATA_DIR/jwt-secret (created once, mode 600). */
 function loadJwtSecret(env: z.infer<typeof envSchema>): string {
@@ -48,5 +49,6 @@ export function loadConfig(source: NodeJS.ProcessEnv = process.env): Config {
     const lines = parsed.error.issues.map((i) => `  ${i.path.join('.')}: ${i.message}`);
     throw new Error(`Invalid configuration:\n${lines.join('\n')}`);
   }
-  return { ...parsed.data, jwtSecret: loadJwtSecret(parsed.data) };
+  const LOG_LEVEL = parsed.data.LOG_LEVEL ?? (parsed.data.NODE_ENV === 'test' ? 'silent' : 'info');
+  return { ...parsed.data, LOG_LEVEL, jwtSecret: loadJwtSecret(parsed.data) };
 }

@@ -1,11 +1,15 @@
 import { DataTypes, Model } from 'sequelize';
 import type { CreationOptional, InferAttributes, InferCreationAttributes, Sequelize } from 'sequelize';
+import type { CarbBasis, CarbUnit, GlucoseUnit } from '../../shared/schemas/units';
 
-/** The person with diabetes whose numbers these are. Settings columns are added by later migrations. */
+/** The person with diabetes whose numbers these are. Dose settings live in their own tables. */
 export class ProfileModel extends Model<InferAttributes<ProfileModel>, InferCreationAttributes<ProfileModel>> {
   declare id: CreationOptional<number>;
   declare displayName: string;
   declare ownerUserId: number | null;
+  declare glucoseUnit: CreationOptional<GlucoseUnit>;
+  declare carbBasis: CreationOptional<CarbBasis>;
+  declare carbUnit: CreationOptional<CarbUnit>;
   declare createdAt: CreationOptional<Date>;
   declare updatedAt: CreationOptional<Date>;
 
@@ -15,6 +19,9 @@ export class ProfileModel extends Model<InferAttributes<ProfileModel>, InferCrea
         id: { type: DataTypes.INTEGER, autoIncrement: true, primaryKey: true },
         displayName: { type: DataTypes.STRING(80), allowNull: false },
         ownerUserId: { type: DataTypes.INTEGER, allowNull: true },
+        glucoseUnit: { type: DataTypes.ENUM('mmol_l', 'mg_dl'), allowNull: false, defaultValue: 'mmol_l' },
+        carbBasis: { type: DataTypes.ENUM('available', 'total'), allowNull: false, defaultValue: 'available' },
+        carbUnit: { type: DataTypes.ENUM('g', 'portion10', 'unit12', 'exchange15'), allowNull: false, defaultValue: 'g' },
         createdAt: DataTypes.DATE,
         updatedAt: DataTypes.DATE,
       },

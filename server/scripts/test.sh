@@ -2,6 +2,7 @@
 # npm test: dependencies, a throwaway PostgreSQL on a free port, the web build, then every test
 # (unit + API, web components, browser end-to-end). Always stops its database. Extra arguments go to jest
 # (e.g. `npm test -- tests/server/auth` runs matching files in every project).
+# TEST_PROJECTS="node" (or any of node web e2e) limits the run; the web build happens only for e2e.
 set -euo pipefail
 ROOT="$(cd "$(dirname "${BASH_SOURCE[0]}")/../.." && pwd)"
 cd "$ROOT"
@@ -21,7 +22,8 @@ export DATABASE_URL="$(PG_FSYNC=off PG_SYNC_COMMIT=off bash server/scripts/pg.sh
 export NODE_ENV=test CI="${CI:-}" TEST_OUTPUT_DIR="${TEST_OUTPUT_DIR:-$ROOT/test-output}"
 mkdir -p "$TEST_OUTPUT_DIR"
 
-bash server/scripts/build-web.sh
+PROJECTS="${TEST_PROJECTS:-node web e2e}"
+case " $PROJECTS " in *" e2e "*) bash server/scripts/build-web.sh ;; esac
 
 JEST=node_modules/.bin/jest
 status=0
@@ -34,9 +36,13 @@ run() { # name, then jest args
   [ -f "$out" ] && results+=("$out")
 }
 EXTRA=("$@")
-NODE_OPTIONS="--experimental-vm-modules ${NODE_OPTIONS:-}" run node "$JEST" --selectProjects node --maxWorkers=2 --passWithNoTests
-run web "$JEST" --selectProjects web --maxWorkers=2 --passWithNoTests
-run e2e "$JEST" --selectProjects e2e --runInBand --passWithNoTests
+for project in $PROJECTS; do
+  case "$project" in
+    node) NODE_OPTIONS="--experimental-vm-modules ${NODE_OPTIONS:-}" run node "$JEST" --selectProjects node --maxWorkers=2 --passWithNoTests ;;
+    web) run web "$JEST" --selectProjects web --maxWorkers=2 --passWithNoTests ;;
+    e2e) run e2e "$JEST" --selectProjects e2e --runInBand --passWithNoTests ;;
+  esac
+done
 
 node -e '
   let p = 0, f = 0, s = 0;

@@ -39,7 +39,14 @@ export async function getMe(user: UserModel): Promise<Me> {
   const profiles = accesses
     .map((a) => {
       const profile = (a as ProfileAccessModel & { profile: ProfileModel }).profile;
-      return { id: profile.id, displayName: profile.displayName, access: a.role };
+      return {
+        id: profile.id,
+        displayName: profile.displayName,
+        access: a.role,
+        glucoseUnit: profile.glucoseUnit,
+        carbBasis: profile.carbBasis,
+        carbUnit: profile.carbUnit,
+      };
     })
     .sort((a, b) => order[a.access] - order[b.access]);
   return { user: user.toUser(), profiles };

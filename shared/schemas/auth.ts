@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { carbBasisSchema, carbUnitSchema, glucoseUnitSchema } from './units';
 
 export const userRoleSchema = z.enum(['member', 'clinician', 'admin']);
 export type UserRole = z.infer<typeof userRoleSchema>;
@@ -54,6 +55,9 @@ export const profileSummarySchema = z.object({
   id: z.number().int(),
   displayName: z.string(),
   access: profileAccessRoleSchema,
+  glucoseUnit: glucoseUnitSchema,
+  carbBasis: carbBasisSchema,
+  carbUnit: carbUnitSchema,
 });
 export type ProfileSummary = z.infer<typeof profileSummarySchema>;
 

@@ -1,0 +1,13 @@
+import { z } from 'zod';
+
+/** Which carbohydrate a profile counts: available (fibre excluded) or total (fibre included). */
+export const carbBasisSchema = z.enum(['available', 'total']);
+export type CarbBasis = z.infer<typeof carbBasisSchema>;
+
+/** How carbohydrate is shown: grams, 10 g portions, 12 g units, 15 g exchanges. */
+export const carbUnitSchema = z.enum(['g', 'portion10', 'unit12', 'exchange15']);
+export type CarbUnit = z.infer<typeof carbUnitSchema>;
+
+/** Glucose display unit; values are stored in mmol/L. */
+export const glucoseUnitSchema = z.enum(['mmol_l', 'mg_dl']);
+export type GlucoseUnit = z.infer<typeof glucoseUnitSchema>;
