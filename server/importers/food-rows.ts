@@ -1,0 +1,64 @@
+import type { Nutrients } from '../../shared/compute/nutrients';
+
+/** Lower-case, accents removed, punctuation turned into single spaces: the form search compares. */
+export function normaliseSearchText(s: string): string {
+  return s
+    .normalize('NFD')
+    .replace(/\p{M}+/gu, '')
+    .toLowerCase()
+    .replace(/[^\p{L}\p{N}]+/gu, ' ')
+    .trim();
+}
+
+// Words that mark a prepared or processed variant; the plain raw food ranks before them.
+const PROCESSED = /\b(cooked|boiled|fried|roasted|baked|canned|dried|dehydrated|powder|flour|juice|frozen|sweetened|syrup|chips|candied|pickled|salted|toasted|stewed|microwaved|prepared|mix|bread|cake|pie|sauce|drink|beverage|flakes|puffed|instant|fast foods|restaurant)\b/;
+
+/** Search columns for a food: its normalised name, the name plus aliases, and a raw-before-processed rank penalty. */
+export function searchKeys(name: string, altNames: string[]): { nameKey: string; searchText: string; rankPenalty: number } {
+  const nameKey = normaliseSearchText(name);
+  const searchText = normaliseSearchText([name, ...altNames].join(' '));
+  let rankPenalty = 1;
+  if (/\b(raw|fresh|ripe|whole)\b/.test(nameKey)) rankPenalty = 0;
+  if (PROCESSED.test(nameKey)) rankPenalty = 2;
+  return { nameKey, searchText, rankPenalty };
+}
+
+/**
+ * Completes the carbohydrate pair from what a source published (see shared/reference/datasets.md §4):
+ * available = total − fibre, total = available + fibre, only where fibre is known. Returns the keys derived.
+ */
+export function deriveCarbs(n: Nutrients, measured: 'available' | 'total'): { nutrients: Nutrients; derived: string[] } {
+  const out = { ...n };
+  const derived: string[] = [];
+  if (measured === 'total') {
+    out.carbAvailable = null;
+    if (n.carbTotal != null && n.fibre != null) {
+      out.carbAvailable = Math.max(0, roundTo(n.carbTotal - n.fibre, 6));
+      derived.push('carbAvailable');
+    }
+  } else {
+    out.carbTotal = null;
+    if (n.carbAvailable != null && n.fibre != null) {
+      out.carbTotal = roundTo(n.carbAvailable + n.fibre, 6);
+      derived.push('carbTotal');
+    }
+  }
+  return { nutrients: out, derived };
+}
+
+/** Energy from the other unit when a source gives only one (1 kcal = 4.184 kJ, the thermochemical calorie). */
+export function completeEnergy(n: Nutrients, derived: string[]): void {
+  if (n.energyKj == null && n.energyKcal != null) {
+    n.energyKj = roundTo(n.energyKcal * 4.184, 3);
+    derived.push('energyKj');
+  } else if (n.energyKcal == null && n.energyKj != null) {
+    n.energyKcal = roundTo(n.energyKj / 4.184, 3);
+    derived.push('energyKcal');
+  }
+}
+
+/** Rounds away floating-point dust from subtraction (not display rounding). */
+export function roundTo(x: number, places: number): number {
+  const f = 10 ** places;
+  return Math.round(x * f) / f;
+}

@@ -1,0 +1,153 @@
+import { Op, QueryTypes } from 'sequelize';
+import type { WhereOptions } from 'sequelize';
+import type { Food, FoodSearchPage, FoodSearchQuery, FoodSummary } from '../../shared/schemas/food';
+import { AppError } from '../errors';
+import { FoodMeasureModel, FoodModel, ProfileAccessModel } from '../models';
+import { normaliseSearchText } from '../importers/food-rows';
+
+/** Maps a food row to the API shape, without measures. */
+export function toFoodSummary(f: FoodModel): FoodSummary {
+  return {
+    id: f.id,
+    name: f.name,
+    source: f.source,
+    sourceCode: f.sourceCode,
+    group: f.foodGroup,
+    altNames: f.altNames ?? [],
+    per100g: {
+      energyKcal: f.energyKcal,
+      energyKj: f.energyKj,
+      carbAvailable: f.carbAvailable,
+      carbTotal: f.carbTotal,
+      fibre: f.fibre,
+      sugars: f.sugars,
+      protein: f.protein,
+      fat: f.fat,
+      water: f.water,
+    },
+    carbMeasured: f.carbMeasured,
+    carbNote: f.carbNote ?? null,
+    derived: f.derived ?? [],
+    attribution: f.attribution,
+    licence: f.licence,
+    ownerUserId: f.ownerUserId ?? null,
+    sharedProfileId: f.sharedProfileId ?? null,
+    labelConvention: f.labelConvention ?? null,
+    hasPhoto: Boolean(f.photoPath),
+  };
+}
+
+/** Maps a food model with its measures loaded to the API shape. */
+export function toFood(f: FoodModel): Food {
+  const measures = [...(f.measures ?? [])].sort((a, b) => a.seq - b.seq).map((m) => ({ label: m.label, grams: m.grams }));
+  return { ...toFoodSummary(f), measures };
+}
+
+/** Profiles whose care team the user belongs to (owner, carer or clinician). */
+async function profileIdsOf(userId: number): Promise<number[]> {
+  const rows = await ProfileAccessModel.findAll({ where: { userId }, attributes: ['profileId'], raw: true });
+  return rows.map((r) => r.profileId);
+}
+
+/** The visibility rule: every table food; label foods the user owns or that are shared with a profile they can open. */
+async function visibleWhere(userId: number): Promise<WhereOptions<FoodModel>> {
+  const profileIds = await profileIdsOf(userId);
+  const or: WhereOptions<FoodModel>[] = [{ ownerUserId: null }, { ownerUserId: userId }];
+  if (profileIds.length) or.push({ sharedProfileId: { [Op.in]: profileIds } });
+  return { [Op.or]: or };
+}
+
+/**
+ * Foods a user may use in a recipe, keyed by id: every table food, and label foods they own or that are
+ * shared with a profile they have access to. Ids the user may not use (or that do not exist) are absent.
+ */
+export async function getUsableFoods(ids: number[], userId: number): Promise<Map<number, Food>> {
+  const unique = [...new Set(ids)].filter((id) => Number.isInteger(id) && id > 0);
+  const out = new Map<number, Food>();
+  if (!unique.length) return out;
+  const rows = await FoodModel.findAll({
+    where: { [Op.and]: [{ id: { [Op.in]: unique } }, await visibleWhere(userId)] },
+    include: [{ model: FoodMeasureModel, as: 'measures' }],
+  });
+  for (const row of rows) out.set(row.id, toFood(row));
+  return out;
+}
+
+/** One food with its measures, or 404 when it does not exist or the user may not see it. */
+export async function getFood(id: number, userId: number): Promise<Food> {
+  const food = (await getUsableFoods([id], userId)).get(id);
+  if (!food) throw AppError.notFound('food');
+  return food;
+}
+
+/** The stored photo path of a label food the user may see, or 404. */
+export async function getFoodPhotoPath(id: number, userId: number): Promise<string> {
+  const row = await FoodModel.findOne({ where: { [Op.and]: [{ id }, await visibleWhere(userId)] }, attributes: ['photoPath'] });
+  if (!row?.photoPath) throw AppError.notFound('photo');
+  return row.photoPath;
+}
+
+const escapeLike = (s: string) => s.replace(/[\\%_]/g, (c) => `\\${c}`);
+
+/**
+ * Ranked, paginated food search. Matching: every word as a substring (prefix-as-you-type) or, for typos,
+ * trigram word similarity. Ranking: exact name, name prefix, word prefix, substring, fuzzy; within a tier
+ * plain raw foods before processed variants (rank_penalty), then closeness and shorter names.
+ * The text is only ever a bound parameter.
+ */
+export async function searchFoods(query: FoodSearchQuery, userId: number): Promise<FoodSearchPage> {
+  const sequelize = FoodModel.sequelize!;
+  const q = normaliseSearchText(query.q);
+  const words = q.split(' ').filter(Boolean).slice(0, 8);
+  const offset = query.cursor ? Number(query.cursor) : 0;
+  const profileIds = await profileIdsOf(userId);
+  const repl: Record<string, unknown> = {
+    userId,
+    profileIds: profileIds.length ? profileIds : [0],
+    q,
+    exact: q,
+    prefix: `${escapeLike(q)}%`,
+    wordPrefix: `% ${escapeLike(q)}%`,
+    contains: `%${escapeLike(q)}%`,
+    limit: query.limit + 1,
+    offset,
+    source: query.source ?? null,
+    group: query.group ?? null,
+  };
+  const wordConds = words.map((w, i) => {
+    repl[`w${i}`] = `%${escapeLike(w)}%`;
+    return `f.search_text LIKE :w${i}`;
+  });
+  const allWords = wordConds.length ? wordConds.join(' AND ') : 'TRUE';
+  const match = q ? `((${allWords}) OR :q <% f.search_text)` : 'TRUE';
+  const rows = await sequelize.query<Record<string, unknown>>(
+    `SELECT f.id
+       FROM foods f
+      WHERE (f.owner_user_id IS NULL OR f.owner_user_id = :userId OR f.shared_profile_id IN (:profileIds))
+        AND (CAST(:source AS TEXT) IS NULL OR f.source::text = :source)
+        AND (CAST(:group AS TEXT) IS NULL OR f.food_group ILIKE :group)
+        AND ${match}
+      ORDER BY
+        CASE WHEN :q = '' THEN 0
+             WHEN f.name_key = :exact THEN 0
+             WHEN f.name_key LIKE :prefix THEN 1
+             WHEN (' ' || f.search_text) LIKE :wordPrefix THEN 2
+             WHEN ${allWords} THEN 3
+             ELSE 4 END,
+        f.rank_penalty,
+        word_similarity(:q, f.search_text) DESC,
+        length(f.name),
+        f.id
+      LIMIT :limit OFFSET :offset`,
+    { replacements: repl, type: QueryTypes.SELECT },
+  );
+  const ids = rows.map((r) => Number(r.id));
+  const more = ids.length > query.limit;
+  const pageIds = ids.slice(0, query.limit);
+  const found = await FoodModel.findAll({ where: { id: { [Op.in]: pageIds.length ? pageIds : [0] } } });
+  const byId = new Map(found.map((f) => [f.id, f]));
+  return {
+    items: pageIds.flatMap((id) => (byId.has(id) ? [toFoodSummary(byId.get(id)!)] : [])),
+    nextCursor: more ? String(offset + query.limit) : null,
+  };
+}
