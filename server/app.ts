@@ -23,11 +23,24 @@ export function createApp(config: Config, sequelize: Sequelize) {
           'img-src': ["'self'", 'data:', 'blob:'],
           'font-src': ["'self'", 'data:'],
           'connect-src': ["'self'"],
+          // served over plain http on loopback or a LAN address: do not force https sub-requests
+          'upgrade-insecure-requests': null,
         },
       },
     }),
   );
-  if (config.NODE_ENV !== 'test') app.use(pinoHttp({ logger, autoLogging: { ignore: (req) => !req.url?.startsWith('/api') } }));
+  if (config.NODE_ENV !== 'test') {
+    app.use(
+      pinoHttp({
+        logger,
+        autoLogging: { ignore: (req) => !req.url?.startsWith('/api') },
+        serializers: {
+          req: (req: { method: string; url: string }) => ({ method: req.method, url: req.url?.split('?')[0] }),
+          res: (res: { statusCode: number }) => ({ statusCode: res.statusCode }),
+        },
+      }),
+    );
+  }
   app.use(express.json({ limit: '1mb' }));
   app.use('/api', apiRouter(config, sequelize));
   app.use('/api', notFoundHandler);
