@@ -1,0 +1,57 @@
+/**
+ * Active insulin ("insulin on board") from earlier rapid-acting doses.
+ *
+ * Curve: the exponential insulin-activity model used by the open-source closed-loop project OpenAPS
+ * (oref0 "exponential" curve, D. Maksimovic), parameterised by the action time and the time of peak
+ * activity. Chosen over a straight line because it follows absorption: little insulin has acted in
+ * the first half hour, so it does not under-count insulin just taken, which is what leads to
+ * stacking. It reaches exactly 1 at 0 and 0 at the action time, and falls monotonically between.
+ */
+
+/** Peak activity of a rapid-acting analogue, minutes (the oref0 "rapid-acting" preset). */
+export const RAPID_PEAK_MINUTES = 75;
+
+/** The model needs the peak before half the action time; short action times move the peak earlier. */
+export function peakMinutesFor(actionTimeMinutes: number): number {
+  return Math.min(RAPID_PEAK_MINUTES, actionTimeMinutes * 0.4);
+}
+
+/**
+ * Fraction (0–1) of a dose still active `minutesSince` after it was taken, for an action time in
+ * minutes. 1 at or before 0 minutes, 0 at or after the action time.
+ */
+export function activeFraction(minutesSince: number, actionTimeMinutes: number): number {
+  if (!(actionTimeMinutes > 0)) return 0;
+  if (minutesSince <= 0) return 1;
+  if (minutesSince >= actionTimeMinutes) return 0;
+  const td = actionTimeMinutes;
+  const tp = peakMinutesFor(td);
+  const tau = (tp * (1 - tp / td)) / (1 - (2 * tp) / td);
+  const a = (2 * tau) / td;
+  const s = 1 / (1 - a + (1 + a) * Math.exp(-td / tau));
+  const t = minutesSince;
+  const value = 1 - s * (1 - a) * ((t * t / (tau * td * (1 - a)) - t / tau - 1) * Math.exp(-t / tau) + 1);
+  return Math.min(1, Math.max(0, value));
+}
+
+export type EarlierDose = { units: number; takenAt: number };
+
+/**
+ * Units still active at `at` (epoch ms) from earlier doses (units, takenAt epoch ms), for an action
+ * time in hours. Doses after `at` are ignored; doses add up.
+ */
+export function activeInsulin(doses: readonly EarlierDose[], at: number, actionTimeHours: number): number {
+  const td = actionTimeHours * 60;
+  let sum = 0;
+  for (const d of doses) {
+    if (d.takenAt > at || !(d.units > 0)) continue;
+    sum += d.units * activeFraction((at - d.takenAt) / 60_000, td);
+  }
+  return sum;
+}
+
+/** Doses taken within the action time before `at` (what the "insulin still working" warning lists). */
+export function recentDoses<T extends EarlierDose>(doses: readonly T[], at: number, actionTimeHours: number): T[] {
+  const td = actionTimeHours * 3_600_000;
+  return doses.filter((d) => d.units > 0 && d.takenAt <= at && at - d.takenAt < td);
+}

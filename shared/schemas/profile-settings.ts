@@ -1,0 +1,200 @@
+import { z } from 'zod';
+import { EXERCISE_INTENSITIES } from '../compute/exercise';
+import { formatGlucose, glucoseToMmol } from '../compute/units';
+import { carbBasisSchema, carbUnitSchema, glucoseUnitSchema, type GlucoseUnit } from './units';
+
+/** A number from JSON or a form field ("4,5" accepted); empty is missing. */
+export function numberField(required: string) {
+  return z.preprocess(
+    (v) => (v === '' || v == null ? undefined : typeof v === 'string' ? Number(v.trim().replace(',', '.')) : v),
+    z.number({ error: required }).refine(Number.isFinite, required),
+  );
+}
+
+/** Like numberField, but empty means null (not set). */
+export function optionalNumberField(message: string) {
+  return z.preprocess(
+    (v) => (v === '' || v == null ? null : typeof v === 'string' ? Number(v.trim().replace(',', '.')) : v),
+    z.number({ error: message }).refine(Number.isFinite, message).nullable(),
+  );
+}
+
+/** Limits for glucose settings, mmol/L (checked after converting from the profile's unit). */
+export const GLUCOSE_LIMITS_MMOL = {
+  targetLow: [3.5, 10],
+  targetHigh: [4.5, 15],
+  correctionTarget: [3.5, 15],
+  hypoThreshold: [3.0, 5.0],
+  veryHigh: [10, 30],
+  correctionFactor: [0.2, 20],
+} as const;
+
+/**
+ * Hypoglycaemia alert value: 3.9 mmol/L (70 mg/dL) or less — International Hypoglycaemia Study Group,
+ * Diabetes Care 2017;40:155–157. Glucose at or below the threshold gives no dose.
+ */
+export const DEFAULT_HYPO_THRESHOLD_MMOL = 3.9;
+/** Ketone check above 15 mmol/L (270 mg/dL) before exercise: Riddell et al. 2017 consensus (secondary source). */
+export const DEFAULT_VERY_HIGH_MMOL = 15;
+
+export const roundingSchema = z.enum(['down', 'nearest']);
+export const iobConventionSchema = z.enum(['correction_only', 'total']);
+
+const percentCell = optionalNumberField('Enter a percentage from 0 to 90, or leave empty for no reduction.').refine(
+  (v) => v == null || (v >= 0 && v <= 90),
+  'Use a percentage from 0 to 90, or leave it empty.',
+);
+export const exerciseReductionsSchema = z.object(
+  Object.fromEntries(EXERCISE_INTENSITIES.map((k) => [k, z.object({ min30: percentCell, min60: percentCell })])) as Record<
+    (typeof EXERCISE_INTENSITIES)[number],
+    z.ZodObject<{ min30: typeof percentCell; min60: typeof percentCell }>
+  >,
+);
+
+function checkGlucose(
+  ctx: z.RefinementCtx,
+  unit: GlucoseUnit,
+  key: keyof typeof GLUCOSE_LIMITS_MMOL,
+  path: (string | number)[],
+  value: number | undefined,
+  label: string,
+) {
+  if (value == null || !Number.isFinite(value)) return;
+  const [lo, hi] = GLUCOSE_LIMITS_MMOL[key];
+  const mmol = glucoseToMmol(value, unit);
+  if (mmol < lo - 1e-9 || mmol > hi + 1e-9) {
+    const suffix = key === 'correctionFactor' ? ' per unit' : '';
+    ctx.addIssue({
+      code: 'custom',
+      path,
+      message: `${label} must be between ${formatGlucose(lo, unit)} and ${formatGlucose(hi, unit)}${suffix}.`,
+    });
+  }
+}
+
+/** Units and safety limits, glucose values in the given glucoseUnit (stored as mmol/L). */
+export const profileSettingsInputSchema = z
+  .object({
+    glucoseUnit: glucoseUnitSchema,
+    carbBasis: carbBasisSchema,
+    carbUnit: carbUnitSchema,
+    penIncrement: numberField('Enter the pen increment.').refine((v) => v === 0.5 || v === 1, 'The pen increment must be 0.5 or 1 unit.'),
+    rounding: roundingSchema,
+    maxDoseUnits: numberField('Enter the maximum single dose.').refine((v) => v >= 1 && v <= 100, 'Use a maximum from 1 to 100 units.'),
+    actionTimeHours: numberField('Enter the insulin action time.').refine((v) => v >= 2 && v <= 8, 'The action time must be 2 to 8 hours.'),
+    targetLow: numberField('Enter the bottom of the target range.'),
+    targetHigh: numberField('Enter the top of the target range.'),
+    correctionTarget: numberField('Enter the correction target.'),
+    hypoThreshold: numberField('Enter the low-glucose threshold.'),
+    veryHigh: numberField('Enter the very-high threshold.'),
+    allowNegativeCorrection: z.boolean(),
+    iobConvention: iobConventionSchema,
+    exerciseReductions: exerciseReductionsSchema,
+  })
+  .superRefine((s, ctx) => {
+    const u = s.glucoseUnit;
+    checkGlucose(ctx, u, 'targetLow', ['targetLow'], s.targetLow, 'The bottom of the range');
+    checkGlucose(ctx, u, 'targetHigh', ['targetHigh'], s.targetHigh, 'The top of the range');
+    checkGlucose(ctx, u, 'correctionTarget', ['correctionTarget'], s.correctionTarget, 'The correction target');
+    checkGlucose(ctx, u, 'hypoThreshold', ['hypoThreshold'], s.hypoThreshold, 'The low threshold');
+    checkGlucose(ctx, u, 'veryHigh', ['veryHigh'], s.veryHigh, 'The very-high threshold');
+    if (s.targetLow >= s.targetHigh) ctx.addIssue({ code: 'custom', path: ['targetHigh'], message: 'The top of the range must be above the bottom.' });
+    if (s.correctionTarget < s.targetLow || s.correctionTarget > s.targetHigh) {
+      ctx.addIssue({ code: 'custom', path: ['correctionTarget'], message: 'The correction target must be within the target range.' });
+    }
+    if (s.hypoThreshold >= s.targetLow) ctx.addIssue({ code: 'custom', path: ['hypoThreshold'], message: 'The low threshold must be below the target range.' });
+    if (s.veryHigh <= s.targetHigh) ctx.addIssue({ code: 'custom', path: ['veryHigh'], message: 'The very-high threshold must be above the target range.' });
+    if (s.maxDoseUnits < s.penIncrement) ctx.addIssue({ code: 'custom', path: ['maxDoseUnits'], message: 'The maximum must be at least one pen step.' });
+  });
+export type ProfileSettingsInput = z.infer<typeof profileSettingsInputSchema>;
+export type ProfileSettingsFormValues = z.input<typeof profileSettingsInputSchema>;
+
+/** What GET /settings returns: units always, dose settings (display unit) only once set up. */
+export type ProfileSettingsView = {
+  glucoseUnit: GlucoseUnit;
+  carbBasis: z.infer<typeof carbBasisSchema>;
+  carbUnit: z.infer<typeof carbUnitSchema>;
+  settings: Omit<ProfileSettingsInput, 'glucoseUnit' | 'carbBasis' | 'carbUnit'> | null;
+  updatedAt: string | null;
+};
+
+const TIME_RE = /^([01]\d|2[0-3]):[0-5]\d$|^24:00$/;
+export const timeOfDaySchema = z.string().trim().regex(TIME_RE, 'Use a 24-hour time such as 07:30 (24:00 for midnight at the end).');
+
+/** "HH:MM" → minutes from midnight (24:00 → 1440). */
+export function timeToMinutes(time: string): number {
+  const [h, m] = time.split(':').map(Number);
+  return h * 60 + m;
+}
+
+/** Minutes from midnight → "HH:MM". */
+export function minutesToTime(minutes: number): string {
+  return `${String(Math.floor(minutes / 60)).padStart(2, '0')}:${String(minutes % 60).padStart(2, '0')}`;
+}
+
+export const ratioBlockInputSchema = z.object({
+  from: timeOfDaySchema,
+  to: timeOfDaySchema,
+  carbRatio: numberField('Enter the insulin-to-carb ratio.').refine(
+    (v) => v >= 1 && v <= 150,
+    'The ratio must be from 1 to 150 grams per unit (not 0).',
+  ),
+  correctionFactor: numberField('Enter the correction factor.').refine((v) => v > 0, 'The correction factor must be above 0.'),
+});
+
+/** A day kind with its time-of-day blocks, which must cover 00:00–24:00 in order, without gaps or overlaps. */
+export const dayKindInputSchema = z
+  .object({
+    name: z.string().trim().min(1, 'Give this kind of day a name.').max(40, 'Use at most 40 characters.'),
+    isDefault: z.boolean(),
+    longActingUnits: optionalNumberField('Enter the planned long-acting dose in units, or leave it empty.').refine(
+      (v) => v == null || (v >= 0 && v <= 200),
+      'Use 0 to 200 units, or leave it empty.',
+    ),
+    glucoseUnit: glucoseUnitSchema,
+    blocks: z.array(ratioBlockInputSchema).min(1, 'Add at least one time block.').max(24, 'Use at most 24 blocks.'),
+  })
+  .superRefine((d, ctx) => {
+    d.blocks.forEach((b, i) => {
+      checkGlucose(ctx, d.glucoseUnit, 'correctionFactor', ['blocks', i, 'correctionFactor'], b.correctionFactor, 'The correction factor');
+      if (!TIME_RE.test(b.from) || !TIME_RE.test(b.to)) return;
+      const from = timeToMinutes(b.from);
+      const to = timeToMinutes(b.to);
+      if (from >= to) ctx.addIssue({ code: 'custom', path: ['blocks', i, 'to'], message: 'The block must end after it starts.' });
+      if (i === 0 && from !== 0) ctx.addIssue({ code: 'custom', path: ['blocks', 0, 'from'], message: 'The first block must start at 00:00.' });
+      if (i > 0 && TIME_RE.test(d.blocks[i - 1].to)) {
+        const prevEnd = timeToMinutes(d.blocks[i - 1].to);
+        if (from < prevEnd) ctx.addIssue({ code: 'custom', path: ['blocks', i, 'from'], message: `This block overlaps the one before (it ends at ${d.blocks[i - 1].to}).` });
+        else if (from > prevEnd) ctx.addIssue({ code: 'custom', path: ['blocks', i, 'from'], message: `There is a gap: the block before ends at ${d.blocks[i - 1].to}.` });
+      }
+      if (i === d.blocks.length - 1 && to !== 1440) ctx.addIssue({ code: 'custom', path: ['blocks', i, 'to'], message: 'The last block must end at 24:00.' });
+    });
+  });
+export type DayKindInput = z.infer<typeof dayKindInputSchema>;
+export type DayKindFormValues = z.input<typeof dayKindInputSchema>;
+
+export type DayKind = {
+  id: number;
+  name: string;
+  isDefault: boolean;
+  longActingUnits: number | null;
+  glucoseUnit: GlucoseUnit;
+  blocks: { from: string; to: string; carbRatio: number; correctionFactor: number }[];
+  updatedAt: string;
+};
+
+export const dayKindIdParamSchema = z.object({
+  profileId: z.coerce.number().int().positive('Not a valid id.'),
+  dayKindId: z.coerce.number().int().positive('Not a valid id.'),
+});
+
+export type SettingsChange = {
+  id: number;
+  subject: 'settings' | 'day_kind';
+  subjectId: number | null;
+  subjectName: string;
+  action: 'created' | 'updated' | 'deleted';
+  changedBy: { id: number | null; displayName: string };
+  createdAt: string;
+  changes: { field: string; from: unknown; to: unknown }[];
+};

@@ -1,0 +1,292 @@
+import { computeDose, fatProteinUnits, findBlock, roundToIncrement, type DayKindRatios, type DoseInput, type DoseSettings } from '../../shared/compute/dose';
+import { DEFAULT_EXERCISE_REDUCTIONS } from '../../shared/compute/exercise';
+import { carbUnitToGrams, glucoseToMmol, gramsToCarbUnit, mgdlToMmol, mmolToMgdl } from '../../shared/compute/units';
+
+const T0 = Date.UTC(2026, 2, 1, 12, 0);
+const MIN = 60_000;
+
+function settings(over: Partial<DoseSettings> = {}): DoseSettings {
+  return {
+    penIncrement: 0.5,
+    rounding: 'down',
+    maxDoseUnits: 30,
+    actionTimeHours: 4,
+    targetLowMmol: 5,
+    targetHighMmol: 8,
+    correctionTargetMmol: 6,
+    hypoThresholdMmol: 3.9,
+    veryHighMmol: 15,
+    allowNegativeCorrection: false,
+    iobConvention: 'correction_only',
+    exerciseReductions: DEFAULT_EXERCISE_REDUCTIONS,
+    ...over,
+  };
+}
+function dayKind(carbRatio: number, correctionFactorMmol: number, name = 'Rest'): DayKindRatios {
+  return { id: 1, name, blocks: [{ startMinute: 0, endMinute: 1440, carbRatio, correctionFactorMmol }] };
+}
+function input(over: Partial<DoseInput> = {}): DoseInput {
+  return { carbsGrams: 60, mealAt: T0, mealMinuteOfDay: 720, ...over };
+}
+function ok(r: ReturnType<typeof computeDose>) {
+  if (r.status !== 'ok') throw new Error(`expected a dose, got ${r.status}`);
+  return r;
+}
+const fresh = (value: number, unit: 'mmol_l' | 'mg_dl' = 'mmol_l') => ({ value, unit, takenAt: T0 - 5 * MIN });
+
+describe('computeDose worked examples (check-values §12)', () => {
+  it.each([
+    // T8: education formula [C2].
+    { name: 'T8 meal dose: 60 g at 10 g/U → 6.0 U', carbs: 60, icr: 10, dose: 6, meal: 6 },
+    // T9: Building Competency in Diabetes Education [C] — round down to the pen step.
+    { name: 'T9 45 g at 12 g/U = 3.75 U → 3.5 U rounded down', carbs: 45, icr: 12, dose: 3.5, meal: 3.75 },
+    // T15: day-kind ratios are user inputs; formula [C2].
+    { name: 'T15 42 g on a rest day at 10 g/U → 4.2 → 4.0 U', carbs: 42, icr: 10, dose: 4, meal: 4.2 },
+    { name: 'T15 42 g on a training day at 15 g/U → 2.8 → 2.5 U', carbs: 42, icr: 15, dose: 2.5, meal: 2.8 },
+  ])('$name', ({ carbs, icr, dose, meal }) => {
+    const r = ok(computeDose(settings(), dayKind(icr, 2), input({ carbsGrams: carbs, glucose: fresh(6) })));
+
+    expect(r.breakdown.mealUnits).toBeCloseTo(meal, 9);
+    expect(r.breakdown.doseUnits).toBe(dose);
+  });
+
+  it('T9 rounds 3.75 U to 4.0 U when the profile rounds to the nearest step', () => {
+    const r = ok(computeDose(settings({ rounding: 'nearest' }), dayKind(12, 2), input({ carbsGrams: 45, glucose: fresh(6) })));
+
+    expect(r.breakdown.doseUnits).toBe(4);
+  });
+
+  it('T10 correction only: glucose 14, target 8, factor 2 mmol/L per unit → 3 U (HSCNI "Blood glucose correction" [C])', () => {
+    const s = settings({ targetLowMmol: 5, targetHighMmol: 8, correctionTargetMmol: 8 });
+
+    const r = ok(computeDose(s, dayKind(10, 2), input({ carbsGrams: 0, glucose: fresh(14) })));
+
+    expect(r.breakdown.correctionUnits).toBeCloseTo(3, 9);
+    expect(r.breakdown.doseUnits).toBe(3);
+  });
+
+  it('T11 meal 6.0 + correction 2.0 − active insulin 1.5 = 6.5 U (formulas [C2]; IOB logic common practice)', () => {
+    const s = settings({ targetHighMmol: 7, correctionTargetMmol: 6 });
+    // A dose taken right now is still fully active, which gives exactly 1.5 U of active insulin.
+    const earlierDoses = [{ units: 1.5, takenAt: T0 }];
+
+    const r = ok(computeDose(s, dayKind(10, 2.5), input({ glucose: fresh(11), earlierDoses })));
+
+    expect(r.breakdown).toMatchObject({ mealUnits: 6, activeInsulinUnits: 1.5, activeInsulinSubtracted: 1.5, doseUnits: 6.5 });
+    expect(r.breakdown.correctionUnits).toBeCloseTo(2, 9);
+  });
+
+  it('T12 with active insulin above the correction: 6.0 U when it lowers the correction only (convention A)', () => {
+    const earlierDoses = [{ units: 1.5, takenAt: T0 }];
+    const s = settings({ targetLowMmol: 4, targetHighMmol: 6.5, correctionTargetMmol: 6 });
+
+    const r = ok(computeDose(s, dayKind(10, 2.5), input({ glucose: fresh(7), earlierDoses })));
+
+    expect(r.breakdown.correctionUnits).toBeCloseTo(0.4, 9);
+    expect(r.breakdown.activeInsulinSubtracted).toBeCloseTo(0.4, 9);
+    expect(r.breakdown.doseUnits).toBe(6);
+  });
+
+  it('T12 with active insulin above the correction: 4.9 → 4.5 U when it lowers the whole dose (convention B)', () => {
+    const earlierDoses = [{ units: 1.5, takenAt: T0 }];
+    const s = settings({ targetLowMmol: 4, targetHighMmol: 6.5, correctionTargetMmol: 6, iobConvention: 'total' });
+
+    const r = ok(computeDose(s, dayKind(10, 2.5), input({ glucose: fresh(7), earlierDoses })));
+
+    expect(r.breakdown.totalBeforeRounding).toBeCloseTo(4.9, 9);
+    expect(r.breakdown.doseUnits).toBe(4.5);
+  });
+
+  it('T13 mg/dL: 70 g at 5 g/U + (220 − 120) ÷ 20 mg/dL per unit = 19 U (educator slide deck [C2])', () => {
+    const s = settings({
+      penIncrement: 1,
+      targetLowMmol: mgdlToMmol(80),
+      targetHighMmol: mgdlToMmol(140),
+      correctionTargetMmol: mgdlToMmol(120),
+    });
+
+    const r = ok(computeDose(s, dayKind(5, mgdlToMmol(20)), input({ carbsGrams: 70, glucose: fresh(220, 'mg_dl') })));
+
+    expect(r.breakdown.mealUnits).toBe(14);
+    expect(r.breakdown.correctionUnits).toBeCloseTo(5, 9);
+    expect(r.breakdown.doseUnits).toBe(19);
+  });
+
+  it('T16 moderate exercise for 60 minutes takes 75 % off an 8 U meal dose → 2.0 U (Rabasa-Lhoret 2001 [C])', () => {
+    const r = ok(
+      computeDose(settings(), dayKind(10, 2), input({ carbsGrams: 80, glucose: fresh(6), exercise: { intensity: 'moderate', durationMinutes: 60, startsInMinutes: 90 } })),
+    );
+
+    expect(r.breakdown).toMatchObject({ mealUnits: 8, exercisePercent: 75, exerciseUnits: 6, doseUnits: 2 });
+  });
+
+  it('T17 light exercise for 60 minutes takes 50 % off a 6 U meal dose → 3.0 U (Rabasa-Lhoret 2001 [C])', () => {
+    const r = ok(
+      computeDose(settings(), dayKind(10, 2), input({ glucose: fresh(6), exercise: { intensity: 'light', durationMinutes: 60, startsInMinutes: 60 } })),
+    );
+
+    expect(r.breakdown.doseUnits).toBe(3);
+  });
+
+  it('takes the exercise reduction from the meal part only, not from the correction', () => {
+    const r = ok(
+      computeDose(settings(), dayKind(10, 2), input({ glucose: fresh(10), exercise: { intensity: 'moderate', durationMinutes: 30, startsInMinutes: 30 } })),
+    );
+
+    expect(r.breakdown.mealAfterExerciseUnits).toBe(3);
+    expect(r.breakdown.correctionUnits).toBe(2);
+    expect(r.breakdown.doseUnits).toBe(5);
+  });
+});
+
+describe('computeDose rules and warnings', () => {
+  it('suggests nothing without settings or without a day kind', () => {
+    expect(computeDose(null, dayKind(10, 2), input()).status).toBe('no_settings');
+    expect(computeDose(settings(), null, input()).status).toBe('no_settings');
+  });
+
+  it.each([
+    { name: '3.9 mmol/L (at the IHSG 2017 alert value)', value: 3.9, unit: 'mmol_l' },
+    { name: '70 mg/dL (3.886 mmol/L, check-values §5)', value: 70, unit: 'mg_dl' },
+    { name: '2.5 mmol/L', value: 2.5, unit: 'mmol_l' },
+  ] as const)('gives no dose and says to treat the low first at $name', ({ value, unit }) => {
+    const r = computeDose(settings(), dayKind(10, 2), input({ glucose: { value, unit, takenAt: T0 } }));
+
+    expect(r.status).toBe('treat_low');
+    expect(r.warnings[0].message).toMatch(/15–20 g of fast-acting carbohydrate/);
+  });
+
+  it('leaves the correction out and says so when the glucose reading is older than 15 minutes', () => {
+    const r = ok(computeDose(settings(), dayKind(10, 2), input({ glucose: { value: 14, unit: 'mmol_l', takenAt: T0 - 16 * MIN } })));
+
+    expect(r.breakdown.correctionReason).toBe('stale_glucose');
+    expect(r.breakdown.correctionUnits).toBe(0);
+    expect(r.warnings.map((w) => w.code)).toContain('glucose_stale');
+  });
+
+  it('leaves the correction out and says so when there is no glucose reading', () => {
+    const r = ok(computeDose(settings(), dayKind(10, 2), input()));
+
+    expect(r.breakdown.correctionReason).toBe('no_glucose');
+    expect(r.warnings.map((w) => w.code)).toContain('glucose_missing');
+  });
+
+  it('gives no correction within the target range', () => {
+    const r = ok(computeDose(settings(), dayKind(10, 2), input({ glucose: fresh(7.9) })));
+
+    expect(r.breakdown).toMatchObject({ correctionReason: 'in_range', correctionUnits: 0, doseUnits: 6 });
+  });
+
+  it('gives a negative correction below the range only when the profile allows it', () => {
+    const off = ok(computeDose(settings(), dayKind(10, 2), input({ glucose: fresh(4.5) })));
+    const on = ok(computeDose(settings({ allowNegativeCorrection: true }), dayKind(10, 2), input({ glucose: fresh(4.5) })));
+
+    expect(off.breakdown).toMatchObject({ correctionReason: 'below_range_none', doseUnits: 6 });
+    expect(on.breakdown.correctionUnits).toBeCloseTo(-0.75, 9);
+    expect(on.breakdown.doseUnits).toBe(5);
+  });
+
+  it('warns to check ketones at or above the very-high threshold', () => {
+    const r = ok(computeDose(settings(), dayKind(10, 2), input({ glucose: fresh(16) })));
+
+    expect(r.warnings.find((w) => w.code === 'ketone_check')?.message).toMatch(/ketones/);
+  });
+
+  it('caps the dose at the maximum with a warning', () => {
+    const r = ok(computeDose(settings({ maxDoseUnits: 10 }), dayKind(5, 2), input({ carbsGrams: 100, glucose: fresh(6) })));
+
+    expect(r.breakdown).toMatchObject({ roundedUnits: 20, capped: true, doseUnits: 10 });
+    expect(r.warnings.map((w) => w.code)).toContain('capped');
+  });
+
+  it('shows insulin taken within the action time', () => {
+    const r = ok(computeDose(settings(), dayKind(10, 2), input({ glucose: fresh(6), earlierDoses: [{ units: 4, takenAt: T0 - 90 * MIN }] })));
+
+    expect(r.recentDoses).toHaveLength(1);
+    expect(r.warnings.map((w) => w.code)).toContain('recent_insulin');
+    expect(r.breakdown.activeInsulinUnits).toBeGreaterThan(0);
+    expect(r.breakdown.doseUnits).toBe(6);
+  });
+
+  it('splits 60 % now and the rest later, both on pen steps, and shows the fat-protein figure', () => {
+    const r = ok(
+      computeDose(settings(), dayKind(10, 2), input({ carbsGrams: 75, glucose: fresh(6), split: { nowPercent: 60, laterMinutes: 90 }, fatGrams: 20, proteinGrams: 30 })),
+    );
+
+    expect(r.breakdown.doseUnits).toBe(7.5);
+    expect(r.split).toEqual({ nowUnits: 4.5, laterUnits: 3, laterMinutes: 90, nowPercent: 60 });
+    expect(r.fatProteinUnits).toBe(3);
+  });
+
+  it('picks the time block holding the meal time and names it', () => {
+    const kind: DayKindRatios = {
+      id: 7,
+      name: 'Long ride',
+      blocks: [
+        { startMinute: 0, endMinute: 660, carbRatio: 8, correctionFactorMmol: 2 },
+        { startMinute: 660, endMinute: 1440, carbRatio: 12, correctionFactorMmol: 3 },
+      ],
+    };
+
+    const breakfast = ok(computeDose(settings(), kind, input({ mealMinuteOfDay: 659 })));
+    const lunch = ok(computeDose(settings(), kind, input({ mealMinuteOfDay: 660 })));
+
+    expect(breakfast.breakdown.carbRatio).toBe(8);
+    expect(lunch.breakdown.carbRatio).toBe(12);
+    expect(lunch.dayKind).toEqual({ id: 7, name: 'Long ride' });
+    expect(findBlock(kind.blocks, 1439)?.carbRatio).toBe(12);
+  });
+});
+
+describe('roundToIncrement', () => {
+  it.each([
+    { name: '3.75 down to 0.5 → 3.5', units: 3.75, inc: 0.5, rule: 'down', out: 3.5 },
+    { name: '3.75 nearest 0.5 → 4', units: 3.75, inc: 0.5, rule: 'nearest', out: 4 },
+    { name: '4.99 down to 1 → 4', units: 4.99, inc: 1, rule: 'down', out: 4 },
+    { name: 'float noise 4.999999999999 down to 1 → 5', units: 4.999999999999, inc: 1, rule: 'down', out: 5 },
+    { name: 'negative → 0', units: -2, inc: 0.5, rule: 'down', out: 0 },
+  ] as const)('$name', ({ units, inc, rule, out }) => {
+    expect(roundToIncrement(units, inc, rule)).toBe(out);
+  });
+});
+
+describe('units used by the dose engine', () => {
+  // T19: factor 18.0156 from the molar mass of glucose [D].
+  it.each([
+    { name: '126 mg/dL → 6.994 mmol/L', value: mgdlToMmol(126), expected: 6.994 },
+    { name: '3.9 mmol/L → 70.26 mg/dL', value: mmolToMgdl(3.9), expected: 70.26 },
+    { name: '10.0 mmol/L → 180.16 mg/dL', value: mmolToMgdl(10), expected: 180.16 },
+    { name: 'glucoseToMmol(180, mg/dL) → 9.991', value: glucoseToMmol(180, 'mg_dl'), expected: 9.991 },
+  ])('T19 $name', ({ value, expected }) => {
+    expect(Math.abs(value - expected)).toBeLessThan(0.01);
+  });
+
+  // T22: carbohydrate units, check-values §6.
+  it.each([
+    { unit: 'portion10', amount: 4.8 },
+    { unit: 'unit12', amount: 4 },
+    { unit: 'exchange15', amount: 3.2 },
+  ] as const)('T22 48 g is $amount in $unit and back', ({ unit, amount }) => {
+    expect(gramsToCarbUnit(48, unit)).toBeCloseTo(amount, 9);
+    expect(carbUnitToGrams(amount, unit)).toBeCloseTo(48, 9);
+  });
+
+  // T14 / §3.2: the 500, 1800 and 100 rules, as a check of the engine's arithmetic only (ratios are never suggested).
+  it('T14 ratios from a total daily dose of 50 U give the same dose in both glucose units', () => {
+    const icr = 500 / 50;
+    const isfMgdl = 1800 / 50;
+    const isfMmol = 100 / 50;
+    expect([icr, isfMgdl, isfMmol]).toEqual([10, 36, 2]);
+
+    const s = settings({ penIncrement: 1, correctionTargetMmol: 6 });
+    const r = ok(computeDose(s, dayKind(icr, isfMmol), input({ glucose: fresh(10) })));
+
+    expect(r.breakdown.doseUnits).toBe(8);
+  });
+
+  it('T23 fat-protein units: 20 g fat + 30 g protein = 3.0 FPU (Pańkowska 2009)', () => {
+    expect(fatProteinUnits(20, 30)).toBe(3);
+    expect(fatProteinUnits(28, 16)).toBeCloseTo(3.16, 9);
+    expect(fatProteinUnits(null, null)).toBeNull();
+  });
+});
