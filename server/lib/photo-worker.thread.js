@@ -1,0 +1,28 @@
+// Runs in a worker thread (plain JavaScript so it loads the same under node, tsx and jest):
+// decodes one photo with jimp, flattens transparency onto white, and re-encodes a large and a
+// thumbnail JPEG. Re-encoding keeps only pixels, so camera metadata (EXIF, GPS location) is dropped.
+const { parentPort, workerData } = require('node:worker_threads');
+const { Jimp, JimpMime } = require('jimp');
+
+async function run({ input, largeMax, thumbMax, quality }) {
+  const decoded = await Jimp.fromBuffer(Buffer.from(input));
+  const { width, height } = decoded.bitmap;
+  const flat = new Jimp({ width, height, color: 0xffffffff });
+  flat.composite(decoded, 0, 0);
+  const large = flat.clone();
+  if (width > largeMax || height > largeMax) large.scaleToFit({ w: largeMax, h: largeMax });
+  const thumb = flat.clone();
+  if (width > thumbMax || height > thumbMax) thumb.scaleToFit({ w: thumbMax, h: thumbMax });
+  const largeJpeg = await large.getBuffer(JimpMime.jpeg, { quality });
+  const thumbJpeg = await thumb.getBuffer(JimpMime.jpeg, { quality });
+  return {
+    width,
+    height,
+    large: { data: largeJpeg, width: large.bitmap.width, height: large.bitmap.height },
+    thumb: { data: thumbJpeg, width: thumb.bitmap.width, height: thumb.bitmap.height },
+  };
+}
+
+run(workerData)
+  .then((result) => parentPort.postMessage({ ok: true, result }))
+  .catch((err) => parentPort.postMessage({ ok: false, message: String((err && err.message) || err) }));
