@@ -9,9 +9,14 @@ import { RecipeShareModel } from './recipe-share.model';
 import { RecipeModel } from './recipe.model';
 import { RevokedTokenModel } from './revoked-token.model';
 import { UserModel } from './user.model';
+import { DayKindModel } from './day-kind.model';
+import { ProfileSettingsModel } from './profile-settings.model';
+import { RatioBlockModel } from './ratio-block.model';
+import { SettingsChangeModel } from './settings-change.model';
 
 export { DatasetImportModel, FoodMeasureModel, FoodModel };
 export { ProfileAccessModel, ProfileModel, RevokedTokenModel, UserModel };
+export { DayKindModel, ProfileSettingsModel, RatioBlockModel, SettingsChangeModel };
 export { RecipeIngredientModel, RecipeModel, RecipeShareModel };
 
 /** Initialises every model once, then wires every association in one place. */
@@ -20,6 +25,10 @@ export function initModels(sequelize: Sequelize): void {
   ProfileModel.initModel(sequelize);
   ProfileAccessModel.initModel(sequelize);
   RevokedTokenModel.initModel(sequelize);
+  ProfileSettingsModel.initModel(sequelize);
+  DayKindModel.initModel(sequelize);
+  RatioBlockModel.initModel(sequelize);
+  SettingsChangeModel.initModel(sequelize);
   RecipeModel.initModel(sequelize);
   RecipeIngredientModel.initModel(sequelize);
   RecipeShareModel.initModel(sequelize);
@@ -31,6 +40,8 @@ export function initModels(sequelize: Sequelize): void {
   ProfileAccessModel.belongsTo(ProfileModel, { as: 'profile', foreignKey: 'profileId' });
   ProfileAccessModel.belongsTo(UserModel, { as: 'user', foreignKey: 'userId' });
   ProfileModel.hasMany(ProfileAccessModel, { as: 'accesses', foreignKey: 'profileId' });
+  DayKindModel.hasMany(RatioBlockModel, { as: 'blocks', foreignKey: 'dayKindId' });
+  SettingsChangeModel.belongsTo(UserModel, { as: 'user', foreignKey: 'userId' });
   RecipeModel.belongsTo(UserModel, { as: 'owner', foreignKey: 'ownerUserId' });
   RecipeModel.hasMany(RecipeIngredientModel, { as: 'ingredients', foreignKey: 'recipeId' });
   RecipeIngredientModel.belongsTo(RecipeModel, { as: 'recipe', foreignKey: 'recipeId' });

@@ -3,6 +3,8 @@ import type { Sequelize } from 'sequelize';
 import type { Config } from '../config';
 import { adminRouter } from './admin.routes';
 import { authRouter } from './auth.routes';
+import { doseRouter } from './dose.routes';
+import { profilesRouter } from './profiles.routes';
 import { benchRouter } from './bench.routes';
 import { healthRouter } from './health.routes';
 
@@ -12,6 +14,8 @@ export function apiRouter(config: Config, sequelize: Sequelize) {
   api.use(healthRouter(sequelize));
   api.use(authRouter(config));
   api.use(adminRouter(config));
+  api.use(profilesRouter(config));
+  api.use(doseRouter(config));
   if (config.BENCH_ROUTES === '1') api.use(benchRouter(sequelize));
   return api;
 }

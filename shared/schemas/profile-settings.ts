@@ -78,7 +78,7 @@ export const profileSettingsInputSchema = z
     glucoseUnit: glucoseUnitSchema,
     carbBasis: carbBasisSchema,
     carbUnit: carbUnitSchema,
-    penIncrement: numberField('Enter the pen increment.').refine((v) => v === 0.5 || v === 1, 'The pen increment must be 0.5 or 1 unit.'),
+    penIncrement: numberField('Enter the pen increment.').refine((v) => [0.5, 1].includes(v), 'The pen increment must be 0.5 or 1 unit.'),
     rounding: roundingSchema,
     maxDoseUnits: numberField('Enter the maximum single dose.').refine((v) => v >= 1 && v <= 100, 'Use a maximum from 1 to 100 units.'),
     actionTimeHours: numberField('Enter the insulin action time.').refine((v) => v >= 2 && v <= 8, 'The action time must be 2 to 8 hours.'),
