@@ -5,6 +5,15 @@ import type { FoodMeasureModel } from './food-measure.model';
 
 export type FoodSource = 'ifct2017' | 'usda_sr28' | 'usda_fdc' | 'label';
 
+/** Source details kept beside the nutrients: e.g. IFCT's measured starch + sugars, USDA's NDB number, a label's brand. */
+export type FoodExtra = {
+  scientificName?: string;
+  ndbNumber?: string;
+  carbStarchSugars?: number | null;
+  brand?: string;
+  printed?: Record<string, number | string | null>;
+};
+
 // A fresh object per column: Sequelize writes the column name into the options it is given.
 const nutrient = () => ({ type: DataTypes.DOUBLE, allowNull: true });
 
@@ -38,6 +47,8 @@ export class FoodModel extends Model<InferAttributes<FoodModel>, InferCreationAt
   declare sharedProfileId: CreationOptional<number | null>;
   declare labelConvention: CreationOptional<'eu' | 'us' | null>;
   declare photoPath: CreationOptional<string | null>;
+  declare extra: CreationOptional<FoodExtra>;
+  declare contentHash: CreationOptional<string | null>;
   declare createdAt: CreationOptional<Date>;
   declare updatedAt: CreationOptional<Date>;
   declare measures?: NonAttribute<FoodMeasureModel[]>;
@@ -73,6 +84,8 @@ export class FoodModel extends Model<InferAttributes<FoodModel>, InferCreationAt
         sharedProfileId: { type: DataTypes.INTEGER, allowNull: true },
         labelConvention: { type: DataTypes.ENUM('eu', 'us'), allowNull: true },
         photoPath: { type: DataTypes.TEXT, allowNull: true },
+        extra: { type: DataTypes.JSONB, allowNull: false, defaultValue: {} },
+        contentHash: { type: DataTypes.TEXT, allowNull: true },
         createdAt: DataTypes.DATE,
         updatedAt: DataTypes.DATE,
       },

@@ -34,6 +34,10 @@ export function toFoodSummary(f: FoodModel): FoodSummary {
     sharedProfileId: f.sharedProfileId ?? null,
     labelConvention: f.labelConvention ?? null,
     hasPhoto: Boolean(f.photoPath),
+    scientificName: f.extra?.scientificName ?? null,
+    ndbNumber: f.extra?.ndbNumber ?? null,
+    brand: f.extra?.brand ?? null,
+    carbStarchSugars: f.extra?.carbStarchSugars ?? null,
   };
 }
 

@@ -41,6 +41,11 @@ export const foodSchema = z.object({
   sharedProfileId: z.number().int().nullable(),
   labelConvention: z.enum(['eu', 'us']).nullable(),
   hasPhoto: z.boolean(),
+  scientificName: z.string().nullable(),
+  ndbNumber: z.string().nullable(),
+  brand: z.string().nullable(),
+  /** IFCT 2017 only: measured available carbohydrate (starch + free sugars), shown beside the counted value. */
+  carbStarchSugars: z.number().nullable(),
   measures: z.array(foodMeasureSchema),
 });
 export type Food = z.infer<typeof foodSchema>;
