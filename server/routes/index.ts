@@ -7,6 +7,8 @@ import { doseRouter } from './dose.routes';
 import { profilesRouter } from './profiles.routes';
 import { benchRouter } from './bench.routes';
 import { healthRouter } from './health.routes';
+import { photosRouter } from './photos.routes';
+import { recipesRouter } from './recipes.routes';
 
 /** Every API router, mounted under /api by createApp. Add one line per new router file. */
 export function apiRouter(config: Config, sequelize: Sequelize) {
@@ -14,6 +16,8 @@ export function apiRouter(config: Config, sequelize: Sequelize) {
   api.use(healthRouter(sequelize));
   api.use(authRouter(config));
   api.use(adminRouter(config));
+  api.use(recipesRouter(config));
+  api.use(photosRouter(config));
   api.use(profilesRouter(config));
   api.use(doseRouter(config));
   if (config.BENCH_ROUTES === '1') api.use(benchRouter(sequelize));

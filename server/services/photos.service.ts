@@ -1,0 +1,121 @@
+import crypto from 'node:crypto';
+import type { RecipePhoto } from '../../shared/schemas/recipe';
+import { AppError } from '../errors';
+import { isReasonableSize, readImageHeader, type PhotoProcessor } from '../lib/photo-worker';
+import { newStorageKey, type FileStorage } from '../lib/storage';
+import { logger } from '../logger';
+import { RecipeModel } from '../models';
+
+/** Signed photo links stay valid for one to two hours, and are stable within each hour so browsers can cache them. */
+const LINK_HOURS = 1;
+let signingKey: Buffer = crypto.randomBytes(32);
+
+/** Sets the key photo links are signed with (derived from the server secret, so every server copy agrees). */
+export function configurePhotoSigning(secret: string): void {
+  signingKey = crypto.createHmac('sha256', secret).update('carbwright photo links').digest();
+}
+
+function signature(key: string, expires: number): string {
+  return crypto.createHmac('sha256', signingKey).update(`${key}\n${expires}`).digest('base64url');
+}
+
+/** A short-lived link to a stored photo: /api/photos/<key>?exp=<unix s>&sig=<hmac>. */
+export function signedPhotoUrl(key: string, nowMs = Date.now()): string {
+  const hour = 3600;
+  const expires = (Math.floor(nowMs / 1000 / hour) + 1 + LINK_HOURS) * hour;
+  return `/api/photos/${key}?exp=${expires}&sig=${signature(key, expires)}`;
+}
+
+/** True when the link's signature matches and it has not expired. */
+export function verifyPhotoLink(key: string, exp: number, sig: string, nowMs = Date.now()): boolean {
+  if (!Number.isInteger(exp) || exp * 1000 < nowMs) return false;
+  const expected = Buffer.from(signature(key, exp));
+  const given = Buffer.from(sig);
+  return expected.length === given.length && crypto.timingSafeEqual(expected, given);
+}
+
+/** Signed links for a recipe's photo, or null when it has none. Only call for people who may see the recipe. */
+export function photoUrls(recipe: Pick<RecipeModel, 'photoLargeKey' | 'photoThumbKey'>, nowMs = Date.now()): RecipePhoto | null {
+  if (!recipe.photoLargeKey || !recipe.photoThumbKey) return null;
+  return { largeUrl: signedPhotoUrl(recipe.photoLargeKey, nowMs), thumbUrl: signedPhotoUrl(recipe.photoThumbKey, nowMs) };
+}
+
+async function removeQuietly(storage: FileStorage, keys: (string | null)[]) {
+  for (const key of keys) {
+    if (!key) continue;
+    try {
+      await storage.remove(key);
+    } catch (err) {
+      logger.warn({ err, key }, 'could not remove a stored photo');
+    }
+  }
+}
+
+/**
+ * Checks an uploaded photo by its bytes (JPEG or PNG; WebP is recognised but cannot be decoded here),
+ * refuses absurd pixel sizes before decoding, decodes and re-encodes it off the request thread, stores a
+ * large and a thumbnail variant under fresh unguessable keys and attaches them to the recipe (owner only).
+ */
+export async function setRecipePhoto(
+  recipeId: number,
+  userId: number,
+  file: Buffer | undefined,
+  deps: { storage: FileStorage; processor: PhotoProcessor },
+): Promise<RecipePhoto> {
+  const recipe = await RecipeModel.findByPk(recipeId);
+  if (!recipe || (recipe.ownerUserId !== userId && recipe.visibility === 'private')) throw AppError.notFound('recipe');
+  if (recipe.ownerUserId !== userId) throw AppError.forbidden('Only the owner can change the photo.');
+  if (!file?.length) throw AppError.validation({ photo: ['Choose a photo to upload.'] });
+  const header = readImageHeader(file);
+  if (!header) throw AppError.validation({ photo: ['That file is not a JPEG, PNG or WebP image.'] });
+  if (header.kind === 'webp') throw AppError.validation({ photo: ['WebP photos cannot be read yet. Please send a JPEG or PNG.'] });
+  if (!isReasonableSize(header)) {
+    throw AppError.validation({ photo: [`That image is ${header.width} × ${header.height} pixels, too large to open. Please send a smaller photo.`] });
+  }
+  let processed;
+  try {
+    processed = await deps.processor.process(file);
+  } catch (err) {
+    logger.info({ err: (err as Error).message, recipeId }, 'photo could not be decoded');
+    throw AppError.validation({ photo: ['That image could not be read. It may be damaged or cut short.'] });
+  }
+  const largeKey = newStorageKey('recipes', 'jpg');
+  const thumbKey = newStorageKey('recipes', 'jpg');
+  await deps.storage.put(largeKey, processed.large.data);
+  await deps.storage.put(thumbKey, processed.thumb.data);
+  const old = [recipe.photoLargeKey, recipe.photoThumbKey];
+  try {
+    const [count] = await RecipeModel.update({ photoLargeKey: largeKey, photoThumbKey: thumbKey }, { where: { id: recipeId, ownerUserId: userId } });
+    if (!count) throw AppError.notFound('recipe');
+  } catch (err) {
+    await removeQuietly(deps.storage, [largeKey, thumbKey]);
+    throw err;
+  }
+  await removeQuietly(deps.storage, old);
+  return photoUrls({ photoLargeKey: largeKey, photoThumbKey: thumbKey })!;
+}
+
+/** Removes a recipe's photo (owner only). */
+export async function removeRecipePhoto(recipeId: number, userId: number, storage: FileStorage): Promise<void> {
+  const recipe = await RecipeModel.findByPk(recipeId);
+  if (!recipe || (recipe.ownerUserId !== userId && recipe.visibility === 'private')) throw AppError.notFound('recipe');
+  if (recipe.ownerUserId !== userId) throw AppError.forbidden('Only the owner can change the photo.');
+  const old = [recipe.photoLargeKey, recipe.photoThumbKey];
+  await recipe.update({ photoLargeKey: null, photoThumbKey: null });
+  await removeQuietly(storage, old);
+}
+
+/** Stores fresh copies of a recipe's photo files for a copied recipe (so deleting one never breaks the other). */
+export async function copyPhotoFiles(
+  recipe: Pick<RecipeModel, 'photoLargeKey' | 'photoThumbKey'>,
+  storage: FileStorage,
+): Promise<{ photoLargeKey: string | null; photoThumbKey: string | null }> {
+  if (!recipe.photoLargeKey || !recipe.photoThumbKey) return { photoLargeKey: null, photoThumbKey: null };
+  const [large, thumb] = await Promise.all([storage.get(recipe.photoLargeKey), storage.get(recipe.photoThumbKey)]);
+  if (!large || !thumb) return { photoLargeKey: null, photoThumbKey: null };
+  const photoLargeKey = newStorageKey('recipes', 'jpg');
+  const photoThumbKey = newStorageKey('recipes', 'jpg');
+  await storage.put(photoLargeKey, large);
+  await storage.put(photoThumbKey, thumb);
+  return { photoLargeKey, photoThumbKey };
+}

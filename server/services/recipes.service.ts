@@ -1,0 +1,306 @@
+import { Op, QueryTypes } from 'sequelize';
+import type { Transaction, WhereOptions } from 'sequelize';
+import { computeRecipe, scaleFactorForPortions } from '../../shared/compute/recipe';
+import type { Food } from '../../shared/schemas/food';
+import type {
+  RecipeDetail,
+  RecipeInputParsed,
+  RecipeListQuery,
+  RecipeSummary,
+  RecipeViewQuery,
+} from '../../shared/schemas/recipe';
+import type { CarbBasis, CarbUnit } from '../../shared/schemas/units';
+import { AppError } from '../errors';
+import { FoodMeasureModel, FoodModel, ProfileModel, RecipeIngredientModel, RecipeModel, RecipeShareModel, UserModel } from '../models';
+import { findProfileAccess } from './auth.service';
+import { getUsableFoods, toFood } from './foods.service';
+import { photoUrls } from './photos.service';
+
+type Display = { basis: CarbBasis; unit: CarbUnit };
+
+/** The carbohydrate basis and unit to answer in: the named profile (if the user may open it), else their own. */
+export async function resolveDisplay(userId: number, profileId?: number): Promise<Display> {
+  let profile: ProfileModel | null = null;
+  if (profileId !== undefined) {
+    const access = await findProfileAccess(userId, profileId);
+    if (!access) throw AppError.notFound('profile');
+    profile = await ProfileModel.findByPk(profileId);
+  } else {
+    profile = await ProfileModel.findOne({ where: { ownerUserId: userId }, order: [['id', 'ASC']] });
+  }
+  return { basis: profile?.carbBasis ?? 'available', unit: profile?.carbUnit ?? 'g' };
+}
+
+/** Whether the user may see the recipe: owner, public, or shared with them (while not private). */
+export async function canViewRecipe(recipe: Pick<RecipeModel, 'id' | 'ownerUserId' | 'visibility'>, userId: number): Promise<boolean> {
+  if (recipe.ownerUserId === userId || recipe.visibility === 'public') return true;
+  if (recipe.visibility === 'private') return false;
+  return (await RecipeShareModel.count({ where: { recipeId: recipe.id, userId } })) > 0;
+}
+
+/** The recipe row if the user may see it, else a 404 (strangers cannot learn that it exists). */
+export async function findViewableRecipe(recipeId: number, userId: number, transaction?: Transaction): Promise<RecipeModel> {
+  const recipe = await RecipeModel.findByPk(recipeId, { transaction });
+  if (!recipe || !(await canViewRecipe(recipe, userId))) throw AppError.notFound('recipe');
+  return recipe;
+}
+
+/** The recipe row for its owner; 404 for people who cannot see it, 403 for those who can but do not own it. */
+export async function findOwnedRecipe(recipeId: number, userId: number, transaction?: Transaction): Promise<RecipeModel> {
+  const recipe = await findViewableRecipe(recipeId, userId, transaction);
+  if (recipe.ownerUserId !== userId) throw AppError.forbidden('Only the owner can change this recipe. Copy it into your library to make your own version.');
+  return recipe;
+}
+
+/** Foods of a recipe's ingredients by id, with measures. Seeing a recipe lets you see the values of its foods. */
+async function loadFoods(ids: number[], transaction?: Transaction): Promise<Map<number, Food>> {
+  const rows = await FoodModel.findAll({
+    where: { id: { [Op.in]: [...new Set(ids)] } },
+    include: [{ model: FoodMeasureModel, as: 'measures' }],
+    transaction,
+  });
+  return new Map(rows.map((r) => [r.id, toFood(r)]));
+}
+
+async function loadIngredients(recipeIds: number[], transaction?: Transaction) {
+  if (!recipeIds.length) return new Map<number, RecipeIngredientModel[]>();
+  const rows = await RecipeIngredientModel.findAll({
+    where: { recipeId: { [Op.in]: recipeIds } },
+    order: [['recipeId', 'ASC'], ['position', 'ASC']],
+    transaction,
+  });
+  const out = new Map<number, RecipeIngredientModel[]>();
+  for (const row of rows) {
+    const list = out.get(row.recipeId) ?? [];
+    list.push(row);
+    out.set(row.recipeId, list);
+  }
+  return out;
+}
+
+/** When the user (or anyone on a profile they can open) last cooked each recipe; empty before the kitchen tables exist. */
+async function lastCooked(recipeIds: number[], userId: number): Promise<Map<number, string>> {
+  if (!recipeIds.length) return new Map();
+  const sequelize = RecipeModel.sequelize!;
+  const [{ exists }] = await sequelize.query<{ exists: boolean }>("SELECT to_regclass('public.batches') IS NOT NULL AS exists", {
+    type: QueryTypes.SELECT,
+  });
+  if (!exists) return new Map();
+  const rows = await sequelize.query<{ recipe_id: number; at: Date }>(
+    `SELECT recipe_id, max(created_at) AS at FROM batches
+     WHERE recipe_id IN (:recipeIds)
+       AND (cooked_by_user_id = :userId OR profile_id IN (SELECT profile_id FROM profile_access WHERE user_id = :userId))
+     GROUP BY recipe_id`,
+    { replacements: { recipeIds, userId }, type: QueryTypes.SELECT },
+  );
+  return new Map(rows.map((r) => [r.recipe_id, new Date(r.at).toISOString()]));
+}
+
+function summarise(
+  recipe: RecipeModel,
+  owner: UserModel | undefined,
+  lines: RecipeIngredientModel[],
+  foods: Map<number, Food>,
+  display: Display,
+  userId: number,
+  cookedAt: string | null,
+  scale = { factor: 1, portions: recipe.defaultPortions },
+) {
+  const nutrition = computeRecipe(
+    lines.map((l) => ({ grams: l.grams * scale.factor, per100g: foods.get(l.foodId)!.per100g })),
+    { portions: scale.portions, basis: display.basis, unit: display.unit },
+  );
+  const summary: RecipeSummary = {
+    id: recipe.id,
+    title: recipe.title,
+    description: recipe.description,
+    tags: recipe.tags,
+    defaultPortions: recipe.defaultPortions,
+    visibility: recipe.visibility,
+    owner: { id: recipe.ownerUserId, displayName: owner?.displayName ?? 'Someone' },
+    isOwner: recipe.ownerUserId === userId,
+    photo: photoUrls(recipe),
+    ingredientNames: lines.map((l) => foods.get(l.foodId)!.name),
+    carbPerPortionGrams: nutrition.carbPerPortion.grams,
+    carbIncomplete: nutrition.carbIncomplete,
+    basis: display.basis,
+    unit: display.unit,
+    copiedFromRecipeId: recipe.copiedFromRecipeId,
+    lastCookedAt: cookedAt,
+    updatedAt: recipe.updatedAt.toISOString(),
+  };
+  return { summary, nutrition };
+}
+
+/**
+ * One recipe with its ingredients (each with its food), method and the full computed breakdown, in the
+ * profile's carbohydrate basis and unit; optionally scaled by a factor or to a number of portions.
+ * 404 when the user may not see it.
+ */
+export async function getRecipeForUser(
+  recipeId: number,
+  userId: number,
+  view: RecipeViewQuery = {},
+  transaction?: Transaction,
+): Promise<RecipeDetail> {
+  const recipe = await findViewableRecipe(recipeId, userId, transaction);
+  const display = await resolveDisplay(userId, view.profileId);
+  const lines = (await loadIngredients([recipe.id], transaction)).get(recipe.id) ?? [];
+  const foods = await loadFoods(lines.map((l) => l.foodId), transaction);
+  const owner = await UserModel.findByPk(recipe.ownerUserId, { transaction });
+  const scale =
+    view.portions !== undefined
+      ? { factor: scaleFactorForPortions(recipe.defaultPortions, view.portions), portions: view.portions }
+      : { factor: view.factor ?? 1, portions: recipe.defaultPortions };
+  const cooked = await lastCooked([recipe.id], userId);
+  const { summary, nutrition } = summarise(recipe, owner ?? undefined, lines, foods, display, userId, cooked.get(recipe.id) ?? null, scale);
+  const isOwner = recipe.ownerUserId === userId;
+  const shares = isOwner
+    ? await RecipeShareModel.findAll({ where: { recipeId }, include: [{ model: UserModel, as: 'user' }], order: [['createdAt', 'ASC']], transaction })
+    : null;
+  const source = recipe.copiedFromRecipeId ? await RecipeModel.findByPk(recipe.copiedFromRecipeId, { transaction }) : null;
+  const sourceVisible = source ? await canViewRecipe(source, userId) : false;
+  return {
+    ...summary,
+    methodSteps: recipe.methodSteps,
+    ingredients: lines.map((l) => ({
+      id: l.id,
+      position: l.position,
+      foodId: l.foodId,
+      grams: l.grams * scale.factor,
+      measureLabel: l.measureLabel,
+      note: l.note,
+      food: foods.get(l.foodId)!,
+    })),
+    nutrition,
+    scale,
+    sharedWith: shares
+      ? shares.map((s) => ({ userId: s.userId, displayName: s.user!.displayName, email: s.user!.email, sharedAt: s.createdAt.toISOString() }))
+      : null,
+    copiedFrom: source && sourceVisible ? { id: source.id, title: source.title } : null,
+  };
+}
+
+const escapeLike = (s: string) => s.replace(/[\\%_]/g, (c) => `\\${c}`);
+
+/** One shelf of the library (mine, shared with me, public), searched by title, tag and ingredient name, sorted. */
+export async function listRecipes(query: RecipeListQuery, userId: number): Promise<RecipeSummary[]> {
+  const display = await resolveDisplay(userId, query.profileId);
+  const sharedIds = (await RecipeShareModel.findAll({ where: { userId }, attributes: ['recipeId'], raw: true })).map((s) => s.recipeId);
+  const scopeWhere: WhereOptions<RecipeModel> =
+    query.scope === 'mine'
+      ? { ownerUserId: userId }
+      : query.scope === 'shared'
+        ? { id: { [Op.in]: sharedIds }, visibility: { [Op.in]: ['shared', 'public'] }, ownerUserId: { [Op.ne]: userId } }
+        : { visibility: 'public' };
+  const and: WhereOptions<RecipeModel>[] = [scopeWhere];
+  if (query.q) {
+    const like = `%${escapeLike(query.q)}%`;
+    const sequelize = RecipeModel.sequelize!;
+    and.push({
+      [Op.or]: [
+        { title: { [Op.iLike]: like } },
+        sequelize.literal(`EXISTS (SELECT 1 FROM unnest("RecipeModel"."tags") t WHERE t ILIKE ${sequelize.escape(like)})`),
+        sequelize.literal(
+          `EXISTS (SELECT 1 FROM recipe_ingredients ri JOIN foods f ON f.id = ri.food_id WHERE ri.recipe_id = "RecipeModel"."id" AND f.name ILIKE ${sequelize.escape(like)})`,
+        ),
+      ],
+    });
+  }
+  const recipes = await RecipeModel.findAll({
+    where: { [Op.and]: and },
+    include: [{ model: UserModel, as: 'owner', attributes: ['id', 'displayName'] }],
+    order: [['updatedAt', 'DESC']],
+    limit: 300,
+  });
+  const ids = recipes.map((r) => r.id);
+  const lines = await loadIngredients(ids);
+  const foods = await loadFoods([...lines.values()].flat().map((l) => l.foodId));
+  const cooked = await lastCooked(ids, userId);
+  const items = recipes.map(
+    (r) => summarise(r, r.owner, lines.get(r.id) ?? [], foods, display, userId, cooked.get(r.id) ?? null).summary,
+  );
+  const byNumber = (a: number | null, b: number | null) => (a ?? Infinity) - (b ?? Infinity);
+  if (query.sort === 'title') items.sort((a, b) => a.title.localeCompare(b.title));
+  if (query.sort === 'carbPerPortion') items.sort((a, b) => byNumber(a.carbPerPortionGrams, b.carbPerPortionGrams));
+  if (query.sort === 'cooked') items.sort((a, b) => (b.lastCookedAt ?? '').localeCompare(a.lastCookedAt ?? ''));
+  return items;
+}
+
+/**
+ * Checks every ingredient's food (usable by the user, or already in this recipe) and writes the lines in order.
+ * Unknown foods give a 400 naming ingredients.N.foodId.
+ */
+async function writeIngredients(recipeId: number, input: RecipeInputParsed['ingredients'], userId: number, transaction: Transaction) {
+  const existing = await RecipeIngredientModel.findAll({ where: { recipeId }, attributes: ['foodId'], transaction });
+  const allowed = new Set(existing.map((e) => e.foodId));
+  const usable = await getUsableFoods(input.map((i) => i.foodId), userId);
+  const fieldErrors: Record<string, string[]> = {};
+  input.forEach((line, index) => {
+    if (!usable.has(line.foodId) && !allowed.has(line.foodId)) fieldErrors[`ingredients.${index}.foodId`] = ['That food was not found.'];
+  });
+  if (Object.keys(fieldErrors).length) throw AppError.validation(fieldErrors);
+  await RecipeIngredientModel.destroy({ where: { recipeId }, transaction });
+  await RecipeIngredientModel.bulkCreate(
+    input.map((line, position) => ({ recipeId, position, foodId: line.foodId, grams: line.grams, measureLabel: line.measureLabel, note: line.note })),
+    { transaction },
+  );
+}
+
+/** Creates a recipe with its ingredients in one transaction; returns the detail. */
+export async function createRecipe(input: RecipeInputParsed, userId: number): Promise<RecipeDetail> {
+  const sequelize = RecipeModel.sequelize!;
+  const id = await sequelize.transaction(async (transaction) => {
+    const recipe = await RecipeModel.create(
+      {
+        ownerUserId: userId,
+        title: input.title,
+        description: input.description,
+        methodSteps: input.methodSteps,
+        tags: input.tags,
+        defaultPortions: input.defaultPortions,
+        visibility: input.visibility,
+      },
+      { transaction },
+    );
+    await writeIngredients(recipe.id, input.ingredients, userId, transaction);
+    return recipe.id;
+  });
+  return getRecipeForUser(id, userId);
+}
+
+/**
+ * Replaces a recipe's fields and ingredients (owner only), in one transaction. Batches already cooked keep
+ * their own weighed snapshot, so they do not change. Making a recipe private withdraws every share.
+ */
+export async function updateRecipe(recipeId: number, input: RecipeInputParsed, userId: number): Promise<RecipeDetail> {
+  await RecipeModel.sequelize!.transaction(async (transaction) => {
+    const recipe = await findOwnedRecipe(recipeId, userId, transaction);
+    await recipe.update(
+      {
+        title: input.title,
+        description: input.description,
+        methodSteps: input.methodSteps,
+        tags: input.tags,
+        defaultPortions: input.defaultPortions,
+        visibility: input.visibility,
+      },
+      { transaction },
+    );
+    recipe.changed('updatedAt', true);
+    await recipe.save({ transaction });
+    if (input.visibility === 'private') await RecipeShareModel.destroy({ where: { recipeId }, transaction });
+    await writeIngredients(recipe.id, input.ingredients, userId, transaction);
+  });
+  return getRecipeForUser(recipeId, userId);
+}
+
+/** Deletes a recipe the user owns (its lines and shares go with it); returns the photo keys to remove. */
+export async function deleteRecipe(recipeId: number, userId: number): Promise<string[]> {
+  return RecipeModel.sequelize!.transaction(async (transaction) => {
+    const recipe = await findOwnedRecipe(recipeId, userId, transaction);
+    const keys = [recipe.photoLargeKey, recipe.photoThumbKey].filter((k): k is string => Boolean(k));
+    await recipe.destroy({ transaction });
+    return keys;
+  });
+}
