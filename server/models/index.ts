@@ -2,6 +2,10 @@ import type { Sequelize } from 'sequelize';
 import { DatasetImportModel } from './dataset-import.model';
 import { FoodMeasureModel } from './food-measure.model';
 import { FoodModel } from './food.model';
+import { BatchIngredientModel } from './batch-ingredient.model';
+import { BatchModel } from './batch.model';
+import { ContainerModel } from './container.model';
+import { PortionModel } from './portion.model';
 import { ProfileAccessModel } from './profile-access.model';
 import { ProfileModel } from './profile.model';
 import { RecipeIngredientModel } from './recipe-ingredient.model';
@@ -17,6 +21,7 @@ import { SettingsChangeModel } from './settings-change.model';
 export { DatasetImportModel, FoodMeasureModel, FoodModel };
 export { ProfileAccessModel, ProfileModel, RevokedTokenModel, UserModel };
 export { DayKindModel, ProfileSettingsModel, RatioBlockModel, SettingsChangeModel };
+export { BatchIngredientModel, BatchModel, ContainerModel, PortionModel };
 export { RecipeIngredientModel, RecipeModel, RecipeShareModel };
 
 /** Initialises every model once, then wires every association in one place. */
@@ -29,6 +34,10 @@ export function initModels(sequelize: Sequelize): void {
   DayKindModel.initModel(sequelize);
   RatioBlockModel.initModel(sequelize);
   SettingsChangeModel.initModel(sequelize);
+  ContainerModel.initModel(sequelize);
+  BatchModel.initModel(sequelize);
+  BatchIngredientModel.initModel(sequelize);
+  PortionModel.initModel(sequelize);
   RecipeModel.initModel(sequelize);
   RecipeIngredientModel.initModel(sequelize);
   RecipeShareModel.initModel(sequelize);
@@ -51,4 +60,8 @@ export function initModels(sequelize: Sequelize): void {
   FoodModel.hasMany(FoodMeasureModel, { as: 'measures', foreignKey: 'foodId' });
   FoodMeasureModel.belongsTo(FoodModel, { as: 'food', foreignKey: 'foodId' });
   FoodModel.belongsTo(DatasetImportModel, { as: 'import', foreignKey: 'importId' });
+  BatchModel.hasMany(BatchIngredientModel, { as: 'ingredients', foreignKey: 'batchId' });
+  BatchModel.hasMany(PortionModel, { as: 'portions', foreignKey: 'batchId' });
+  BatchModel.belongsTo(UserModel, { as: 'cookedBy', foreignKey: 'cookedByUserId' });
+  PortionModel.belongsTo(BatchModel, { as: 'batch', foreignKey: 'batchId' });
 }

@@ -5,6 +5,9 @@ import { adminRouter } from './admin.routes';
 import { authRouter } from './auth.routes';
 import { doseRouter } from './dose.routes';
 import { profilesRouter } from './profiles.routes';
+import { batchesRouter } from './batches.routes';
+import { containersRouter } from './containers.routes';
+import { portionsRouter } from './portions.routes';
 import { benchRouter } from './bench.routes';
 import { healthRouter } from './health.routes';
 import { photosRouter } from './photos.routes';
@@ -20,6 +23,9 @@ export function apiRouter(config: Config, sequelize: Sequelize) {
   api.use(photosRouter(config));
   api.use(profilesRouter(config));
   api.use(doseRouter(config));
+  api.use(containersRouter(config));
+  api.use(batchesRouter(config));
+  api.use(portionsRouter(config));
   if (config.BENCH_ROUTES === '1') api.use(benchRouter(sequelize));
   return api;
 }

@@ -1,0 +1,254 @@
+import request from 'supertest';
+import { BatchIngredientModel, BatchModel, FoodModel, PortionModel, ProfileModel, RecipeModel } from '../../server/models';
+import { normalizePortionCode } from '../../shared/compute/portion-code';
+import { bearer, signUpUser, startTestApp, type TestContext } from '../helpers/api';
+import { makeFood, makeRecipe, overnightOats, postBatch, SR } from './batches-fixtures';
+
+let ctx: TestContext;
+beforeAll(async () => {
+  ctx = await startTestApp();
+});
+afterAll(async () => {
+  await ctx.sequelize.close();
+});
+
+async function member(name = 'Cook') {
+  const session = await signUpUser(ctx.app, name);
+  return { token: session.token, userId: session.me.user.id, profileId: session.me.profiles[0].id };
+}
+
+describe('POST /api/profiles/:profileId/batches (weighed jars)', () => {
+  it('saves the week of overnight oats with five weighed jars matching the hand calculation', async () => {
+    const cook = await member();
+    const { input } = await overnightOats(cook.userId);
+
+    const res = await postBatch(ctx.app, cook.token, cook.profileId, input);
+
+    expect(res.status).toBe(201);
+    const batch = res.body;
+    // Hand calculation (tests/shared/batch.test.ts): raw 1158 g, cooked 1612 − 480 = 1132 g,
+    // available 196.4503 g, 17.35427 g/100 g; jars 226 g → 39.2206 g, 227 g → 39.3942 g.
+    expect(batch).toMatchObject({ rawGrams: 1158, cookedGrams: 1132, splitMode: 'weighed', basis: 'available', unit: 'g', gramsLeft: 0 });
+    expect(batch.yieldFactor).toBeCloseTo(0.97755, 5);
+    expect(batch.carbTotal.grams).toBeCloseTo(196.4503, 6);
+    expect(batch.carbPer100g.grams).toBeCloseTo(17.35427, 5);
+    expect(batch.portions.map((p: { netGrams: number }) => p.netGrams)).toEqual([226, 226, 227, 227, 226]);
+    expect(batch.portions[0].carb.grams).toBeCloseTo(39.2206, 3);
+    expect(batch.portions[2].carb.grams).toBeCloseTo(39.3942, 3);
+    expect(batch.ingredients.map((l: { differenceGrams: number }) => l.differenceGrams)).toEqual([2, -4, -3, 13]);
+    const codes = batch.portions.map((p: { code: string }) => p.code);
+    expect(new Set(codes).size).toBe(5);
+    for (const code of codes) expect(normalizePortionCode(code)).toBe(code);
+    expect(await PortionModel.count({ where: { batchId: batch.id, profileId: cook.profileId, status: 'available' } })).toBe(5);
+  });
+
+  it('gives the use-by date from the UK rule by default and shows its source', async () => {
+    const cook = await member();
+    const { input } = await overnightOats(cook.userId);
+
+    const res = await postBatch(ctx.app, cook.token, cook.profileId, input);
+
+    // check-values T26: UK fridge D+2 (FSA).
+    expect(res.body).toMatchObject({ cookedOn: '2026-03-10', useBy: '2026-03-12', storage: 'fridge' });
+    expect(res.body.useBySource).toMatch(/Food Standards Agency/);
+  });
+
+  it.each([
+    // check-values T26: US fridge D+3 (USDA FSIS); freezer 3 months (USDA FSIS, best quality).
+    { name: 'US fridge: + 3 days', change: { region: 'us' }, useBy: '2026-03-13', source: /USDA/ },
+    { name: 'freezer: + 3 months', change: { storage: 'freezer' }, useBy: '2026-06-10', source: /USDA/ },
+    { name: 'a date the cook set', change: { useBy: '2026-03-11' }, useBy: '2026-03-11', source: /cook/ },
+  ])('uses $name', async ({ change, useBy, source }) => {
+    const cook = await member();
+    const { input } = await overnightOats(cook.userId);
+
+    const res = await postBatch(ctx.app, cook.token, cook.profileId, { ...input, ...change });
+
+    expect(res.status).toBe(201);
+    expect(res.body.useBy).toBe(useBy);
+    expect(res.body.useBySource).toMatch(source);
+  });
+});
+
+describe('equal split and the profile basis and unit', () => {
+  // check-values §2.3 / T1: porridge of oats 500 g, whole milk 1000 g, water 1000 g cooked to 2200 g, 8 portions.
+  async function porridge() {
+    const cook = await member();
+    const oats = await makeFood('Oats, rolled', SR.oats);
+    const milk = await makeFood('Milk, whole', SR.wholeMilk);
+    const water = await makeFood('Water', SR.water);
+    const recipe = await makeRecipe(cook.userId, 'Porridge', [
+      { foodId: oats.id, grams: 500 },
+      { foodId: milk.id, grams: 1000 },
+      { foodId: water.id, grams: 1000 },
+    ]);
+    const res = await postBatch(ctx.app, cook.token, cook.profileId, {
+      recipeId: recipe.id,
+      cookedOn: '2026-03-10',
+      storage: 'fridge',
+      ingredients: [
+        { foodId: oats.id, plannedGrams: 500, actualGrams: 500 },
+        { foodId: milk.id, plannedGrams: 1000, actualGrams: 1000 },
+        { foodId: water.id, plannedGrams: 1000, actualGrams: 1000 },
+      ],
+      cookedWeight: { grossGrams: 3400, tareGrams: 1200 },
+      split: { mode: 'equal', count: 8 },
+    });
+    expect(res.status).toBe(201);
+    return { cook, batchId: res.body.id as number, created: res.body };
+  }
+
+  it('splits T1 into 8 portions of 275 g with 42.00 g available carbohydrate each', async () => {
+    const { created } = await porridge();
+
+    expect(created.yieldFactor).toBeCloseTo(0.88, 9);
+    expect(created.portions).toHaveLength(8);
+    expect(created.portions[0].netGrams).toBeCloseTo(275, 9);
+    // T1: available 42.000 g per portion, 15.273 g/100 g cooked (±0.01 g).
+    expect(Math.abs(created.portions[0].carb.grams - 42.0)).toBeLessThan(0.01);
+    expect(Math.abs(created.carbPer100g.grams - 15.273)).toBeLessThan(0.01);
+  });
+
+  it.each([
+    // T1 total basis: 48.3125 g per portion; T22 unit sizes 10/12/15 g (check-values §6).
+    { name: 'total carbohydrate in grams', basis: 'total', unit: 'g', grams: 48.3125, inUnit: 48.3125 },
+    { name: 'available carbohydrate in 10 g portions', basis: 'available', unit: 'portion10', grams: 42.0, inUnit: 4.2 },
+    { name: 'available carbohydrate in 12 g units', basis: 'available', unit: 'unit12', grams: 42.0, inUnit: 3.5 },
+    { name: 'total carbohydrate in 15 g exchanges', basis: 'total', unit: 'exchange15', grams: 48.3125, inUnit: 3.2208 },
+  ])('answers in the profile setting: $name', async ({ basis, unit, grams, inUnit }) => {
+    const { cook, batchId } = await porridge();
+    await ProfileModel.update({ carbBasis: basis as 'total', carbUnit: unit as 'g' }, { where: { id: cook.profileId } });
+
+    const res = await request(ctx.app).get(`/api/profiles/${cook.profileId}/batches/${batchId}`).set(bearer(cook.token));
+
+    expect(res.status).toBe(200);
+    expect(res.body).toMatchObject({ basis, unit });
+    expect(Math.abs(res.body.portions[0].carb.grams - grams)).toBeLessThan(0.01);
+    expect(res.body.portions[0].carb.inUnit).toBeCloseTo(inUnit, 3);
+  });
+
+  it('keeps its snapshot when the recipe and the food change afterwards', async () => {
+    const { cook, batchId, created } = await porridge();
+    await RecipeModel.update({ title: 'Porridge, renamed' }, { where: { id: created.recipeId } });
+    await FoodModel.update({ carbTotal: 10, carbAvailable: 5, name: 'Oats, re-imported' }, { where: { id: created.ingredients[0].foodId } });
+
+    const res = await request(ctx.app).get(`/api/profiles/${cook.profileId}/batches/${batchId}`).set(bearer(cook.token));
+
+    expect(res.body.recipeTitle).toBe('Porridge');
+    expect(res.body.ingredients[0]).toMatchObject({ foodName: 'Oats, rolled', per100g: expect.objectContaining({ carbTotal: 67.7 }) });
+    expect(Math.abs(res.body.portions[0].carb.grams - 42.0)).toBeLessThan(0.01);
+  });
+});
+
+describe('swapped and omitted ingredients', () => {
+  it('records the swap and leaves an omitted line out of the totals', async () => {
+    const cook = await member();
+    const { input, foods } = await overnightOats(cook.userId);
+    const skyr = await makeFood('Yogurt, strained, plain', { carbTotal: 4, fibre: 0 });
+    const ingredients = [...input.ingredients];
+    ingredients[2] = { foodId: skyr.id, plannedGrams: 250, actualGrams: 247, swappedFromFoodId: foods.yogurt.id };
+    ingredients[3] = { foodId: foods.apple.id, plannedGrams: 150, omitted: true };
+
+    const res = await postBatch(ctx.app, cook.token, cook.profileId, { ...input, ingredients, split: { mode: 'equal', count: 5 } });
+
+    expect(res.status).toBe(201);
+    expect(res.body.ingredients[2]).toMatchObject({ foodName: 'Yogurt, strained, plain', swappedFrom: { foodId: foods.yogurt.id, foodName: 'Yogurt, Greek, plain, nonfat' } });
+    expect(res.body.ingredients[3]).toMatchObject({ omitted: true, actualGrams: null });
+    // 252 + 496 + 247 = 995 g raw; available = 252×0.576 + 496×0.048 + 247×0.04 = 145.152 + 23.808 + 9.88 = 178.84 g.
+    expect(res.body.rawGrams).toBe(995);
+    expect(res.body.carbTotal.grams).toBeCloseTo(178.84, 6);
+  });
+});
+
+describe('bad input gets a 400 naming the field and saves nothing', () => {
+  type Mutate = (input: Record<string, any>, extra: { strangerFoodId: number }) => Record<string, unknown>;
+  const cases: { name: string; mutate: Mutate; field: string }[] = [
+    { name: '0 g weighed', mutate: (i) => ({ ...i, ingredients: [{ ...i.ingredients[0], actualGrams: 0 }, ...i.ingredients.slice(1)] }), field: 'ingredients.0.actualGrams' },
+    { name: 'negative grams weighed', mutate: (i) => ({ ...i, ingredients: [i.ingredients[0], { ...i.ingredients[1], actualGrams: -5 }, ...i.ingredients.slice(2)] }), field: 'ingredients.1.actualGrams' },
+    { name: 'a missing scale reading', mutate: (i) => ({ ...i, ingredients: [{ ...i.ingredients[0], actualGrams: null }, ...i.ingredients.slice(1)] }), field: 'ingredients.0.actualGrams' },
+    { name: 'cooked weight 0 (gross 0)', mutate: (i) => ({ ...i, cookedWeight: { grossGrams: 0, tareGrams: 0 } }), field: 'cookedWeight.grossGrams' },
+    { name: 'pot tare equal to the gross weight', mutate: (i) => ({ ...i, cookedWeight: { grossGrams: 480, tareGrams: 480 } }), field: 'cookedWeight.tareGrams' },
+    { name: 'jar tare above its gross weight', mutate: (i) => ({ ...i, split: { mode: 'weighed', portions: [{ grossGrams: 200, tareGrams: 212 }] } }), field: 'split.portions.0.tareGrams' },
+    { name: 'more weighed into jars than the batch holds', mutate: (i) => ({ ...i, split: { mode: 'weighed', portions: [...i.split.portions, { grossGrams: 400, tareGrams: 200 }] } }), field: 'split.portions' },
+    { name: '0 equal portions', mutate: (i) => ({ ...i, split: { mode: 'equal', count: 0 } }), field: 'split.count' },
+    { name: 'an unknown food', mutate: (i) => ({ ...i, ingredients: [{ ...i.ingredients[0], foodId: 999999 }, ...i.ingredients.slice(1)] }), field: 'ingredients.0.foodId' },
+    { name: "another member's label food", mutate: (i, x) => ({ ...i, ingredients: [{ ...i.ingredients[0], foodId: x.strangerFoodId }, ...i.ingredients.slice(1)] }), field: 'ingredients.0.foodId' },
+    { name: 'no ingredients', mutate: (i) => ({ ...i, ingredients: [] }), field: 'ingredients' },
+    { name: 'every ingredient left out', mutate: (i) => ({ ...i, ingredients: i.ingredients.map((l: object) => ({ ...l, omitted: true })) }), field: 'ingredients' },
+    { name: 'an unknown recipe', mutate: (i) => ({ ...i, recipeId: 999999 }), field: 'recipeId' },
+    { name: 'a use-by date before cooking', mutate: (i) => ({ ...i, useBy: '2026-03-01' }), field: 'useBy' },
+    { name: 'a container of another profile', mutate: (i) => ({ ...i, cookedWeight: { ...i.cookedWeight, containerId: 999999 } }), field: 'cookedWeight.containerId' },
+  ];
+
+  it.each(cases)('$name → 400 on $field', async ({ mutate, field }) => {
+    const cook = await member();
+    const stranger = await member('Stranger');
+    const { input } = await overnightOats(cook.userId);
+    const strangerFood = await makeFood('Stranger label food', { carbTotal: 10, fibre: 0 });
+    await strangerFood.update({ source: 'label', ownerUserId: stranger.userId });
+    const before = { batches: await BatchModel.count(), lines: await BatchIngredientModel.count(), portions: await PortionModel.count() };
+
+    const res = await postBatch(ctx.app, cook.token, cook.profileId, mutate(input as Record<string, unknown>, { strangerFoodId: strangerFood.id }));
+
+    expect(res.status).toBe(400);
+    expect(res.body.error.code).toBe('validation_failed');
+    expect(Object.keys(res.body.error.fieldErrors)).toContain(field);
+    expect({ batches: await BatchModel.count(), lines: await BatchIngredientModel.count(), portions: await PortionModel.count() }).toEqual(before);
+  });
+});
+
+describe('who may see and cook batches', () => {
+  it('answers 404 to a stranger for the batch, its labels and creating on that profile', async () => {
+    const cook = await member();
+    const stranger = await member('Stranger');
+    const { input } = await overnightOats(cook.userId);
+    const created = await postBatch(ctx.app, cook.token, cook.profileId, input);
+
+    const get = await request(ctx.app).get(`/api/profiles/${cook.profileId}/batches/${created.body.id}`).set(bearer(stranger.token));
+    const labels = await request(ctx.app).get(`/api/profiles/${cook.profileId}/batches/${created.body.id}/labels`).set(bearer(stranger.token));
+    const post = await postBatch(ctx.app, stranger.token, cook.profileId, input);
+    const ownProfile = await request(ctx.app).get(`/api/profiles/${stranger.profileId}/batches/${created.body.id}`).set(bearer(stranger.token));
+
+    expect([get.status, labels.status, post.status, ownProfile.status]).toEqual([404, 404, 404, 404]);
+  });
+
+  it("refuses a private recipe of someone else as the batch's recipe", async () => {
+    const cook = await member();
+    const other = await member('Other');
+    const { input } = await overnightOats(other.userId);
+
+    const res = await postBatch(ctx.app, cook.token, cook.profileId, input);
+
+    expect(res.status).toBe(400);
+    expect(res.body.error.fieldErrors.recipeId).toBeDefined();
+  });
+
+  it('lists the inventory by batch with counts, newest cook first', async () => {
+    const cook = await member();
+    const { input } = await overnightOats(cook.userId);
+    await postBatch(ctx.app, cook.token, cook.profileId, input);
+    await postBatch(ctx.app, cook.token, cook.profileId, { ...input, cookedOn: '2026-03-12', split: { mode: 'equal', count: 2 } });
+
+    const res = await request(ctx.app).get(`/api/profiles/${cook.profileId}/batches`).set(bearer(cook.token));
+
+    expect(res.status).toBe(200);
+    expect(res.body.items.map((b: { cookedOn: string }) => b.cookedOn)).toEqual(['2026-03-12', '2026-03-10']);
+    expect(res.body.items[1].counts).toEqual({ available: 5, eaten: 0, discarded: 0 });
+  });
+});
+
+describe('PATCH /api/profiles/:profileId/batches/:id', () => {
+  it('moving to the freezer resets the use-by date from the freezer rule', async () => {
+    const cook = await member();
+    const { input } = await overnightOats(cook.userId);
+    const created = await postBatch(ctx.app, cook.token, cook.profileId, input);
+
+    const res = await request(ctx.app)
+      .patch(`/api/profiles/${cook.profileId}/batches/${created.body.id}`)
+      .set(bearer(cook.token))
+      .send({ storage: 'freezer' });
+
+    expect(res.status).toBe(200);
+    expect(res.body).toMatchObject({ storage: 'freezer', useBy: '2026-06-10' });
+  });
+});
