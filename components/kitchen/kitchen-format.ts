@@ -1,0 +1,35 @@
+import { daysUntil } from '../../shared/compute/use-by';
+import { formatCarb } from '../../shared/compute/units';
+import type { CarbUnit } from '../../shared/schemas/units';
+
+/** Today's local calendar date as YYYY-MM-DD. */
+export function localToday(now: Date = new Date()): string {
+  const pad = (n: number) => String(n).padStart(2, '0');
+  return `${now.getFullYear()}-${pad(now.getMonth() + 1)}-${pad(now.getDate())}`;
+}
+
+/** Carbohydrate for display in the profile unit (grams shown alongside for counting units), or "unknown". */
+export function carbText(grams: number | null, unit: CarbUnit): string {
+  if (grams == null) return 'unknown';
+  return unit === 'g' ? formatCarb(grams, 'g') : `${formatCarb(grams, unit)} (${formatCarb(grams, 'g')})`;
+}
+
+/** Whole grams for weights. */
+export function gramsText(grams: number): string {
+  return `${Math.round(grams)} g`;
+}
+
+/** "2 days left", "last day", "expired 3 days ago" and the tone to show it with. */
+export function shelfStatus(useBy: string, today: string): { text: string; tone: 'ok' | 'caution' | 'danger' } {
+  const days = daysUntil(useBy, today);
+  if (days < 0) return { text: `Past its use-by date (${-days} day${days === -1 ? '' : 's'} ago)`, tone: 'danger' };
+  if (days === 0) return { text: 'Use today (last day)', tone: 'caution' };
+  if (days === 1) return { text: '1 day left', tone: 'caution' };
+  return { text: `${days} days left`, tone: 'ok' };
+}
+
+/** "Tue 10 Mar" style date for labels and lists. */
+export function shortDate(iso: string): string {
+  const d = new Date(`${iso}T12:00:00Z`);
+  return d.toLocaleDateString('en-GB', { weekday: 'short', day: 'numeric', month: 'short', timeZone: 'UTC' });
+}

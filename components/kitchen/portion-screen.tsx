@@ -1,0 +1,79 @@
+import { router } from 'expo-router';
+import { StyleSheet, View } from 'react-native';
+import { formatPortionCode } from '../../shared/compute/portion-code';
+import { Button } from '../ui/button';
+import { Callout } from '../ui/callout';
+import { Card } from '../ui/card';
+import { Screen } from '../ui/screen';
+import { ErrorState, LoadingState } from '../ui/states';
+import { Text } from '../ui/text';
+import { Figure } from './cooked-weight-step';
+import { carbText, gramsText, localToday, shelfStatus, shortDate } from './kitchen-format';
+import { usePortion, useSetPortionStatus } from './kitchen-queries';
+
+/** The page a label's QR code opens: the portion's numbers, its dates, and what to do with it. */
+export function PortionScreen({ code }: { code: string }) {
+  const portion = usePortion(code);
+  const mark = useSetPortionStatus();
+  if (portion.isPending) return <LoadingState />;
+  if (portion.isError) return <ErrorState error={portion.error} onRetry={portion.refetch} />;
+  const p = portion.data;
+  const shelf = shelfStatus(p.useBy, localToday());
+  const doseHref = `/dose-check?portion=${encodeURIComponent(p.code)}&carbs=${p.carb.grams ?? ''}&label=${encodeURIComponent(p.recipeTitle)}`;
+  return (
+    <Screen title={p.recipeTitle} subtitle={`Portion ${formatPortionCode(p.code)} · ${p.profileName}`} backHref="/kitchen">
+      <Card>
+        <View style={styles.numbers}>
+          <View>
+            <Text variant="label" color="textMuted">
+              Carbohydrate in this portion
+            </Text>
+            <Text variant="number">{carbText(p.carb.grams, p.unit)}</Text>
+          </View>
+          <Figure label="Net weight" value={gramsText(p.netGrams)} />
+          <Figure label="Per 100 g" value={carbText(p.carbPer100g.grams, p.unit)} />
+        </View>
+        <Text color="textMuted">
+          Counted as {p.basis === 'available' ? 'available carbohydrate (fibre not counted)' : 'total carbohydrate (fibre counted)'}.
+          {p.containerName ? ` In ${p.containerName}.` : ''}
+        </Text>
+        <Text>
+          Cooked {shortDate(p.cookedOn)} · use by {shortDate(p.useBy)} · {p.storage}
+        </Text>
+      </Card>
+      {p.status !== 'available' ? (
+        <Callout tone="info" title={p.status === 'eaten' ? 'Already eaten' : 'Thrown away'}>
+          {`Marked ${p.status === 'eaten' ? 'eaten' : 'thrown away'}${p.statusChangedAt ? ` on ${new Date(p.statusChangedAt).toLocaleString()}` : ''}.`}
+        </Callout>
+      ) : shelf.tone === 'danger' ? (
+        <Callout tone="danger" title="Past use-by">
+          {`${shelf.text}. Food-safety advice is not to eat it.`}
+        </Callout>
+      ) : (
+        <Text variant="label" color={shelf.tone === 'ok' ? 'inRange' : 'caution'}>
+          {shelf.tone === 'ok' ? '✓ ' : '! '}
+          {shelf.text}
+        </Text>
+      )}
+      {p.status === 'available' ? (
+        <Card>
+          <Button size="lg" label="Check a dose for this" onPress={() => router.push(doseHref as never)} />
+          <Text variant="caption" color="textMuted">
+            A dose check is a calculation from your own settings, not medical advice; your diabetes team sets the ratios.
+          </Text>
+          {mark.isError ? <Callout tone="danger">{mark.error.message}</Callout> : null}
+          <View style={styles.row}>
+            <Button variant="secondary" label="Mark eaten" loading={mark.isPending} onPress={() => mark.mutate({ code: p.code, status: 'eaten' })} />
+            <Button variant="danger" label="Thrown away" onPress={() => mark.mutate({ code: p.code, status: 'discarded' })} />
+          </View>
+        </Card>
+      ) : null}
+      {p.recipeId ? <Button variant="quiet" label="Open the batch" onPress={() => router.push(`/kitchen/batches/${p.batchId}` as never)} /> : null}
+    </Screen>
+  );
+}
+
+const styles = StyleSheet.create({
+  numbers: { flexDirection: 'row', flexWrap: 'wrap', gap: 24, alignItems: 'flex-end' },
+  row: { flexDirection: 'row', flexWrap: 'wrap', gap: 8 },
+});
