@@ -34,6 +34,15 @@ export function MoreScreen() {
         )}
       </Card>
       <Card>
+        <Text variant="heading">Settings</Text>
+        <Text color="textMuted">Units, safety limits, day kinds with their ratios, and the change history.</Text>
+        <View style={styles.actions}>
+          <Link href="/settings" asChild>
+            <Button variant="secondary" label="Settings" />
+          </Link>
+        </View>
+      </Card>
+      <Card>
         <Text variant="heading">Account</Text>
         <Text color="textMuted">Role: {user.role}</Text>
         <View style={styles.actions}>

@@ -1,0 +1,125 @@
+import { zodResolver } from '@hookform/resolvers/zod';
+import { Controller, useFieldArray, useForm, type UseFormReturn } from 'react-hook-form';
+import { StyleSheet, View } from 'react-native';
+import { dayKindInputSchema, type DayKindFormValues, type DayKindInput } from '../../shared/schemas/profile-settings';
+import { useLayout, useTheme } from '../theme/use-theme';
+import { Button } from '../ui/button';
+import { Callout } from '../ui/callout';
+import { Card } from '../ui/card';
+import { FormTextField } from '../ui/form-text-field';
+import { Text } from '../ui/text';
+import { ChoiceGroup } from './choice-group';
+
+export type DayKindForm = UseFormReturn<DayKindFormValues, unknown, DayKindInput>;
+
+/** Day kind editor: name, default, planned long-acting dose and the time blocks with their ratios. */
+export function DayKindForm({
+  defaultValues,
+  onSubmit,
+  submitting,
+  formError,
+  submitLabel,
+}: {
+  defaultValues: DayKindFormValues;
+  onSubmit: (values: DayKindInput, form: DayKindForm) => void;
+  submitting: boolean;
+  formError?: string;
+  submitLabel: string;
+}) {
+  const form = useForm<DayKindFormValues, unknown, DayKindInput>({ resolver: zodResolver(dayKindInputSchema), defaultValues });
+  const blocks = useFieldArray({ control: form.control, name: 'blocks' });
+  const { isWide } = useLayout();
+  const t = useTheme();
+  const unit = defaultValues.glucoseUnit === 'mmol_l' ? 'mmol/L' : 'mg/dL';
+  const submit = form.handleSubmit((values) => onSubmit(values, form));
+  const blocksError = form.formState.errors.blocks?.root?.message ?? form.formState.errors.blocks?.message;
+
+  return (
+    <View style={styles.stack}>
+      {formError ? <Callout tone="danger" title="Not saved">{formError}</Callout> : null}
+      <Card>
+        <FormTextField control={form.control} name="name" label="Name of this kind of day" placeholder="e.g. Rest, Long ride" />
+        <Controller
+          control={form.control}
+          name="isDefault"
+          render={({ field, fieldState }) => (
+            <ChoiceGroup
+              label="Use on days with no other kind set"
+              choices={[{ value: true, label: 'Yes, the default' }, { value: false, label: 'No' }]}
+              value={field.value}
+              onChange={field.onChange}
+              error={fieldState.error?.message}
+            />
+          )}
+        />
+        <FormTextField
+          control={form.control}
+          name="longActingUnits"
+          label="Planned long-acting dose (optional)"
+          unit="units"
+          inputMode="decimal"
+          hint="As your diabetes team prescribed it. Recorded for the log; Carbwright never suggests it."
+        />
+      </Card>
+      <Card>
+        <Text variant="heading">Time blocks</Text>
+        <Text color="textMuted">
+          The blocks must cover the whole day, from 00:00 to 24:00, in order, without gaps or overlaps. Ratio: grams of
+          carbohydrate per unit. Correction factor: how far 1 unit lowers glucose, in {unit}.
+        </Text>
+        {blocksError ? (
+          <Text color="danger" role="alert">
+            {blocksError}
+          </Text>
+        ) : null}
+        {blocks.fields.map((f, i) => (
+          <View key={f.id} style={[styles.block, { borderColor: t.colors.border }, isWide && styles.blockWide]} aria-label={`Block ${i + 1}`}>
+            {isWide ? null : <Text weight="bold">Block {i + 1}</Text>}
+            <View style={[styles.fields, isWide && styles.fieldsWide]}>
+              <View style={styles.field}>
+                <FormTextField control={form.control} name={`blocks.${i}.from`} label={`Block ${i + 1} from`} placeholder="00:00" />
+              </View>
+              <View style={styles.field}>
+                <FormTextField control={form.control} name={`blocks.${i}.to`} label={`Block ${i + 1} to`} placeholder="24:00" />
+              </View>
+              <View style={styles.field}>
+                <FormTextField control={form.control} name={`blocks.${i}.carbRatio`} label={`Block ${i + 1} ratio`} unit="g per unit" inputMode="decimal" />
+              </View>
+              <View style={styles.field}>
+                <FormTextField
+                  control={form.control}
+                  name={`blocks.${i}.correctionFactor`}
+                  label={`Block ${i + 1} correction factor`}
+                  unit={`${unit} per unit`}
+                  inputMode="decimal"
+                />
+              </View>
+            </View>
+            {blocks.fields.length > 1 ? <Button variant="quiet" label={`Remove block ${i + 1}`} onPress={() => blocks.remove(i)} /> : null}
+          </View>
+        ))}
+        <View style={styles.row}>
+          <Button
+            variant="secondary"
+            label="Add a block"
+            onPress={() => {
+              const last = form.getValues(`blocks.${blocks.fields.length - 1}`);
+              blocks.append({ from: last && last.to !== '24:00' ? last.to : '', to: '24:00', carbRatio: '', correctionFactor: '' });
+            }}
+          />
+        </View>
+      </Card>
+      <Button label={submitLabel} size="lg" loading={submitting} onPress={submit} />
+    </View>
+  );
+}
+
+const styles = StyleSheet.create({
+  stack: { gap: 16 },
+  block: { borderTopWidth: 1, paddingTop: 12, gap: 8 },
+  blockWide: { flexDirection: 'row', alignItems: 'flex-end', gap: 12 },
+  fields: { gap: 10 },
+  fieldsWide: { flexDirection: 'row', flex: 1, gap: 12 },
+  field: { flex: 1, minWidth: 120 },
+  row: { flexDirection: 'row', gap: 12 },
+});

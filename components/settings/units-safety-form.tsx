@@ -1,0 +1,219 @@
+import { zodResolver } from '@hookform/resolvers/zod';
+import { useState } from 'react';
+import { Controller, useForm, type FieldPath } from 'react-hook-form';
+import { StyleSheet, View } from 'react-native';
+import { EXERCISE_INTENSITIES } from '../../shared/compute/exercise';
+import { glucoseFromMmol, glucoseToMmol } from '../../shared/compute/units';
+import {
+  profileSettingsInputSchema,
+  type ProfileSettingsFormValues,
+  type ProfileSettingsInput,
+} from '../../shared/schemas/profile-settings';
+import type { GlucoseUnit } from '../../shared/schemas/units';
+import { useLayout } from '../theme/use-theme';
+import { Button } from '../ui/button';
+import { Callout } from '../ui/callout';
+import { Card } from '../ui/card';
+import { FormTextField } from '../ui/form-text-field';
+import { Text } from '../ui/text';
+import { ChoiceGroup } from './choice-group';
+
+const GLUCOSE_FIELDS = ['targetLow', 'targetHigh', 'correctionTarget', 'hypoThreshold', 'veryHigh'] as const;
+export const SETTINGS_FIELDS: FieldPath<ProfileSettingsFormValues>[] = [
+  'glucoseUnit', 'carbBasis', 'carbUnit', 'penIncrement', 'rounding', 'maxDoseUnits', 'actionTimeHours', ...GLUCOSE_FIELDS,
+  'allowNegativeCorrection', 'iobConvention',
+  ...EXERCISE_INTENSITIES.flatMap((k) => [`exerciseReductions.${k}.min30`, `exerciseReductions.${k}.min60`] as FieldPath<ProfileSettingsFormValues>[]),
+];
+
+const unitWord = (u: GlucoseUnit) => (u === 'mmol_l' ? 'mmol/L' : 'mg/dL');
+const INTENSITY_WORDS = { light: 'Light (walking, gardening)', moderate: 'Moderate (brisk walk, jog, easy ride)', hard: 'Hard (fast ride, running, team sport)' } as const;
+
+function convertField(value: unknown, from: GlucoseUnit, to: GlucoseUnit): unknown {
+  const n = typeof value === 'number' ? value : Number(String(value ?? '').replace(',', '.'));
+  if (value === '' || value == null || !Number.isFinite(n)) return value;
+  const out = glucoseFromMmol(glucoseToMmol(n, from), to);
+  return to === 'mmol_l' ? String(Math.round(out * 10) / 10) : String(Math.round(out));
+}
+
+/** Units and safety limits form (react-hook-form + the shared zod schema). */
+export function UnitsSafetyForm({
+  defaultValues,
+  onSubmit,
+  submitting,
+  formError,
+}: {
+  defaultValues: ProfileSettingsFormValues;
+  onSubmit: (values: ProfileSettingsInput, form: ReturnType<typeof useForm<ProfileSettingsFormValues, unknown, ProfileSettingsInput>>) => void;
+  submitting: boolean;
+  formError?: string;
+}) {
+  const form = useForm<ProfileSettingsFormValues, unknown, ProfileSettingsInput>({ resolver: zodResolver(profileSettingsInputSchema), defaultValues });
+  const { isWide } = useLayout();
+  const [unit, setUnit] = useState<GlucoseUnit>(defaultValues.glucoseUnit);
+  const submit = form.handleSubmit((values) => onSubmit(values, form));
+  const u = unitWord(unit);
+
+  return (
+    <View style={styles.stack}>
+      {formError ? <Callout tone="danger" title="Not saved">{formError}</Callout> : null}
+      <Card>
+        <Text variant="heading">Units</Text>
+        <Controller
+          control={form.control}
+          name="glucoseUnit"
+          render={({ field, fieldState }) => (
+            <ChoiceGroup
+              label="Glucose unit"
+              choices={[{ value: 'mmol_l', label: 'mmol/L' }, { value: 'mg_dl', label: 'mg/dL' }]}
+              value={field.value}
+              error={fieldState.error?.message}
+              hint="1 mmol/L = 18.0156 mg/dL. Values are converted for you when you switch."
+              onChange={(next) => {
+                if (next !== field.value) {
+                  for (const name of GLUCOSE_FIELDS) form.setValue(name, convertField(form.getValues(name), field.value, next));
+                }
+                field.onChange(next);
+                setUnit(next);
+              }}
+            />
+          )}
+        />
+        <Controller
+          control={form.control}
+          name="carbBasis"
+          render={({ field }) => (
+            <ChoiceGroup
+              label="Carbohydrate you count"
+              choices={[{ value: 'available', label: 'Available (fibre not counted)' }, { value: 'total', label: 'Total (fibre included)' }]}
+              value={field.value}
+              onChange={field.onChange}
+            />
+          )}
+        />
+        <Controller
+          control={form.control}
+          name="carbUnit"
+          render={({ field }) => (
+            <ChoiceGroup
+              label="Show carbohydrate as"
+              choices={[
+                { value: 'g', label: 'grams' },
+                { value: 'portion10', label: '10 g portions' },
+                { value: 'unit12', label: '12 g units' },
+                { value: 'exchange15', label: '15 g exchanges' },
+              ]}
+              value={field.value}
+              onChange={field.onChange}
+            />
+          )}
+        />
+      </Card>
+      <Card>
+        <Text variant="heading">Pen and limits</Text>
+        <Controller
+          control={form.control}
+          name="penIncrement"
+          render={({ field, fieldState }) => (
+            <ChoiceGroup
+              label="Pen step"
+              choices={[{ value: 0.5, label: '0.5 unit' }, { value: 1, label: '1 unit' }]}
+              value={field.value as number | null}
+              onChange={field.onChange}
+              error={fieldState.error?.message}
+            />
+          )}
+        />
+        <Controller
+          control={form.control}
+          name="rounding"
+          render={({ field }) => (
+            <ChoiceGroup
+              label="Rounding to the pen step"
+              choices={[{ value: 'down', label: 'Down (safer)' }, { value: 'nearest', label: 'Nearest' }]}
+              value={field.value}
+              onChange={field.onChange}
+              hint="Rounding down is the more conservative choice (Building Competency in Diabetes Education)."
+            />
+          )}
+        />
+        <View style={[styles.grid, isWide && styles.gridWide]}>
+          <FormTextField control={form.control} name="maxDoseUnits" label="Largest single dose" unit="units" inputMode="decimal" />
+          <FormTextField control={form.control} name="actionTimeHours" label="Insulin action time" unit="hours" inputMode="decimal" hint="2 to 8 hours, as your team set it." />
+        </View>
+      </Card>
+      <Card>
+        <Text variant="heading">Glucose targets</Text>
+        <View style={[styles.grid, isWide && styles.gridWide]}>
+          <FormTextField control={form.control} name="targetLow" label="Target range from" unit={u} inputMode="decimal" />
+          <FormTextField control={form.control} name="targetHigh" label="Target range to" unit={u} inputMode="decimal" />
+          <FormTextField control={form.control} name="correctionTarget" label="Correct to" unit={u} inputMode="decimal" hint="Corrections aim for this value." />
+          <FormTextField
+            control={form.control}
+            name="hypoThreshold"
+            label="Low: no dose at or below"
+            unit={u}
+            inputMode="decimal"
+            hint="Usually 3.9 mmol/L (70 mg/dL): International Hypoglycaemia Study Group, 2017."
+          />
+          <FormTextField
+            control={form.control}
+            name="veryHigh"
+            label="Very high: check ketones from"
+            unit={u}
+            inputMode="decimal"
+            hint="Often 15 mmol/L (270 mg/dL) before exercise (2017 exercise consensus)."
+          />
+        </View>
+        <Controller
+          control={form.control}
+          name="allowNegativeCorrection"
+          render={({ field }) => (
+            <ChoiceGroup
+              label="Below the range, lower the meal dose (negative correction)"
+              choices={[{ value: false, label: 'No' }, { value: true, label: 'Yes' }]}
+              value={field.value}
+              onChange={field.onChange}
+            />
+          )}
+        />
+        <Controller
+          control={form.control}
+          name="iobConvention"
+          render={({ field }) => (
+            <ChoiceGroup
+              label="Active insulin from earlier doses is taken off"
+              choices={[{ value: 'correction_only', label: 'The correction only' }, { value: 'total', label: 'The whole dose' }]}
+              value={field.value}
+              onChange={field.onChange}
+            />
+          )}
+        />
+      </Card>
+      <Card>
+        <Text variant="heading">Exercise after a meal</Text>
+        <Text color="textMuted">
+          Percent taken off the meal part when exercise starts within 3 hours of the meal. Starting values: Rabasa-Lhoret
+          et al., Diabetes Care 2001. Empty means no reduction is established (hard exercise for an hour: from the 2017
+          consensus table as remembered, not confirmed).
+        </Text>
+        {EXERCISE_INTENSITIES.map((k) => (
+          <View key={k} style={[styles.grid, styles.gridWide]}>
+            <Text weight="bold" style={styles.intensity}>
+              {INTENSITY_WORDS[k]}
+            </Text>
+            <FormTextField control={form.control} name={`exerciseReductions.${k}.min30`} label="About 30 min" unit="%" inputMode="decimal" />
+            <FormTextField control={form.control} name={`exerciseReductions.${k}.min60`} label="About 60 min" unit="%" inputMode="decimal" />
+          </View>
+        ))}
+      </Card>
+      <Button label="Save units and limits" size="lg" loading={submitting} onPress={submit} />
+    </View>
+  );
+}
+
+const styles = StyleSheet.create({
+  stack: { gap: 16 },
+  grid: { gap: 12 },
+  gridWide: { flexDirection: 'row', flexWrap: 'wrap', alignItems: 'flex-end' },
+  intensity: { minWidth: 200, flexBasis: '100%' },
+});
