@@ -5,6 +5,7 @@
 import { loadConfig } from '../config';
 import { createSequelize, migrate } from '../db';
 import { ensureAdmin } from '../services/auth.service';
+import { runDemoStep } from '../seed/demo';
 
 async function main() {
   const config = loadConfig();
@@ -17,6 +18,7 @@ async function main() {
       const { created } = await ensureAdmin(config, config.ADMIN_EMAIL, config.ADMIN_PASSWORD);
       console.log(`Admin ${config.ADMIN_EMAIL} ${created ? 'created' : 'updated'}.`);
     }
+    await runDemoStep(config);
   } finally {
     await sequelize.close();
   }

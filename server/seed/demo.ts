@@ -1,0 +1,177 @@
+import { randomBytes } from 'node:crypto';
+import fs from 'node:fs';
+import path from 'node:path';
+import { z } from 'zod';
+import { createBatchInputSchema } from '../../shared/schemas/batch';
+import { createLabelFoodInputSchema } from '../../shared/schemas/food';
+import { recipeInputSchema } from '../../shared/schemas/recipe';
+import type { Config } from '../config';
+import { REPO_ROOT } from '../config';
+import { BatchModel, ContainerModel, FoodModel, ProfileModel, RecipeModel, UserModel } from '../models';
+import { signUp } from '../services/auth.service';
+import { createBatch } from '../services/batches.service';
+import { createContainer } from '../services/containers.service';
+import { createLabelFood } from '../services/label-foods.service';
+import { createRecipe } from '../services/recipes.service';
+
+const ingredientSchema = z.object({
+  ifct: z.string().optional(),
+  label: z.string().optional(),
+  grams: z.number().positive(),
+  note: z.string().optional(),
+});
+
+/** The shape of data/demo/household.json. */
+const scenarioSchema = z.object({
+  member: z.object({ email: z.string(), displayName: z.string() }),
+  profile: z.object({ carbBasis: z.enum(['available', 'total']), carbUnit: z.enum(['g', 'portion10', 'unit12', 'exchange15']) }),
+  labelFoods: z.array(z.object({ key: z.string() }).passthrough()),
+  recipes: z.array(
+    z.object({
+      key: z.string(),
+      title: z.string(),
+      description: z.string(),
+      methodSteps: z.array(z.string()),
+      tags: z.array(z.string()),
+      defaultPortions: z.number(),
+      visibility: z.enum(['private', 'shared', 'public']),
+      ingredients: z.array(ingredientSchema),
+    }),
+  ),
+  containers: z.array(z.object({ name: z.string(), kind: z.enum(['pot', 'container']), tareGrams: z.number() })),
+  batch: z.object({
+    recipe: z.string(),
+    storage: z.enum(['fridge', 'freezer']),
+    region: z.enum(['uk', 'us']),
+    actualGrams: z.array(z.number()),
+    pot: z.object({ container: z.string(), grossGrams: z.number() }),
+    portions: z.array(z.object({ container: z.string(), grossGrams: z.number() })),
+  }),
+});
+export type DemoScenario = z.infer<typeof scenarioSchema>;
+
+export const DEMO_FILE = path.join(REPO_ROOT, 'data', 'demo', 'household.json');
+
+/** Reads and checks the invented demo scenario. */
+export function loadScenario(file = DEMO_FILE): DemoScenario {
+  return scenarioSchema.parse(JSON.parse(fs.readFileSync(file, 'utf8')));
+}
+
+export type DemoResult = { skipped?: string; created: string[]; email: string; password?: string };
+
+/**
+ * Seeds the invented demo household through the services: the member, two label foods, two recipes built
+ * from the IFCT table (one public), saved containers and one cooked batch with weighed portions.
+ * Idempotent: each part is looked up first and only what is missing is created. The password comes from
+ * `password` (DEMO_PASSWORD) or is generated and returned once, when the account is created.
+ */
+export async function seedDemo(config: Config, options: { password?: string; today: string; scenario?: DemoScenario }): Promise<DemoResult> {
+  const s = options.scenario ?? loadScenario();
+  const created: string[] = [];
+  const ifctCodes = [...new Set(s.recipes.flatMap((r) => r.ingredients.flatMap((i) => (i.ifct ? [i.ifct] : []))))];
+  const tableFoods = await FoodModel.findAll({ where: { source: 'ifct2017', sourceCode: ifctCodes } });
+  if (tableFoods.length < ifctCodes.length) {
+    return { skipped: 'the IFCT 2017 table is not imported yet', created, email: s.member.email };
+  }
+  const foodId = new Map(tableFoods.map((f) => [`ifct:${f.sourceCode}`, f.id]));
+
+  let password: string | undefined;
+  let user = await UserModel.findOne({ where: { email: s.member.email } });
+  if (!user) {
+    password = options.password ?? randomBytes(12).toString('base64url');
+    await signUp(config, { email: s.member.email, displayName: s.member.displayName, password });
+    user = (await UserModel.findOne({ where: { email: s.member.email } }))!;
+    created.push('member');
+  }
+  const profile = (await ProfileModel.findOne({ where: { ownerUserId: user.id } }))!;
+  if (profile.carbBasis !== s.profile.carbBasis || profile.carbUnit !== s.profile.carbUnit) {
+    await profile.update({ carbBasis: s.profile.carbBasis, carbUnit: s.profile.carbUnit });
+  }
+
+  for (const lf of s.labelFoods) {
+    const input = createLabelFoodInputSchema.parse(Object.fromEntries(Object.entries(lf).filter(([k]) => k !== 'key')));
+    let food = await FoodModel.findOne({ where: { source: 'label', ownerUserId: user.id, name: input.name } });
+    if (!food) {
+      await createLabelFood(user.id, input, config.UPLOADS_DIR);
+      food = (await FoodModel.findOne({ where: { source: 'label', ownerUserId: user.id, name: input.name } }))!;
+      created.push(`label food ${input.name}`);
+    }
+    foodId.set(`label:${lf.key}`, food.id);
+  }
+
+  const recipeIds = new Map<string, number>();
+  for (const r of s.recipes) {
+    let recipe = await RecipeModel.findOne({ where: { ownerUserId: user.id, title: r.title } });
+    if (!recipe) {
+      const input = recipeInputSchema.parse({
+        ...r,
+        ingredients: r.ingredients.map((i) => ({
+          foodId: foodId.get(i.ifct ? `ifct:${i.ifct}` : `label:${i.label}`),
+          grams: i.grams,
+          note: i.note ?? null,
+        })),
+      });
+      const detail = await createRecipe(input, user.id);
+      recipe = (await RecipeModel.findByPk(detail.id))!;
+      created.push(`recipe ${r.title}`);
+    }
+    recipeIds.set(r.key, recipe.id);
+  }
+
+  const containers = new Map<string, ContainerModel>();
+  for (const c of s.containers) {
+    let row = await ContainerModel.findOne({ where: { profileId: profile.id, name: c.name } });
+    if (!row) {
+      await createContainer(profile.id, c);
+      row = (await ContainerModel.findOne({ where: { profileId: profile.id, name: c.name } }))!;
+      created.push(`container ${c.name}`);
+    }
+    containers.set(c.name, row);
+  }
+
+  const recipeId = recipeIds.get(s.batch.recipe)!;
+  if (!(await BatchModel.findOne({ where: { profileId: profile.id, recipeId } }))) {
+    const recipe = s.recipes.find((r) => r.key === s.batch.recipe)!;
+    const weigh = (name: string, grossGrams: number) => {
+      const c = containers.get(name)!;
+      return { containerId: c.id, grossGrams, tareGrams: c.tareGrams };
+    };
+    const input = createBatchInputSchema.parse({
+      recipeId,
+      cookedOn: options.today,
+      storage: s.batch.storage,
+      region: s.batch.region,
+      ingredients: recipe.ingredients.map((i, k) => ({
+        foodId: foodId.get(i.ifct ? `ifct:${i.ifct}` : `label:${i.label}`),
+        plannedGrams: i.grams,
+        actualGrams: s.batch.actualGrams[k],
+      })),
+      cookedWeight: weigh(s.batch.pot.container, s.batch.pot.grossGrams),
+      split: { mode: 'weighed', portions: s.batch.portions.map((p) => weigh(p.container, p.grossGrams)) },
+      note: 'Demo batch (invented weighings).',
+    });
+    await createBatch(profile.id, user.id, input);
+    created.push(`batch of ${recipe.title}`);
+  }
+  return { created, email: s.member.email, password };
+}
+
+/** npm start's demo step: skipped with SKIP_DEMO=1; prints what it created and a generated password once. */
+export async function runDemoStep(config: Config, env: NodeJS.ProcessEnv = process.env): Promise<void> {
+  if (env.SKIP_DEMO === '1') {
+    console.log('Demo household skipped (SKIP_DEMO=1).');
+    return;
+  }
+  if (env.DEMO_PASSWORD && env.DEMO_PASSWORD.length < 10) throw new Error('DEMO_PASSWORD must have at least 10 characters.');
+  const result = await seedDemo(config, { password: env.DEMO_PASSWORD, today: new Date().toISOString().slice(0, 10) });
+  if (result.skipped) {
+    console.log(`Demo household not seeded: ${result.skipped}.`);
+    return;
+  }
+  console.log(result.created.length ? `Demo household: created ${result.created.join(', ')}.` : 'Demo household is already present.');
+  if (result.password && !env.DEMO_PASSWORD) {
+    console.log(`Demo sign-in: ${result.email} / ${result.password}  (generated now and shown only this once; set DEMO_PASSWORD to choose it)`);
+  } else if (result.created.includes('member')) {
+    console.log(`Demo sign-in: ${result.email} with the password from DEMO_PASSWORD.`);
+  }
+}
