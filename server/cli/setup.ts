@@ -5,6 +5,7 @@
 import { loadConfig } from '../config';
 import { createSequelize, migrate } from '../db';
 import { ensureAdmin } from '../services/auth.service';
+import { ensureDefaultDataset } from '../services/imports.service';
 import { runDemoStep } from '../seed/demo';
 
 async function main() {
@@ -17,6 +18,15 @@ async function main() {
       if (config.ADMIN_PASSWORD.length < 10) throw new Error('ADMIN_PASSWORD must have at least 10 characters.');
       const { created } = await ensureAdmin(config, config.ADMIN_EMAIL, config.ADMIN_PASSWORD);
       console.log(`Admin ${config.ADMIN_EMAIL} ${created ? 'created' : 'updated'}.`);
+    }
+    if (process.env.SKIP_DEFAULT_DATASET === '1') console.log('Default food table skipped (SKIP_DEFAULT_DATASET=1).');
+    else {
+      const ifct = await ensureDefaultDataset(sequelize);
+      console.log(
+        ifct.result
+          ? `Food table: IFCT 2017 imported (${ifct.result.rowsInserted} new, ${ifct.result.rowsUpdated} updated, ${ifct.result.rowsUnchanged} unchanged).`
+          : 'Food table: IFCT 2017 already imported.',
+      );
     }
     await runDemoStep(config);
   } finally {

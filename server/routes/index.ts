@@ -3,6 +3,8 @@ import type { Sequelize } from 'sequelize';
 import type { Config } from '../config';
 import { adminRouter } from './admin.routes';
 import { authRouter } from './auth.routes';
+import { foodsRouter } from './foods.routes';
+import { importsRouter } from './imports.routes';
 import { doseRouter } from './dose.routes';
 import { profilesRouter } from './profiles.routes';
 import { batchesRouter } from './batches.routes';
@@ -19,6 +21,8 @@ export function apiRouter(config: Config, sequelize: Sequelize) {
   api.use(healthRouter(sequelize));
   api.use(authRouter(config));
   api.use(adminRouter(config));
+  api.use(foodsRouter(config));
+  api.use(importsRouter(config, sequelize));
   api.use(recipesRouter(config));
   api.use(photosRouter(config));
   api.use(profilesRouter(config));

@@ -104,6 +104,8 @@ export async function searchFoods(query: FoodSearchQuery, userId: number): Promi
   const q = normaliseSearchText(query.q);
   const words = q.split(' ').filter(Boolean).slice(0, 8);
   const offset = query.cursor ? Number(query.cursor) : 0;
+  // Text made only of punctuation (e.g. "%") matches nothing rather than everything.
+  if (!q && query.q.trim()) return { items: [], nextCursor: null };
   const profileIds = await profileIdsOf(userId);
   const repl: Record<string, unknown> = {
     userId,
