@@ -80,5 +80,5 @@ const styles = StyleSheet.create({
   label: { width: 340, maxWidth: '100%', flexDirection: 'row', borderWidth: 1, borderRadius: 8, padding: 10, gap: 8, alignItems: 'center' },
   text: { flex: 1, gap: 2 },
   code: { letterSpacing: 2, fontVariant: ['tabular-nums'] },
-  qr: { width: 104, height: 104 },
+  qr: { width: 132, height: 132 },
 });

@@ -1,5 +1,5 @@
 import { randomInt } from 'node:crypto';
-import { Op, type Transaction } from 'sequelize';
+import { literal, Op, type Transaction } from 'sequelize';
 import { computeBatch, gramsLeftToSplit, splitEqually, weighedPortionCarb, weighingDifference } from '../../shared/compute/batch';
 import { carbInBasis, type Nutrients } from '../../shared/compute/nutrients';
 import { generatePortionCode } from '../../shared/compute/portion-code';
@@ -121,20 +121,29 @@ export async function getBatch(profileId: number, id: number): Promise<BatchDeta
   };
 }
 
-/** The inventory: a profile's batches, newest first; `available` keeps only batches with portions left. */
+/** The most batches the "all" inventory returns (newest first). */
+export const INVENTORY_LIMIT = 100;
+
+/**
+ * The inventory: a profile's batches, newest cook first, each with all its portions; `available` keeps only
+ * batches with portions left. Two plain queries (no joins to hydrate), since this is the kitchen's busiest page.
+ */
 export async function listBatches(profileId: number, include: 'available' | 'all'): Promise<BatchSummary[]> {
   const units = await profileUnits(profileId);
-  const batches = await BatchModel.findAll({
-    where: { profileId },
-    include: [{ model: PortionModel, as: 'portions' }],
-    order: [
-      ['cookedOn', 'DESC'],
-      ['id', 'DESC'],
-      [{ model: PortionModel, as: 'portions' }, 'position', 'ASC'],
-    ],
+  const where =
+    include === 'available'
+      ? { profileId, id: { [Op.in]: literal(`(SELECT DISTINCT batch_id FROM portions WHERE profile_id = ${Number(profileId)} AND status = 'available')`) } }
+      : { profileId };
+  const batches = await BatchModel.findAll({ where, order: [['cookedOn', 'DESC'], ['id', 'DESC']], limit: INVENTORY_LIMIT, raw: true });
+  if (!batches.length) return [];
+  const portions = await PortionModel.findAll({
+    where: { batchId: { [Op.in]: batches.map((b) => b.id) } },
+    order: [['batchId', 'ASC'], ['position', 'ASC']],
+    raw: true,
   });
-  const out = batches.map((b) => toSummary(b, b.portions ?? [], units));
-  return include === 'all' ? out : out.filter((b) => b.counts.available > 0);
+  const byBatch = new Map<number, PortionModel[]>();
+  for (const p of portions) byBatch.set(p.batchId, [...(byBatch.get(p.batchId) ?? []), p]);
+  return batches.map((b) => toSummary(b, byBatch.get(b.id) ?? [], units));
 }
 
 type Snapshot = { foodId: number; name: string; source: string; per100g: Nutrients };

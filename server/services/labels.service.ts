@@ -11,6 +11,20 @@ export function portionUrl(origin: string, code: string): string {
 
 const unknown = 'unknown';
 
+// A URL's QR code never changes, and drawing one costs a few ms of CPU: keep the most recent ones.
+const QR_CACHE_SIZE = 2000;
+const qrCache = new Map<string, string>();
+
+/** PNG data URL of a QR code for `url` (error correction M, 4 px per module), cached. */
+export async function qrPng(url: string): Promise<string> {
+  const hit = qrCache.get(url);
+  if (hit) return hit;
+  const png = await QRCode.toDataURL(url, { errorCorrectionLevel: 'M', margin: 2, scale: 4 });
+  if (qrCache.size >= QR_CACHE_SIZE) qrCache.delete(qrCache.keys().next().value!);
+  qrCache.set(url, png);
+  return png;
+}
+
 /**
  * Builds the label sheet of a batch: one label per portion (eaten and discarded ones too, marked), numbers
  * rounded by the shared display rule (formatCarb), each with a QR code for its portion page.
@@ -20,7 +34,7 @@ export async function buildLabelSheet(profileId: number, batchId: number, origin
   const labels = await Promise.all(
     batch.portions.map(async (p) => {
       const url = portionUrl(origin, p.code);
-      const qrDataUrl = await QRCode.toDataURL(url, { errorCorrectionLevel: 'M', margin: 2, scale: 6 });
+      const qrDataUrl = await qrPng(url);
       return {
         code: p.code,
         displayCode: formatPortionCode(p.code),

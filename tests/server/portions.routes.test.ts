@@ -99,6 +99,19 @@ describe('POST /api/portions/:code/status', () => {
     expect(res.body.items[0].counts).toEqual({ available: 3, eaten: 1, discarded: 1 });
   });
 
+  it('drops a batch from the available inventory once every portion is gone, but keeps it under all', async () => {
+    const { cook, batch } = await cookedJars();
+    for (const p of batch.portions) {
+      await request(ctx.app).post(`/api/portions/${p.code}/status`).set(bearer(cook.token)).send({ status: 'eaten' });
+    }
+
+    const available = await request(ctx.app).get(`/api/profiles/${cook.profileId}/batches?include=available`).set(bearer(cook.token));
+    const all = await request(ctx.app).get(`/api/profiles/${cook.profileId}/batches?include=all`).set(bearer(cook.token));
+
+    expect(available.body.items).toEqual([]);
+    expect(all.body.items[0].counts).toEqual({ available: 0, eaten: 5, discarded: 0 });
+  });
+
   it('refuses a clinician (403), a stranger (404) and an unknown status (400)', async () => {
     const { cook, code } = await cookedJars();
     const clinician = await member('Clinician');
