@@ -4,10 +4,11 @@ import { API_BASE } from '../api/client';
 import { useTheme } from '../theme/use-theme';
 import { Text } from '../ui/text';
 
-/** A recipe photo from its signed link (the server only hands links to people who may see the recipe). */
+/** A recipe photo from its signed link (the server only hands links to people who may see the recipe); thumbnails without one show an initial. */
 export function RecipePhoto({ photo, title, size }: { photo: Photo | null; title: string; size: 'thumb' | 'large' }) {
   const t = useTheme();
   const box = size === 'thumb' ? styles.thumb : styles.large;
+  if (!photo && size === 'large') return null;
   if (!photo) {
     return (
       <View style={[box, styles.empty, { backgroundColor: t.colors.surfaceAlt, borderColor: t.colors.border }]} aria-hidden>
