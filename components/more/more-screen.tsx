@@ -43,6 +43,20 @@ export function MoreScreen() {
         </View>
       </Card>
       <Card>
+        <Text variant="heading">Food table</Text>
+        <Text color="textMuted">Search carbohydrate per 100 g and per household measure, or add a food from a package label.</Text>
+        <View style={styles.actions}>
+          <Link href="/foods" asChild>
+            <Button variant="secondary" label="Food table" />
+          </Link>
+          {user.role === 'admin' ? (
+            <Link href="/admin/imports" asChild>
+              <Button variant="secondary" label="Imports" />
+            </Link>
+          ) : null}
+        </View>
+      </Card>
+      <Card>
         <Text variant="heading">Account</Text>
         <Text color="textMuted">Role: {user.role}</Text>
         <View style={styles.actions}>

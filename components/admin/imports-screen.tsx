@@ -1,0 +1,82 @@
+import { useEffect, useState } from 'react';
+import { StyleSheet, View } from 'react-native';
+import { useMe } from '../api/auth';
+import { useImport, useImports, useStartImport } from '../api/foods';
+import { Choice } from '../foods/choice';
+import { Button } from '../ui/button';
+import { Callout } from '../ui/callout';
+import { Card } from '../ui/card';
+import { Screen } from '../ui/screen';
+import { ErrorState, LoadingState } from '../ui/states';
+import { Text } from '../ui/text';
+import { FileInput } from './file-input';
+import { ImportReport } from './import-report';
+
+const LAYOUTS = {
+  fdc: {
+    label: 'FoodData Central CSV',
+    files: 'food.csv, nutrient.csv, food_nutrient.csv, food_portion.csv, measure_unit.csv, food_category.csv, sr_legacy_food.csv',
+    accept: '.csv,text/csv',
+  },
+  sr28: { label: 'SR28 ASCII', files: 'FOOD_DES.txt, NUT_DATA.txt, NUTR_DEF.txt, WEIGHT.txt, FD_GROUP.txt', accept: '.txt,text/plain' },
+} as const;
+
+/** Admins upload USDA tables and watch the import; past imports are listed with their reports. */
+export function ImportsScreen() {
+  const me = useMe();
+  const imports = useImports();
+  const start = useStartImport();
+  const [kind, setKind] = useState<'fdc' | 'sr28'>('fdc');
+  const [files, setFiles] = useState<File[]>([]);
+  const [currentId, setCurrentId] = useState<number | null>(null);
+  const current = useImport(currentId);
+  const finished = current.data && current.data.status !== 'running' ? current.data.id : null;
+  const refetchImports = imports.refetch;
+  useEffect(() => {
+    if (finished != null) void refetchImports();
+  }, [finished, refetchImports]);
+  if (me.data && me.data.user.role !== 'admin') {
+    return (
+      <Screen title="Dataset imports" backHref="/more">
+        <Callout tone="caution" title="Admins only">Only an administrator can import food tables.</Callout>
+      </Screen>
+    );
+  }
+  if (imports.isPending) return <LoadingState />;
+  if (imports.isError) return <ErrorState error={imports.error} onRetry={() => void imports.refetch()} />;
+  const upload = () =>
+    start.mutate({ kind, files }, { onSuccess: (record) => { setCurrentId(record.id); setFiles([]); } });
+  return (
+    <Screen title="Dataset imports" subtitle="Load the USDA tables (public domain) beside the default IFCT 2017 table" backHref="/more">
+      <Card>
+        <Choice
+          label="Layout"
+          value={kind}
+          onChange={(v) => { setKind(v); setFiles([]); }}
+          options={[
+            { value: 'fdc', label: LAYOUTS.fdc.label, hint: 'SR Legacy or Foundation download' },
+            { value: 'sr28', label: LAYOUTS.sr28.label, hint: '~-quoted, ^-separated files' },
+          ]}
+        />
+        <Text color="textMuted">Files: {LAYOUTS[kind].files}</Text>
+        <FileInput files={files} onChange={setFiles} accept={LAYOUTS[kind].accept} />
+        {start.error ? <Callout tone="danger" title="Not started">{(start.error as Error).message}</Callout> : null}
+        <View style={styles.actions}>
+          <Button label="Upload and import" disabled={!files.length} loading={start.isPending} onPress={upload} />
+        </View>
+        <Text variant="caption" color="textMuted">
+          Every file is checked before anything is written; a bad file stops the import and the food table stays as it was.
+          Re-importing the same files changes nothing.
+        </Text>
+      </Card>
+      {current.data ? <ImportReport item={current.data} /> : null}
+      <Text variant="heading">Earlier imports</Text>
+      {imports.data.length === 0 ? <Text color="textMuted">No imports yet.</Text> : null}
+      {imports.data.filter((i) => i.id !== currentId).map((i) => (
+        <ImportReport key={i.id} item={i} />
+      ))}
+    </Screen>
+  );
+}
+
+const styles = StyleSheet.create({ actions: { flexDirection: 'row', gap: 12 } });

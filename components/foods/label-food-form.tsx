@@ -1,0 +1,123 @@
+import { useEffect, useState } from 'react';
+import { Controller, useForm, useWatch } from 'react-hook-form';
+import { StyleSheet, View } from 'react-native';
+import type { CreateLabelFoodValues } from '../../shared/schemas/food';
+import type { LabelPhotoFile } from '../api/foods';
+import { applyServerErrors } from '../ui/form-errors';
+import { Button } from '../ui/button';
+import { Callout } from '../ui/callout';
+import { Card } from '../ui/card';
+import { FormTextField } from '../ui/form-text-field';
+import { Text } from '../ui/text';
+import { Choice } from './choice';
+import { emptyLabelFood, LABEL_FOOD_FIELDS, labelFoodResolver, parseLabelFood, type LabelFoodFormValues } from './label-food-form-values';
+import { PhotoInput } from './photo-input';
+
+export type ShareOption = { profileId: number | null; label: string };
+
+type Props = {
+  onSubmit: (values: CreateLabelFoodValues, photo: LabelPhotoFile | null) => void;
+  submitting?: boolean;
+  /** The error of the last submit, if any: field errors are placed on their fields. */
+  submitError?: unknown;
+  shareOptions: ShareOption[];
+  defaultValues?: LabelFoodFormValues;
+};
+
+/** The add-a-label-food form: values as printed, per 100 g or per serving, with the label's carbohydrate convention. */
+export function LabelFoodForm({ onSubmit, submitting, submitError, shareOptions, defaultValues = emptyLabelFood }: Props) {
+  const form = useForm<LabelFoodFormValues>({ resolver: labelFoodResolver, defaultValues, mode: 'onSubmit' });
+  const [photo, setPhoto] = useState<LabelPhotoFile | null>(null);
+  const [share, setShare] = useState<string>('private');
+  const [formError, setFormError] = useState<string | undefined>();
+  const basis = useWatch({ control: form.control, name: 'basis' });
+  const convention = useWatch({ control: form.control, name: 'convention' });
+  const per = basis === 'perServing' ? 'per serving' : 'per 100 g';
+
+  useEffect(() => {
+    if (submitError) setFormError(applyServerErrors(submitError, form.setError, LABEL_FOOD_FIELDS));
+  }, [submitError, form.setError]);
+
+  const submit = form.handleSubmit((values) => {
+    setFormError(undefined);
+    const parsed = parseLabelFood(values);
+    const chosen = shareOptions.find((o) => String(o.profileId ?? 'private') === share);
+    onSubmit({ ...parsed, sharedProfileId: chosen?.profileId ?? null }, photo);
+  });
+
+  return (
+    <View style={styles.wrap}>
+      <Card>
+        <FormTextField control={form.control} name="name" label="Food name" placeholder="e.g. Rolled oat crackers" />
+        <FormTextField control={form.control} name="brand" label="Brand (optional)" />
+      </Card>
+      <Card>
+        <Controller
+          control={form.control}
+          name="basis"
+          render={({ field }) => (
+            <Choice
+              label="The label's values are"
+              value={field.value}
+              onChange={field.onChange}
+              options={[
+                { value: 'per100g', label: 'Per 100 g' },
+                { value: 'perServing', label: 'Per serving', hint: 'We convert to per 100 g from the serving weight.' },
+              ]}
+            />
+          )}
+        />
+        {basis === 'perServing' ? <FormTextField control={form.control} name="servingGrams" label="Serving weight" unit="g" keyboardType="decimal-pad" /> : null}
+        <Controller
+          control={form.control}
+          name="convention"
+          render={({ field }) => (
+            <Choice
+              label="Kind of label"
+              value={field.value}
+              onChange={field.onChange}
+              options={[
+                { value: 'eu', label: 'EU / UK “Carbohydrate”', hint: 'Available carbohydrate: fibre is listed separately, not included.' },
+                { value: 'us', label: 'US “Total carbohydrate”', hint: 'Fibre is included in the total.' },
+              ]}
+            />
+          )}
+        />
+      </Card>
+      <Card>
+        <Text variant="heading">Values {per}, as printed</Text>
+        <FormTextField
+          control={form.control}
+          name="carbohydrate"
+          label={convention === 'us' ? 'Total carbohydrate' : 'Carbohydrate'}
+          unit="g"
+          keyboardType="decimal-pad"
+        />
+        <FormTextField control={form.control} name="fibre" label="Fibre" unit="g" keyboardType="decimal-pad" hint="Leave blank if the label does not give it." />
+        <FormTextField control={form.control} name="sugars" label="of which sugars" unit="g" keyboardType="decimal-pad" />
+        <FormTextField control={form.control} name="protein" label="Protein" unit="g" keyboardType="decimal-pad" />
+        <FormTextField control={form.control} name="fat" label="Fat" unit="g" keyboardType="decimal-pad" />
+        <FormTextField control={form.control} name="energyKcal" label="Energy" unit="kcal" keyboardType="decimal-pad" />
+      </Card>
+      <Card>
+        <Text variant="heading">Photo of the label</Text>
+        <PhotoInput value={photo} onChange={setPhoto} />
+        {shareOptions.length > 1 ? (
+          <Choice
+            label="Who can use this food"
+            value={share}
+            onChange={setShare}
+            options={shareOptions.map((o) => ({ value: String(o.profileId ?? 'private'), label: o.label }))}
+          />
+        ) : null}
+      </Card>
+      <Callout tone="info" title="Check against the pack">
+        Label values are the maker&apos;s declaration and are rounded; Carbwright uses them exactly as you type them.
+      </Callout>
+      {formError ? <Callout tone="danger" title="Not saved">{formError}</Callout> : null}
+      <Button label="Save label food" size="lg" loading={submitting} onPress={() => void submit()} />
+    </View>
+  );
+}
+
+const styles = StyleSheet.create({ wrap: { gap: 16 } });
