@@ -150,7 +150,6 @@ export function DoseCheckScreen({ carbs, portion, label }: DoseCheckParams) {
 
   return (
     <Screen title="Check a dose" subtitle={`For ${profile.displayName}`} backHref="/">
-      <DoseCaution />
       {!ready ? (
         <Callout tone="caution" title="No dose can be suggested yet">
           <Text>
@@ -168,7 +167,7 @@ export function DoseCheckScreen({ carbs, portion, label }: DoseCheckParams) {
         </Text>
       ) : null}
       <View style={[styles.columns, isWide && styles.columnsWide]}>
-        <View style={styles.column}>
+        <View style={[styles.column, isWide && styles.columnWide]}>
           <Card>
             <FormTextField
               control={form.control}
@@ -184,10 +183,10 @@ export function DoseCheckScreen({ carbs, portion, label }: DoseCheckParams) {
             />
             <View style={styles.pair}>
               <View style={styles.grow}>
-                <FormTextField control={form.control} name="glucose" label="Glucose now" unit={unit} inputMode="decimal" hint="Leave empty if you have no reading: the correction is then left out." />
+                <FormTextField control={form.control} name="glucose" style={styles.input} label="Glucose now" unit={unit} inputMode="decimal" hint="Leave empty if you have no reading: the correction is then left out." />
               </View>
               <View style={styles.grow}>
-                <FormTextField control={form.control} name="glucoseMinutesAgo" label="Reading taken" unit="minutes ago" inputMode="numeric" />
+                <FormTextField control={form.control} name="glucoseMinutesAgo" style={styles.input} label="Reading taken" unit="min ago" inputMode="numeric" />
               </View>
             </View>
             <FormTextField control={form.control} name="localTime" label="Meal time" placeholder="12:30" hint="Chooses the time block of the day kind." />
@@ -229,19 +228,19 @@ export function DoseCheckScreen({ carbs, portion, label }: DoseCheckParams) {
             {intensity !== 'none' ? (
               <View style={styles.pair}>
                 <View style={styles.grow}>
-                  <FormTextField control={form.control} name="exerciseDuration" label="For how long" unit="min" inputMode="numeric" />
+                  <FormTextField control={form.control} name="exerciseDuration" style={styles.input} label="For how long" unit="min" inputMode="numeric" />
                 </View>
                 <View style={styles.grow}>
-                  <FormTextField control={form.control} name="exerciseStartsIn" label="Starting in" unit="min" inputMode="numeric" />
+                  <FormTextField control={form.control} name="exerciseStartsIn" style={styles.input} label="Starting in" unit="min" inputMode="numeric" />
                 </View>
               </View>
             ) : null}
             <View style={styles.pair}>
               <View style={styles.grow}>
-                <FormTextField control={form.control} name="earlierUnits" label="Rapid insulin taken recently" unit="units" inputMode="decimal" hint="Leave empty if none within your action time." />
+                <FormTextField control={form.control} name="earlierUnits" style={styles.input} label="Rapid insulin taken recently" unit="units" inputMode="decimal" hint="Leave empty if none within your action time." />
               </View>
               <View style={styles.grow}>
-                <FormTextField control={form.control} name="earlierMinutesAgo" label="Taken" unit="minutes ago" inputMode="numeric" />
+                <FormTextField control={form.control} name="earlierMinutesAgo" style={styles.input} label="Taken" unit="min ago" inputMode="numeric" />
               </View>
             </View>
             <Controller
@@ -259,26 +258,27 @@ export function DoseCheckScreen({ carbs, portion, label }: DoseCheckParams) {
             {splitOn ? (
               <View style={styles.pair}>
                 <View style={styles.grow}>
-                  <FormTextField control={form.control} name="splitNow" label="Now" unit="%" inputMode="numeric" />
+                  <FormTextField control={form.control} name="splitNow" style={styles.input} label="Now" unit="%" inputMode="numeric" />
                 </View>
                 <View style={styles.grow}>
-                  <FormTextField control={form.control} name="splitLater" label="Rest after" unit="min" inputMode="numeric" />
+                  <FormTextField control={form.control} name="splitLater" style={styles.input} label="Rest after" unit="min" inputMode="numeric" />
                 </View>
               </View>
             ) : null}
             <View style={styles.pair}>
               <View style={styles.grow}>
-                <FormTextField control={form.control} name="fatGrams" label="Fat (optional)" unit="g" inputMode="decimal" />
+                <FormTextField control={form.control} name="fatGrams" style={styles.input} label="Fat (optional)" unit="g" inputMode="decimal" />
               </View>
               <View style={styles.grow}>
-                <FormTextField control={form.control} name="proteinGrams" label="Protein (optional)" unit="g" inputMode="decimal" />
+                <FormTextField control={form.control} name="proteinGrams" style={styles.input} label="Protein (optional)" unit="g" inputMode="decimal" />
               </View>
             </View>
           </Card>
           {formError ? <Callout tone="danger" title="Not worked out">{formError}</Callout> : null}
           <Button label="Work out a dose" size="lg" loading={suggest.isPending} onPress={onSubmit} />
         </View>
-        <View style={styles.column} aria-live="polite">
+        <View style={[styles.column, isWide && styles.columnWide]} aria-live="polite">
+          <DoseCaution />
           {suggest.data ? (
             <DoseBreakdownView result={suggest.data} />
           ) : (
@@ -293,7 +293,9 @@ export function DoseCheckScreen({ carbs, portion, label }: DoseCheckParams) {
 const styles = StyleSheet.create({
   columns: { gap: 16 },
   columnsWide: { flexDirection: 'row', alignItems: 'flex-start' },
-  column: { flex: 1, gap: 16 },
+  column: { gap: 16 },
+  columnWide: { flex: 1 },
   pair: { flexDirection: 'row', gap: 12, flexWrap: 'wrap' },
   grow: { flex: 1, minWidth: 140 },
+  input: { minWidth: 0 },
 });

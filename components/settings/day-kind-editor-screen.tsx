@@ -1,4 +1,4 @@
-import { router } from 'expo-router';
+import { leaveTo } from './leave-to';
 import { useState } from 'react';
 import type { FieldPath } from 'react-hook-form';
 import type { DayKind, DayKindFormValues } from '../../shared/schemas/profile-settings';
@@ -54,7 +54,7 @@ export function DayKindEditorScreen({ id }: { id: string }) {
         onSubmit={(input, form) => {
           setFormError(undefined);
           save.mutate(input, {
-            onSuccess: () => router.replace('/settings/day-kinds'),
+            onSuccess: () => leaveTo('/settings/day-kinds'),
             onError: (error) => setFormError(applyServerErrors(error, form.setError, [...fields(), ...input.blocks.flatMap((_, i) => [`blocks.${i}.from`, `blocks.${i}.to`, `blocks.${i}.carbRatio`, `blocks.${i}.correctionFactor`] as FieldPath<DayKindFormValues>[])])),
           });
         }}
@@ -66,7 +66,7 @@ export function DayKindEditorScreen({ id }: { id: string }) {
           loading={remove.isPending}
           onPress={() =>
             remove.mutate(kind.id, {
-              onSuccess: () => router.replace('/settings/day-kinds'),
+              onSuccess: () => leaveTo('/settings/day-kinds'),
               onError: (error) => setFormError(error instanceof ApiError ? error.message : 'Could not delete.'),
             })
           }

@@ -83,7 +83,7 @@ export function DayKindForm({
                 <FormTextField control={form.control} name={`blocks.${i}.to`} label={`Block ${i + 1} to`} placeholder="24:00" />
               </View>
               <View style={styles.field}>
-                <FormTextField control={form.control} name={`blocks.${i}.carbRatio`} label={`Block ${i + 1} ratio`} unit="g per unit" inputMode="decimal" />
+                <FormTextField control={form.control} name={`blocks.${i}.carbRatio`} label={`Block ${i + 1} ratio`} unit="g per unit" inputMode="decimal" style={styles.input} />
               </View>
               <View style={styles.field}>
                 <FormTextField
@@ -92,6 +92,7 @@ export function DayKindForm({
                   label={`Block ${i + 1} correction factor`}
                   unit={`${unit} per unit`}
                   inputMode="decimal"
+                  style={styles.input}
                 />
               </View>
             </View>
@@ -122,4 +123,5 @@ const styles = StyleSheet.create({
   fieldsWide: { flexDirection: 'row', flex: 1, gap: 12 },
   field: { flex: 1, minWidth: 120 },
   row: { flexDirection: 'row', gap: 12 },
+  input: { minWidth: 0 },
 });

@@ -201,8 +201,8 @@ export function UnitsSafetyForm({
             <Text weight="bold" style={styles.intensity}>
               {INTENSITY_WORDS[k]}
             </Text>
-            <FormTextField control={form.control} name={`exerciseReductions.${k}.min30`} label="About 30 min" unit="%" inputMode="decimal" />
-            <FormTextField control={form.control} name={`exerciseReductions.${k}.min60`} label="About 60 min" unit="%" inputMode="decimal" />
+            <FormTextField control={form.control} name={`exerciseReductions.${k}.min30`} label="About 30 min" unit="%" inputMode="decimal" style={styles.input} />
+            <FormTextField control={form.control} name={`exerciseReductions.${k}.min60`} label="About 60 min" unit="%" inputMode="decimal" style={styles.input} />
           </View>
         ))}
       </Card>
@@ -216,4 +216,5 @@ const styles = StyleSheet.create({
   grid: { gap: 12 },
   gridWide: { flexDirection: 'row', flexWrap: 'wrap', alignItems: 'flex-end' },
   intensity: { minWidth: 200, flexBasis: '100%' },
+  input: { minWidth: 0 },
 });

@@ -1,4 +1,4 @@
-import { router } from 'expo-router';
+import { leaveTo } from './leave-to';
 import { useState } from 'react';
 import { DEFAULT_EXERCISE_REDUCTIONS } from '../../shared/compute/exercise';
 import { glucoseFromMmol } from '../../shared/compute/units';
@@ -62,7 +62,7 @@ export function UnitsSafetyScreen() {
         onSubmit={(values, form) => {
           setFormError(undefined);
           save.mutate(values, {
-            onSuccess: () => router.replace('/settings'),
+            onSuccess: () => leaveTo('/settings'),
             onError: (error) => setFormError(applyServerErrors(error, form.setError, SETTINGS_FIELDS)),
           });
         }}
