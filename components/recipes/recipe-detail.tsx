@@ -145,6 +145,7 @@ function RecipeBody({ recipe, factor, onScale }: { recipe: Detail; factor: numbe
             <PhotoPicker label={recipe.photo ? 'Change photo' : 'Add photo'} onPick={(file) => photo.mutate(file)} loading={photo.isPending} />
           </>
         ) : null}
+        <Button variant="secondary" label="Cook a batch" onPress={() => router.push(`/kitchen/cook/${recipe.id}` as never)} />
         <Button
           variant="secondary"
           label={recipe.isOwner ? 'Duplicate' : 'Copy to my recipes'}

@@ -82,6 +82,11 @@ describe('recipes in the browser', () => {
     await page.getByTestId('carb-per-portion').getByText('36 g').waitFor();
     await page.getByTestId('carb-per-100g').getByText('19 g').waitFor();
     await rig.shot(page, 'phone-recipe-page');
+    const png = await page.screenshot({ clip: { x: 0, y: 0, width: 390, height: 240 } });
+    await page.getByTestId('recipe-photo-input').setInputFiles({ name: 'oats.png', mimeType: 'image/png', buffer: png });
+    await page.getByRole('button', { name: 'Change photo' }).waitFor({ timeout: 60_000 });
+    await page.getByLabel('Photo of Overnight oats jars', { exact: true }).last().waitFor();
+    await page.getByRole('button', { name: 'Change photo' }).waitFor();
     await page.getByRole('button', { name: '× 2' }).click();
     await page.getByText('Per portion (1 of 6)').waitFor();
     await page.getByText('480 g').first().waitFor();

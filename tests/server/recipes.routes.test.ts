@@ -232,4 +232,26 @@ describe('GET /api/recipes', () => {
     expect(res.status).toBe(200);
     expect(res.body.items).toEqual([]);
   });
+
+  it('sorts by when the user last cooked each recipe, never-cooked last', async () => {
+    const cook = await signUpUser(ctx.app, 'Batcher');
+    const profileId = cook.me.profiles[0].id;
+    const a = await createRecipeAs(ctx.app, cook.token, oatsRecipe(foods, { title: 'Cooked long ago' }));
+    const b = await createRecipeAs(ctx.app, cook.token, oatsRecipe(foods, { title: 'Never cooked' }));
+    const c = await createRecipeAs(ctx.app, cook.token, oatsRecipe(foods, { title: 'Cooked yesterday' }));
+    const batch = (recipeId: number, at: string) =>
+      ctx.sequelize.query(
+        `INSERT INTO batches (profile_id, recipe_id, recipe_title, cooked_by_user_id, cooked_on, storage, use_by, use_by_source,
+           raw_grams, cooked_gross_grams, pot_tare_grams, cooked_grams, split_mode, totals, per100g, created_at, updated_at)
+         VALUES (:profileId, :recipeId, 'x', :userId, :at, 'fridge', :at, 'test', 1000, 1500, 500, 1000, 'equal', '{}', '{}', :at, :at)`,
+        { replacements: { profileId, recipeId, userId: cook.me.user.id, at } },
+      );
+    await batch(a.id, '2026-01-05T12:00:00Z');
+    await batch(c.id, '2026-11-30T12:00:00Z');
+
+    const res = await request(ctx.app).get('/api/recipes?sort=cooked').set(bearer(cook.token));
+
+    expect(res.body.items.map((r: { id: number }) => r.id)).toEqual([c.id, a.id, b.id]);
+    expect(res.body.items[0].lastCookedAt).toBe('2026-11-30T12:00:00.000Z');
+  });
 });
