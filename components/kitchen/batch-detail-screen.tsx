@@ -54,7 +54,7 @@ export function BatchDetailScreen({ id }: { id: number }) {
         {canEdit ? (
           <Button
             variant="secondary"
-            label={b.storage === 'fridge' ? 'Moved to the freezer' : 'Moved to the fridge'}
+            label={b.storage === 'fridge' ? 'Move to the freezer' : 'Move to the fridge'}
             loading={update.isPending}
             onPress={() => update.mutate({ storage: b.storage === 'fridge' ? 'freezer' : 'fridge' })}
           />

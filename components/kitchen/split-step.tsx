@@ -73,10 +73,10 @@ export function SplitStep({ state, containers, batch, unit, errors, onChange, on
               ) : null}
               <View style={styles.pair}>
                 <View style={styles.grow}>
-                  <TextField label={`Empty container ${i + 1} (tare)`} unit="g" keyboardType="decimal-pad" value={jar.tare} onChangeText={(tare) => setJar(i, { ...jar, tare })} error={errors[`split.portions.${i}.tareGrams`]} />
+                  <TextField label={`Empty container ${i + 1} (tare)`} unit="g" keyboardType="decimal-pad" value={jar.tare} onChangeText={(tare) => setJar(i, { ...jar, tare })} error={errors[`split.portions.${i}.tareGrams`]} style={styles.input} />
                 </View>
                 <View style={styles.grow}>
-                  <TextField label={`Full container ${i + 1} (gross)`} unit="g" keyboardType="decimal-pad" value={jar.gross} onChangeText={(gross) => setJar(i, { ...jar, gross })} error={errors[`split.portions.${i}.grossGrams`]} />
+                  <TextField label={`Full container ${i + 1} (gross)`} unit="g" keyboardType="decimal-pad" value={jar.gross} onChangeText={(gross) => setJar(i, { ...jar, gross })} error={errors[`split.portions.${i}.grossGrams`]} style={styles.input} />
                 </View>
               </View>
               <Text>
@@ -111,6 +111,7 @@ export function SplitStep({ state, containers, batch, unit, errors, onChange, on
 const styles = StyleSheet.create({
   jar: { gap: 8, paddingVertical: 8 },
   pair: { flexDirection: 'row', gap: 12, flexWrap: 'wrap' },
-  grow: { flexGrow: 1, flexBasis: 140 },
+  grow: { flexGrow: 1, flexBasis: 140, minWidth: 0 },
+  input: { minWidth: 0, width: '100%' },
   row: { flexDirection: 'row', flexWrap: 'wrap', gap: 8, alignItems: 'center' },
 });

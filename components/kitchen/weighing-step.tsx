@@ -142,7 +142,7 @@ const styles = StyleSheet.create({
   stack: { gap: 12 },
   numbers: { flexDirection: 'row', gap: 32, flexWrap: 'wrap' },
   row: { flexDirection: 'row', flexWrap: 'wrap', gap: 8, alignItems: 'center' },
-  big: { fontSize: 28 },
+  big: { fontSize: 28, minWidth: 0, width: '100%' },
   list: { gap: 6 },
   item: { flexDirection: 'row', borderWidth: 1, borderRadius: 10, padding: 10, gap: 8 },
   grow: { flex: 1 },
