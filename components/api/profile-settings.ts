@@ -1,5 +1,5 @@
 import { queryOptions, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
-import type { DayKind, DayKindInput, ProfileSettingsInput, ProfileSettingsView, SettingsChange } from '../../shared/schemas/profile-settings';
+import type { DayKind, DayKindDay, DayKindInput, ProfileSettingsInput, ProfileSettingsView, SettingsChange } from '../../shared/schemas/profile-settings';
 import { authKeys } from './auth';
 import { apiFetch } from './client';
 
@@ -8,6 +8,7 @@ export const settingsKeys = {
   settings: (profileId: number) => [...settingsKeys.all, profileId, 'settings'] as const,
   dayKinds: (profileId: number) => [...settingsKeys.all, profileId, 'day-kinds'] as const,
   history: (profileId: number) => [...settingsKeys.all, profileId, 'history'] as const,
+  days: (profileId: number, from: string, to: string) => [...settingsKeys.all, profileId, 'days', from, to] as const,
 };
 
 export const fetchSettings = (profileId: number) => apiFetch<ProfileSettingsView>(`/profiles/${profileId}/settings`);
@@ -65,5 +66,14 @@ export function useDeleteDayKind(profileId: number) {
   return useMutation({
     mutationFn: (dayKindId: number) => apiFetch<void>(`/profiles/${profileId}/day-kinds/${dayKindId}`, { method: 'DELETE' }),
     onSuccess: invalidate,
+  });
+}
+
+/** The day kind in force on each date from..to ("YYYY-MM-DD", inclusive). */
+export function useDayKindDays(profileId: number | undefined, from: string, to: string) {
+  return useQuery({
+    queryKey: settingsKeys.days(profileId ?? 0, from, to),
+    queryFn: () => apiFetch<{ days: DayKindDay[] }>(`/profiles/${profileId}/days?from=${from}&to=${to}`).then((r) => r.days),
+    enabled: !!profileId,
   });
 }

@@ -7,7 +7,7 @@ import { doseRequestSchema } from '../../shared/schemas/dose';
 import { useActiveProfile } from '../api/auth';
 import { ApiError } from '../api/client';
 import { useDoseSuggestion } from '../api/dose';
-import { useDayKinds, useProfileSettings } from '../api/profile-settings';
+import { useDayKindDays, useDayKinds, useProfileSettings } from '../api/profile-settings';
 import { ChoiceGroup } from '../settings/choice-group';
 import { useLayout } from '../theme/use-theme';
 import { Button } from '../ui/button';
@@ -53,6 +53,7 @@ const FIELD_OF: Record<string, FieldPath<Values>> = {
   proteinGrams: 'proteinGrams',
 };
 
+const ymd = (d: Date) => `${d.getFullYear()}-${String(d.getMonth() + 1).padStart(2, '0')}-${String(d.getDate()).padStart(2, '0')}`;
 const hhmm = (d: Date) => `${String(d.getHours()).padStart(2, '0')}:${String(d.getMinutes()).padStart(2, '0')}`;
 const blank = (s: string) => s.trim() === '';
 
@@ -63,6 +64,8 @@ export function DoseCheckScreen({ carbs, portion, label }: DoseCheckParams) {
   const { profile, isPending } = useActiveProfile();
   const settings = useProfileSettings(profile?.id);
   const kinds = useDayKinds(profile?.id);
+  const [today] = useState(() => ymd(new Date()));
+  const todayKind = useDayKindDays(profile?.id, today, today);
   const suggest = useDoseSuggestion(profile?.id ?? 0);
   const { isWide } = useLayout();
   const [formError, setFormError] = useState<string>();
@@ -85,7 +88,7 @@ export function DoseCheckScreen({ carbs, portion, label }: DoseCheckParams) {
       proteinGrams: '',
     },
   });
-  const defaultKind = kinds.data?.find((k) => k.isDefault)?.id ?? null;
+  const defaultKind = todayKind.isPending ? null : (todayKind.data?.[0]?.dayKindId ?? kinds.data?.find((k) => k.isDefault)?.id ?? null);
   useEffect(() => {
     if (defaultKind != null && form.getValues('dayKindId') == null) form.setValue('dayKindId', defaultKind);
   }, [defaultKind, form]);
@@ -118,6 +121,7 @@ export function DoseCheckScreen({ carbs, portion, label }: DoseCheckParams) {
       mealAt: new Date(now).toISOString(),
       localTime: v.localTime,
       dayKindId: v.dayKindId,
+      date: today,
       earlierDoses: blank(v.earlierUnits) ? [] : [{ units: v.earlierUnits, takenAt: minutesAgo(v.earlierMinutesAgo) }],
       exercise: v.exerciseIntensity === 'none' ? null : { intensity: v.exerciseIntensity, durationMinutes: v.exerciseDuration, startsInMinutes: v.exerciseStartsIn },
       split: v.splitOn ? { nowPercent: v.splitNow, laterMinutes: v.splitLater } : null,

@@ -13,6 +13,7 @@ import { RecipeShareModel } from './recipe-share.model';
 import { RecipeModel } from './recipe.model';
 import { RevokedTokenModel } from './revoked-token.model';
 import { UserModel } from './user.model';
+import { DayKindDayModel } from './day-kind-day.model';
 import { DayKindModel } from './day-kind.model';
 import { ProfileSettingsModel } from './profile-settings.model';
 import { RatioBlockModel } from './ratio-block.model';
@@ -20,7 +21,7 @@ import { SettingsChangeModel } from './settings-change.model';
 
 export { DatasetImportModel, FoodMeasureModel, FoodModel };
 export { ProfileAccessModel, ProfileModel, RevokedTokenModel, UserModel };
-export { DayKindModel, ProfileSettingsModel, RatioBlockModel, SettingsChangeModel };
+export { DayKindDayModel, DayKindModel, ProfileSettingsModel, RatioBlockModel, SettingsChangeModel };
 export { BatchIngredientModel, BatchModel, ContainerModel, PortionModel };
 export { RecipeIngredientModel, RecipeModel, RecipeShareModel };
 
@@ -32,6 +33,7 @@ export function initModels(sequelize: Sequelize): void {
   RevokedTokenModel.initModel(sequelize);
   ProfileSettingsModel.initModel(sequelize);
   DayKindModel.initModel(sequelize);
+  DayKindDayModel.initModel(sequelize);
   RatioBlockModel.initModel(sequelize);
   SettingsChangeModel.initModel(sequelize);
   ContainerModel.initModel(sequelize);
@@ -50,6 +52,7 @@ export function initModels(sequelize: Sequelize): void {
   ProfileAccessModel.belongsTo(UserModel, { as: 'user', foreignKey: 'userId' });
   ProfileModel.hasMany(ProfileAccessModel, { as: 'accesses', foreignKey: 'profileId' });
   DayKindModel.hasMany(RatioBlockModel, { as: 'blocks', foreignKey: 'dayKindId' });
+  DayKindDayModel.belongsTo(DayKindModel, { as: 'dayKind', foreignKey: 'dayKindId' });
   SettingsChangeModel.belongsTo(UserModel, { as: 'user', foreignKey: 'userId' });
   RecipeModel.belongsTo(UserModel, { as: 'owner', foreignKey: 'ownerUserId' });
   RecipeModel.hasMany(RecipeIngredientModel, { as: 'ingredients', foreignKey: 'recipeId' });

@@ -1,9 +1,17 @@
 import { Router } from 'express';
 import { z } from 'zod';
-import { dayKindIdParamSchema, dayKindInputSchema, profileSettingsInputSchema } from '../../shared/schemas/profile-settings';
+import {
+  dayKindDayInputSchema,
+  dayKindDayParamSchema,
+  dayKindDaysQuerySchema,
+  dayKindIdParamSchema,
+  dayKindInputSchema,
+  profileSettingsInputSchema,
+} from '../../shared/schemas/profile-settings';
 import type { Config } from '../config';
 import { requireAuth, requireProfileAccess } from '../middleware/auth';
 import { validate } from '../middleware/validate';
+import { listDayKindDays, setDayKindDay } from '../services/day-kind-days.service';
 import {
   createDayKind,
   deleteDayKind,
@@ -47,6 +55,14 @@ export function profilesRouter(config: Config) {
     const { profileId, dayKindId } = req.params as unknown as z.infer<typeof dayKindIdParamSchema>;
     await deleteDayKind(profileId, dayKindId, req.auth!.user.id);
     res.status(204).end();
+  });
+  router.get(`${base}/days`, auth, access, validate({ params: profileParams, query: dayKindDaysQuerySchema }), async (req, res) => {
+    const { from, to } = req.query as unknown as z.infer<typeof dayKindDaysQuerySchema>;
+    res.json({ days: await listDayKindDays(Number(req.params.profileId), from, to) });
+  });
+  router.put(`${base}/days/:date`, auth, access, validate({ params: dayKindDayParamSchema, body: dayKindDayInputSchema }), async (req, res) => {
+    const { profileId, date } = req.params as unknown as z.infer<typeof dayKindDayParamSchema>;
+    res.json(await setDayKindDay(profileId, date, req.auth!.user.id, req.body));
   });
   return router;
 }

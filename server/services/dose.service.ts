@@ -3,6 +3,7 @@ import { glucoseToMmol } from '../../shared/compute/units';
 import type { DoseRequest, DoseSuggestion } from '../../shared/schemas/dose';
 import { timeToMinutes } from '../../shared/schemas/profile-settings';
 import { AppError } from '../errors';
+import { dayKindIdForDate } from './day-kind-days.service';
 import { loadDoseContext } from './profile-settings.service';
 
 /** Plausible glucose readings, mmol/L; anything outside is a typing slip, not a reading. */
@@ -13,7 +14,8 @@ const GLUCOSE_READING_MMOL = [1, 40] as const;
  * the request's unit (default the profile's); a missing reading time means "now".
  */
 export async function suggestDose(profileId: number, input: DoseRequest, now: Date = new Date()): Promise<DoseSuggestion> {
-  const { profile, settings, dayKind } = await loadDoseContext(profileId, input.dayKindId);
+  const dayKindId = input.dayKindId ?? (input.date ? await dayKindIdForDate(profileId, input.date) : null);
+  const { profile, settings, dayKind } = await loadDoseContext(profileId, dayKindId);
   const unit = input.glucoseUnit ?? profile.glucoseUnit;
   const mealAt = input.mealAt ? new Date(input.mealAt) : now;
   const glucoseTakenAt = input.glucose != null ? (input.glucoseTakenAt ? new Date(input.glucoseTakenAt) : now) : null;

@@ -1,7 +1,7 @@
 import { z } from 'zod';
 import type { DoseResult } from '../compute/dose';
 import { EXERCISE_INTENSITIES } from '../compute/exercise';
-import { numberField, optionalNumberField, timeOfDaySchema } from './profile-settings';
+import { localDateSchema, numberField, optionalNumberField, timeOfDaySchema } from './profile-settings';
 import { carbBasisSchema, carbUnitSchema, glucoseUnitSchema } from './units';
 
 const isoDate = z.iso.datetime({ offset: true, error: 'Use a date and time such as 2026-03-01T12:30:00Z.' });
@@ -18,6 +18,8 @@ export const doseRequestSchema = z
     mealAt: isoDate.optional(),
     localTime: timeOfDaySchema.refine((t) => t !== '24:00', 'Use a time from 00:00 to 23:59.'),
     dayKindId: z.number().int().positive('Not a valid day kind.').nullable().optional(),
+    /** The person's local date of the meal: picks the day kind set for it (the plan's), when dayKindId is not given. */
+    date: localDateSchema.optional(),
     earlierDoses: z
       .array(
         z.object({

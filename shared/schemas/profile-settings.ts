@@ -198,3 +198,28 @@ export type SettingsChange = {
   createdAt: string;
   changes: { field: string; from: unknown; to: unknown }[];
 };
+
+/** A local calendar date, "YYYY-MM-DD". */
+export const localDateSchema = z
+  .string()
+  .regex(/^\d{4}-\d{2}-\d{2}$/, 'Use a date such as 2026-03-01.')
+  .refine((d) => !Number.isNaN(Date.parse(`${d}T00:00:00Z`)) && new Date(`${d}T00:00:00Z`).toISOString().startsWith(d), 'That date does not exist.');
+
+export const dayKindDayParamSchema = z.object({
+  profileId: z.coerce.number().int().positive('Not a valid id.'),
+  date: localDateSchema,
+});
+
+/** Give a date a day kind; null puts it back to the default kind. */
+export const dayKindDayInputSchema = z.object({
+  dayKindId: z.number({ error: 'Choose a day kind, or null for the default.' }).int().positive('Not a valid day kind.').nullable(),
+});
+export type DayKindDayInput = z.infer<typeof dayKindDayInputSchema>;
+
+export const dayKindDaysQuerySchema = z
+  .object({ from: localDateSchema, to: localDateSchema })
+  .refine((q) => q.from <= q.to, { path: ['to'], message: 'The end date must not be before the start date.' })
+  .refine((q) => (Date.parse(q.to) - Date.parse(q.from)) / 86_400_000 < 62, { path: ['to'], message: 'Ask for at most 62 days at a time.' });
+
+/** The day kind in force on a date: set for that date, or the default (dayKindId null when there are no day kinds). */
+export type DayKindDay = { date: string; dayKindId: number | null; dayKindName: string | null; isSet: boolean };

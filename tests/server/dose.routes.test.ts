@@ -73,6 +73,17 @@ describe('POST /api/profiles/:profileId/dose-suggestions', () => {
     expect(training.body).toMatchObject({ status: 'ok', dayKind: { name: 'Training' }, breakdown: { carbRatio: 15, doseUnits: 2.5 } });
   });
 
+  it('uses the day kind set for the meal date when no day kind is named', async () => {
+    const p = await setUpProfile();
+    await request(ctx.app).put(`/api/profiles/${p.profileId}/days/2026-03-03`).set(bearer(p.token)).send({ dayKindId: p.trainingId }).expect(200);
+
+    const planned = await request(ctx.app).post(`/api/profiles/${p.profileId}/dose-suggestions`).set(bearer(p.token)).send({ carbsGrams: 42, localTime: '12:30', date: '2026-03-03' });
+    const other = await request(ctx.app).post(`/api/profiles/${p.profileId}/dose-suggestions`).set(bearer(p.token)).send({ carbsGrams: 42, localTime: '12:30', date: '2026-03-04' });
+
+    expect(planned.body.dayKind.name).toBe('Training');
+    expect(other.body.dayKind.name).toBe('Rest');
+  });
+
   it('adds a correction above range and subtracts active insulin from it (T11: 6.0 + 2.0 − 1.5 = 6.5 U)', async () => {
     const p = await setUpProfile();
     const t = now();

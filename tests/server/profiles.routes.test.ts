@@ -279,3 +279,44 @@ describe('GET /api/profiles/:profileId/settings/history', () => {
     expect((await request(ctx.app).get(`/api/profiles/${o.profileId}/settings/history`).set(bearer(stranger.token))).status).toBe(404);
   });
 });
+
+describe('days given a day kind', () => {
+  it('gives a date another kind, lists the range with the default elsewhere, and puts it back', async () => {
+    const o = await owner();
+    const rest = await request(ctx.app).post(`/api/profiles/${o.profileId}/day-kinds`).set(bearer(o.token)).send(REST);
+    const ride = await request(ctx.app).post(`/api/profiles/${o.profileId}/day-kinds`).set(bearer(o.token)).send({ ...REST, name: 'Ride', isDefault: false });
+
+    const set = await request(ctx.app).put(`/api/profiles/${o.profileId}/days/2026-03-03`).set(bearer(o.token)).send({ dayKindId: ride.body.id });
+    const week = await request(ctx.app).get(`/api/profiles/${o.profileId}/days?from=2026-03-02&to=2026-03-04`).set(bearer(o.token));
+    const back = await request(ctx.app).put(`/api/profiles/${o.profileId}/days/2026-03-03`).set(bearer(o.token)).send({ dayKindId: null });
+
+    expect(set.status).toBe(200);
+    expect(week.body.days).toEqual([
+      { date: '2026-03-02', dayKindId: rest.body.id, dayKindName: 'Rest', isSet: false },
+      { date: '2026-03-03', dayKindId: ride.body.id, dayKindName: 'Ride', isSet: true },
+      { date: '2026-03-04', dayKindId: rest.body.id, dayKindName: 'Rest', isSet: false },
+    ]);
+    expect(back.body).toEqual({ date: '2026-03-03', dayKindId: rest.body.id, dayKindName: 'Rest', isSet: false });
+  });
+
+  it.each([
+    { name: 'a date that does not exist', path: '2026-02-30', body: { dayKindId: null }, field: 'date' },
+    { name: 'a day kind of another profile', path: '2026-03-03', body: { dayKindId: 999999 }, field: 'dayKindId' },
+  ])('returns 400 naming the field for $name', async ({ path, body, field }) => {
+    const o = await owner();
+
+    const res = await request(ctx.app).put(`/api/profiles/${o.profileId}/days/${path}`).set(bearer(o.token)).send(body);
+
+    expect(res.status).toBe(400);
+    expect(res.body.error.fieldErrors[field]).toBeDefined();
+  });
+
+  it('returns 404 to a stranger', async () => {
+    const o = await owner();
+    const stranger = await owner('Stranger');
+
+    const res = await request(ctx.app).get(`/api/profiles/${o.profileId}/days?from=2026-03-01&to=2026-03-07`).set(bearer(stranger.token));
+
+    expect(res.status).toBe(404);
+  });
+});
