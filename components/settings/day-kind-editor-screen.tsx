@@ -32,16 +32,19 @@ export function DayKindEditorScreen({ id }: { id: string }) {
   const save = useSaveDayKind(profile?.id ?? 0, dayKindId);
   const remove = useDeleteDayKind(profile?.id ?? 0);
   const [formError, setFormError] = useState<string>();
+  const [confirming, setConfirming] = useState(false);
   if (!profile || kinds.isPending) return <LoadingState />;
   if (kinds.isError) return <ErrorState error={kinds.error} onRetry={() => void kinds.refetch()} />;
   const kind = dayKindId ? kinds.data.find((k) => k.id === dayKindId) : undefined;
   if (dayKindId && !kind) return <ErrorState error={new ApiError(404, 'not_found', 'That day kind was not found.')} />;
   const values = defaults(kind, profile.glucoseUnit, kinds.data.length === 0);
-  const fields = (): FieldPath<DayKindFormValues>[] => [
+  const fields = (blockCount: number): FieldPath<DayKindFormValues>[] => [
     'name',
     'isDefault',
     'longActingUnits',
-    ...values.blocks.flatMap((_, i) => ['from', 'to', 'carbRatio', 'correctionFactor'].map((f) => `blocks.${i}.${f}` as FieldPath<DayKindFormValues>)),
+    ...Array.from({ length: blockCount }).flatMap((_, i) =>
+      ['from', 'to', 'carbRatio', 'correctionFactor'].map((f) => `blocks.${i}.${f}` as FieldPath<DayKindFormValues>),
+    ),
   ];
   return (
     <Screen title={kind ? `Edit ${kind.name}` : 'New day kind'} subtitle={`For ${profile.displayName}`} backHref="/settings/day-kinds">
@@ -55,20 +58,22 @@ export function DayKindEditorScreen({ id }: { id: string }) {
           setFormError(undefined);
           save.mutate(input, {
             onSuccess: () => leaveTo('/settings/day-kinds'),
-            onError: (error) => setFormError(applyServerErrors(error, form.setError, [...fields(), ...input.blocks.flatMap((_, i) => [`blocks.${i}.from`, `blocks.${i}.to`, `blocks.${i}.carbRatio`, `blocks.${i}.correctionFactor`] as FieldPath<DayKindFormValues>[])])),
+            onError: (error) => setFormError(applyServerErrors(error, form.setError, fields(input.blocks.length))),
           });
         }}
       />
       {kind ? (
         <Button
           variant="danger"
-          label={`Delete ${kind.name}`}
+          label={confirming ? `Yes, delete ${kind.name} and its ratios` : `Delete ${kind.name}`}
           loading={remove.isPending}
           onPress={() =>
-            remove.mutate(kind.id, {
-              onSuccess: () => leaveTo('/settings/day-kinds'),
-              onError: (error) => setFormError(error instanceof ApiError ? error.message : 'Could not delete.'),
-            })
+            !confirming
+              ? setConfirming(true)
+              : remove.mutate(kind.id, {
+                  onSuccess: () => leaveTo('/settings/day-kinds'),
+                  onError: (error) => setFormError(error instanceof ApiError ? error.message : 'Could not delete.'),
+                })
           }
         />
       ) : null}
