@@ -1,0 +1,64 @@
+import { render, screen } from '@testing-library/react';
+import { DoseBreakdownView } from '@/components/dose/dose-breakdown';
+import { computeDose, type DoseSettings } from '@/shared/compute/dose';
+import { DEFAULT_EXERCISE_REDUCTIONS } from '@/shared/compute/exercise';
+import type { DoseSuggestion } from '@/shared/schemas/dose';
+
+const T0 = Date.UTC(2026, 2, 1, 12, 0);
+const settings: DoseSettings = {
+  penIncrement: 0.5,
+  rounding: 'down',
+  maxDoseUnits: 15,
+  actionTimeHours: 4,
+  targetLowMmol: 5,
+  targetHighMmol: 7,
+  correctionTargetMmol: 6,
+  hypoThresholdMmol: 3.9,
+  veryHighMmol: 15,
+  allowNegativeCorrection: false,
+  iobConvention: 'correction_only',
+  exerciseReductions: DEFAULT_EXERCISE_REDUCTIONS,
+};
+const rest = { id: 1, name: 'Rest', blocks: [{ startMinute: 0, endMinute: 1440, carbRatio: 10, correctionFactorMmol: 2.5 }] };
+
+function suggestion(glucose: number, extra: Partial<Parameters<typeof computeDose>[2]> = {}): DoseSuggestion {
+  const result = computeDose(settings, rest, {
+    carbsGrams: 60,
+    glucose: { value: glucose, unit: 'mmol_l', takenAt: T0 },
+    mealAt: T0,
+    mealMinuteOfDay: 780,
+    ...extra,
+  });
+  return { ...result, glucoseUnit: 'mmol_l', carbBasis: 'available', carbUnit: 'g', mealAt: new Date(T0).toISOString(), glucoseTakenAt: new Date(T0).toISOString() };
+}
+
+describe('DoseBreakdownView', () => {
+  it('shows every part of the sum: meal with the ratio named, correction, active insulin, total and rounding', () => {
+    // T11 (check-values §12): 6.0 + 2.0 − 1.5 = 6.5 U.
+    render(<DoseBreakdownView result={suggestion(11, { earlierDoses: [{ units: 1.5, takenAt: T0 }] })} />);
+
+    expect(screen.getByLabelText('Suggested dose')).toHaveTextContent('6.5 units');
+    expect(screen.getByText('60 g ÷ 10 g per unit (ratio for Rest, 00:00–24:00)')).toBeInTheDocument();
+    expect(screen.getByText('(11.0 mmol/L − 6.0 mmol/L) ÷ 2.5 mmol/L per unit')).toBeInTheDocument();
+    expect(screen.getByText('+ 2.00 u')).toBeInTheDocument();
+    expect(screen.getByText('Insulin still active')).toBeInTheDocument();
+    expect(screen.getByText('− 1.50 u')).toBeInTheDocument();
+    expect(screen.getByText('Total before rounding')).toBeInTheDocument();
+    expect(screen.getByText(/still working/)).toBeInTheDocument();
+  });
+
+  it('shows no dose and the treat-a-low steps when glucose is low', () => {
+    render(<DoseBreakdownView result={suggestion(3.1)} />);
+
+    expect(screen.queryByLabelText('Suggested dose')).toBeNull();
+    expect(screen.getByText(/Low: 3.1 mmol\/L — no dose/)).toBeInTheDocument();
+    expect(screen.getByText(/15–20 g of fast-acting carbohydrate/)).toBeInTheDocument();
+  });
+
+  it('says the correction was left out for a stale reading', () => {
+    render(<DoseBreakdownView result={suggestion(12, { glucose: { value: 12, unit: 'mmol_l', takenAt: T0 - 20 * 60_000 } })} />);
+
+    expect(screen.getByText('Left out: the reading is more than 15 minutes from the meal time.')).toBeInTheDocument();
+    expect(screen.getByLabelText('Suggested dose')).toHaveTextContent('6 units');
+  });
+});
