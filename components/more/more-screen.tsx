@@ -57,6 +57,15 @@ export function MoreScreen() {
         </View>
       </Card>
       <Card>
+        <Text variant="heading">Pots and containers</Text>
+        <Text color="textMuted">Saved pots and containers with their empty weights, used when you cook and split a batch.</Text>
+        <View style={styles.actions}>
+          <Link href="/kitchen" asChild>
+            <Button variant="secondary" label="Kitchen: containers and batches" />
+          </Link>
+        </View>
+      </Card>
+      <Card>
         <Text variant="heading">Account</Text>
         <Text color="textMuted">Role: {user.role}</Text>
         <View style={styles.actions}>

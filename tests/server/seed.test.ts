@@ -57,6 +57,17 @@ describe('seedDemo', () => {
 });
 
 describe('runDemoStep', () => {
+  it('reports an already present household without creating anything', async () => {
+    const before = await BatchModel.count();
+    const log = jest.spyOn(console, 'log').mockImplementation(() => undefined);
+
+    await runDemoStep(ctx.config, {});
+
+    expect(log).toHaveBeenCalledWith('Demo household is already present.');
+    expect(await BatchModel.count()).toBe(before);
+    log.mockRestore();
+  });
+
   it('skips everything with SKIP_DEMO=1', async () => {
     const before = await UserModel.count();
     const log = jest.spyOn(console, 'log').mockImplementation(() => undefined);
