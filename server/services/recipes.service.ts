@@ -78,14 +78,19 @@ async function loadIngredients(recipeIds: number[], transaction?: Transaction) {
   return out;
 }
 
+let batchesTableSeen = false;
+
 /** When the user (or anyone on a profile they can open) last cooked each recipe; empty before the kitchen tables exist. */
 async function lastCooked(recipeIds: number[], userId: number): Promise<Map<number, string>> {
   if (!recipeIds.length) return new Map();
   const sequelize = RecipeModel.sequelize!;
-  const [{ exists }] = await sequelize.query<{ exists: boolean }>("SELECT to_regclass('public.batches') IS NOT NULL AS exists", {
-    type: QueryTypes.SELECT,
-  });
-  if (!exists) return new Map();
+  if (!batchesTableSeen) {
+    const [{ exists }] = await sequelize.query<{ exists: boolean }>("SELECT to_regclass('public.batches') IS NOT NULL AS exists", {
+      type: QueryTypes.SELECT,
+    });
+    if (!exists) return new Map();
+    batchesTableSeen = true;
+  }
   const rows = await sequelize.query<{ recipe_id: number; at: Date }>(
     `SELECT recipe_id, max(created_at) AS at FROM batches
      WHERE recipe_id IN (:recipeIds)
@@ -144,21 +149,24 @@ export async function getRecipeForUser(
   transaction?: Transaction,
 ): Promise<RecipeDetail> {
   const recipe = await findViewableRecipe(recipeId, userId, transaction);
-  const display = await resolveDisplay(userId, view.profileId);
-  const lines = (await loadIngredients([recipe.id], transaction)).get(recipe.id) ?? [];
+  const isOwner = recipe.ownerUserId === userId;
+  const [display, lineMap, owner, cooked, shares, source] = await Promise.all([
+    resolveDisplay(userId, view.profileId),
+    loadIngredients([recipe.id], transaction),
+    UserModel.findByPk(recipe.ownerUserId, { transaction }),
+    lastCooked([recipe.id], userId),
+    isOwner
+      ? RecipeShareModel.findAll({ where: { recipeId }, include: [{ model: UserModel, as: 'user' }], order: [['createdAt', 'ASC']], transaction })
+      : null,
+    recipe.copiedFromRecipeId ? RecipeModel.findByPk(recipe.copiedFromRecipeId, { transaction }) : null,
+  ]);
+  const lines = lineMap.get(recipe.id) ?? [];
   const foods = await loadFoods(lines.map((l) => l.foodId), transaction);
-  const owner = await UserModel.findByPk(recipe.ownerUserId, { transaction });
   const scale =
     view.portions !== undefined
       ? { factor: scaleFactorForPortions(recipe.defaultPortions, view.portions), portions: view.portions }
       : { factor: view.factor ?? 1, portions: recipe.defaultPortions };
-  const cooked = await lastCooked([recipe.id], userId);
   const { summary, nutrition } = summarise(recipe, owner ?? undefined, lines, foods, display, userId, cooked.get(recipe.id) ?? null, scale);
-  const isOwner = recipe.ownerUserId === userId;
-  const shares = isOwner
-    ? await RecipeShareModel.findAll({ where: { recipeId }, include: [{ model: UserModel, as: 'user' }], order: [['createdAt', 'ASC']], transaction })
-    : null;
-  const source = recipe.copiedFromRecipeId ? await RecipeModel.findByPk(recipe.copiedFromRecipeId, { transaction }) : null;
   const sourceVisible = source ? await canViewRecipe(source, userId) : false;
   return {
     ...summary,
