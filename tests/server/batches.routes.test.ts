@@ -177,6 +177,8 @@ describe('bad input gets a 400 naming the field and saves nothing', () => {
     { name: 'every ingredient left out', mutate: (i) => ({ ...i, ingredients: i.ingredients.map((l: object) => ({ ...l, omitted: true })) }), field: 'ingredients' },
     { name: 'an unknown recipe', mutate: (i) => ({ ...i, recipeId: 999999 }), field: 'recipeId' },
     { name: 'a use-by date before cooking', mutate: (i) => ({ ...i, useBy: '2026-03-01' }), field: 'useBy' },
+    // Checked inside the transaction after the batch row and its lines are written: the rollback must undo them.
+    { name: 'a jar of another profile', mutate: (i) => ({ ...i, split: { mode: 'weighed', portions: [{ ...i.split.portions[0], containerId: 999999 }] } }), field: 'split.portions.0.containerId' },
     { name: 'a container of another profile', mutate: (i) => ({ ...i, cookedWeight: { ...i.cookedWeight, containerId: 999999 } }), field: 'cookedWeight.containerId' },
   ];
 
