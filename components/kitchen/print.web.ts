@@ -3,6 +3,8 @@ import { useEffect } from 'react';
 const PRINT_CSS = `
 @media print {
   @page { size: A4; margin: 10mm; }
+  html, body, #root { height: auto !important; overflow: visible !important; }
+  #root * { overflow: visible !important; }
   [data-print="hide"] { display: none !important; }
   [data-print="label"] { break-inside: avoid; page-break-inside: avoid; }
 }`;

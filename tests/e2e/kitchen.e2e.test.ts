@@ -130,6 +130,11 @@ describe('the kitchen in the browser', () => {
     expect(await page.getByRole('img', { name: /QR code for http/ }).count()).toBe(5);
     await page.getByText('39 g carbohydrate').first().waitFor();
     await rig.shot(page, 'phone-labels');
+    await page.emulateMedia({ media: 'print' });
+    await page.getByRole('heading', { name: 'Labels: Overnight oats' }).waitFor({ state: 'hidden' });
+    expect(await labels.count()).toBe(5);
+    await rig.shot(page, 'phone-labels-print');
+    await page.emulateMedia({ media: 'screen' });
 
     const firstLabel = (await labels.first().getAttribute('aria-label'))!.replace('Label ', '');
     await page.goto(`${rig.baseUrl}/portions/${firstLabel.replace('-', '')}`);
