@@ -1,10 +1,32 @@
 // Runs in a worker thread (plain JavaScript so it loads the same under node, tsx and jest):
 // decodes one photo with jimp, flattens transparency onto white, and re-encodes a large and a
 // thumbnail JPEG. Re-encoding keeps only pixels, so camera metadata (EXIF, GPS location) is dropped.
+const fs = require('node:fs');
+const { fileURLToPath } = require('node:url');
 const { parentPort, workerData } = require('node:worker_threads');
-const { Jimp, JimpMime } = require('jimp');
+
+// The WebP codec loads its WebAssembly with fetch(file://…), which Node 20 cannot do; serve those
+// reads from disk inside this worker only.
+const networkFetch = globalThis.fetch;
+globalThis.fetch = async (input, init) => {
+  const url = String(typeof input === 'object' && input && 'url' in input ? input.url : input);
+  if (url.startsWith('file:')) {
+    return new Response(fs.readFileSync(fileURLToPath(url)), { headers: { 'content-type': 'application/wasm' } });
+  }
+  return networkFetch(input, init);
+};
+
+async function loadJimp() {
+  const [{ default: webp }, { createJimp }, { defaultFormats, defaultPlugins, JimpMime }] = await Promise.all([
+    import('@jimp/wasm-webp'),
+    import('@jimp/core'),
+    import('jimp'),
+  ]);
+  return { Jimp: createJimp({ formats: [...defaultFormats, webp], plugins: defaultPlugins }), JimpMime };
+}
 
 async function run({ input, largeMax, thumbMax, quality }) {
+  const { Jimp, JimpMime } = await loadJimp();
   const decoded = await Jimp.fromBuffer(Buffer.from(input));
   const { width, height } = decoded.bitmap;
   const flat = new Jimp({ width, height, color: 0xffffffff });

@@ -52,7 +52,7 @@ async function removeQuietly(storage: FileStorage, keys: (string | null)[]) {
 }
 
 /**
- * Checks an uploaded photo by its bytes (JPEG or PNG; WebP is recognised but cannot be decoded here),
+ * Checks an uploaded photo by its bytes (JPEG, PNG or WebP, whatever its name or declared type),
  * refuses absurd pixel sizes before decoding, decodes and re-encodes it off the request thread, stores a
  * large and a thumbnail variant under fresh unguessable keys and attaches them to the recipe (owner only).
  */
@@ -68,7 +68,6 @@ export async function setRecipePhoto(
   if (!file?.length) throw AppError.validation({ photo: ['Choose a photo to upload.'] });
   const header = readImageHeader(file);
   if (!header) throw AppError.validation({ photo: ['That file is not a JPEG, PNG or WebP image.'] });
-  if (header.kind === 'webp') throw AppError.validation({ photo: ['WebP photos cannot be read yet. Please send a JPEG or PNG.'] });
   if (!isReasonableSize(header)) {
     throw AppError.validation({ photo: [`That image is ${header.width} × ${header.height} pixels, too large to open. Please send a smaller photo.`] });
   }

@@ -1,3 +1,5 @@
+import fs from 'node:fs';
+import path from 'node:path';
 import { JimpMime } from 'jimp';
 import { PhotoProcessor, isReasonableSize, readImageHeader } from '../../server/lib/photo-worker';
 import { hugeDimensionPng, makeImage, withExif } from '../fixtures/photos/make-images';
@@ -67,6 +69,16 @@ describe('PhotoProcessor', () => {
 
     expect(readImageHeader(out.large.data)).toEqual({ kind: 'jpeg', width: 300, height: 200 });
     expect(readImageHeader(out.thumb.data)).toEqual({ kind: 'jpeg', width: 300, height: 200 });
+  });
+
+  it('reads a WebP photo and turns it into JPEG variants', async () => {
+    const webp = fs.readFileSync(path.join(__dirname, '../fixtures/photos/gradient-640x400.webp'));
+    expect(readImageHeader(webp)).toEqual({ kind: 'webp', width: 640, height: 400 });
+
+    const out = await new PhotoProcessor(1).process(webp);
+
+    expect(readImageHeader(out.large.data)).toEqual({ kind: 'jpeg', width: 640, height: 400 });
+    expect(readImageHeader(out.thumb.data)).toEqual({ kind: 'jpeg', width: 400, height: 250 });
   });
 
   it('rejects a truncated JPEG', async () => {

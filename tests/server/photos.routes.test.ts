@@ -67,6 +67,16 @@ describe('PUT /api/recipes/:id/photo', () => {
     expect(readImageHeader((await request(ctx.app).get(res.body.largeUrl)).body)).toEqual({ kind: 'jpeg', width: 320, height: 240 });
   });
 
+  it('accepts a WebP photo', async () => {
+    const cook = await signUpUser(ctx.app, 'WebpCook');
+    const { id } = await createRecipeAs(ctx.app, cook.token, oatsRecipe(foods));
+
+    const res = await upload(id, cook.token, fs.readFileSync(path.join(__dirname, '../fixtures/photos/gradient-640x400.webp')), 'lunch.webp');
+
+    expect(res.status).toBe(200);
+    expect(readImageHeader((await request(ctx.app).get(res.body.thumbUrl)).body)).toEqual({ kind: 'jpeg', width: 400, height: 250 });
+  });
+
   it.each([
     { name: 'a text file renamed to .jpg', make: async () => Buffer.from('Not a photo at all, just words.'), filename: 'soup.jpg', message: /not a JPEG, PNG or WebP/ },
     { name: 'a truncated JPEG', make: async () => (await makeImage(800, 600)).subarray(0, 700), filename: 'cut.jpg', message: /could not be read/ },
