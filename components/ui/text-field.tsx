@@ -54,7 +54,7 @@ export const TextField = forwardRef<TextInput, TextFieldProps>(function TextFiel
 
 const styles = StyleSheet.create({
   wrap: { gap: 6 },
-  box: { flexDirection: 'row', alignItems: 'center', borderWidth: 1.5, borderRadius: 10 },
-  input: { flex: 1, minHeight: MIN_TOUCH + 4, paddingHorizontal: 12, fontSize: 17 },
+  box: { flexDirection: 'row', alignItems: 'center', borderWidth: 1.5, borderRadius: 10, minWidth: 0 },
+  input: { flex: 1, minWidth: 0, minHeight: MIN_TOUCH + 4, paddingHorizontal: 12, fontSize: 17 },
   unit: { paddingRight: 12 },
 });
