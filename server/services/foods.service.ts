@@ -91,11 +91,12 @@ export async function getFoodPhotoPath(id: number, userId: number): Promise<stri
   return row.photoPath;
 }
 
+const FUZZY_BELOW = 20;
 const escapeLike = (s: string) => s.replace(/[\\%_]/g, (c) => `\\${c}`);
 
 /**
- * Ranked, paginated food search. Matching: every word as a substring (prefix-as-you-type) or, for typos,
- * trigram word similarity. Ranking: exact name, name prefix, word prefix, substring, fuzzy; within a tier
+ * Ranked, paginated food search. Matching: every word as a substring (prefix-as-you-type); when that finds fewer
+ * than 20 foods, also trigram word similarity to the name (typos). Ranking: exact name, name prefix, word prefix, substring, fuzzy; within a tier
  * plain raw foods before processed variants (rank_penalty), then closeness and shorter names.
  * The text is only ever a bound parameter.
  */
@@ -125,13 +126,23 @@ export async function searchFoods(query: FoodSearchQuery, userId: number): Promi
     return `f.search_text LIKE :w${i}`;
   });
   const allWords = wordConds.length ? wordConds.join(' AND ') : 'TRUE';
-  const match = q ? `((${allWords}) OR :q <% f.search_text)` : 'TRUE';
+  const scope = `(f.owner_user_id IS NULL OR f.owner_user_id = :userId OR f.shared_profile_id IN (:profileIds))
+        AND (CAST(:source AS TEXT) IS NULL OR f.source = CAST(:source AS enum_foods_source))
+        AND (CAST(:group AS TEXT) IS NULL OR f.food_group ILIKE :group)`;
+  // Trigram similarity is costly on every row, so it is only the fallback when the words match too few foods.
+  let fuzzy = false;
+  if (q) {
+    const [{ n }] = await sequelize.query<{ n: number }>(
+      `SELECT count(*)::int AS n FROM (SELECT 1 FROM foods f WHERE ${scope} AND ${allWords} LIMIT ${FUZZY_BELOW}) hits`,
+      { replacements: repl, type: QueryTypes.SELECT },
+    );
+    fuzzy = n < FUZZY_BELOW;
+  }
+  const match = fuzzy ? `((${allWords}) OR :q <% f.name_key)` : allWords;
   const rows = await sequelize.query<Record<string, unknown>>(
     `SELECT f.id
        FROM foods f
-      WHERE (f.owner_user_id IS NULL OR f.owner_user_id = :userId OR f.shared_profile_id IN (:profileIds))
-        AND (CAST(:source AS TEXT) IS NULL OR f.source::text = :source)
-        AND (CAST(:group AS TEXT) IS NULL OR f.food_group ILIKE :group)
+      WHERE ${scope}
         AND ${match}
       ORDER BY
         CASE WHEN :q = '' THEN 0
@@ -141,7 +152,7 @@ export async function searchFoods(query: FoodSearchQuery, userId: number): Promi
              WHEN ${allWords} THEN 3
              ELSE 4 END,
         f.rank_penalty,
-        word_similarity(:q, f.search_text) DESC,
+        ${q ? 'word_similarity(:q, f.name_key) DESC,' : ''}
         length(f.name),
         f.id
       LIMIT :limit OFFSET :offset`,

