@@ -6,7 +6,7 @@ import { formatCarb } from '../../shared/compute/units';
 import { doseRequestSchema } from '../../shared/schemas/dose';
 import { useActiveProfile } from '../api/auth';
 import { ApiError } from '../api/client';
-import { useDoseSuggestion } from '../api/dose';
+import { useDoseSuggestion, usePortionLookup } from '../api/dose';
 import { useDayKindDays, useDayKinds, useProfileSettings } from '../api/profile-settings';
 import { ChoiceGroup } from '../settings/choice-group';
 import { useLayout } from '../theme/use-theme';
@@ -14,6 +14,7 @@ import { Button } from '../ui/button';
 import { Callout } from '../ui/callout';
 import { Card } from '../ui/card';
 import { FormTextField } from '../ui/form-text-field';
+import { TextField } from '../ui/text-field';
 import { Screen } from '../ui/screen';
 import { ErrorState, LoadingState } from '../ui/states';
 import { Text } from '../ui/text';
@@ -69,9 +70,13 @@ export function DoseCheckScreen({ carbs, portion, label }: DoseCheckParams) {
   const suggest = useDoseSuggestion(profile?.id ?? 0);
   const { isWide } = useLayout();
   const [formError, setFormError] = useState<string>();
+  const [picked, setPicked] = useState(portion || label ? { code: portion, label } : null);
+  const [code, setCode] = useState('');
+  const [codeError, setCodeError] = useState<string>();
+  const lookup = usePortionLookup();
   const form = useForm<Values>({
     defaultValues: {
-      carbsGrams: carbs ?? '',
+      carbsGrams: carbs && Number.isFinite(Number(carbs)) ? String(Math.round(Number(carbs) * 10) / 10) : '',
       glucose: '',
       glucoseMinutesAgo: '0',
       localTime: hhmm(new Date()),
@@ -164,15 +169,47 @@ export function DoseCheckScreen({ carbs, portion, label }: DoseCheckParams) {
           </Link>
         </Callout>
       ) : null}
-      {label || portion ? (
+      {picked ? (
         <Text variant="lead">
-          For: {label ?? 'a portion'}
-          {portion ? ` (portion ${portion})` : ''}
+          For: {picked.label ?? 'a portion'}
+          {picked.code ? ` (portion ${picked.code})` : ''}
         </Text>
       ) : null}
       <View style={[styles.columns, isWide && styles.columnsWide]}>
         <View style={[styles.column, isWide && styles.columnWide]}>
           <Card>
+            <View style={styles.pair}>
+              <View style={styles.grow}>
+                <TextField
+                  label="Portion code (optional)"
+                  value={code}
+                  onChangeText={setCode}
+                  autoCapitalize="characters"
+                  error={codeError}
+                  hint="From a container's label: fills in its carbohydrate."
+                  style={styles.input}
+                />
+              </View>
+              <View style={styles.lookup}>
+                <Button
+                  variant="secondary"
+                  label="Use this portion"
+                  loading={lookup.isPending}
+                  disabled={!code.trim()}
+                  onPress={() => {
+                    setCodeError(undefined);
+                    lookup.mutate(code, {
+                      onSuccess: (p) => {
+                        if (p.carb.grams == null) return setCodeError('The carbohydrate of this portion is not known; type it in.');
+                        form.setValue('carbsGrams', String(Math.round(p.carb.grams * 10) / 10));
+                        setPicked({ code: p.code, label: p.profileId === profile.id ? p.recipeTitle : `${p.recipeTitle} — from ${p.profileName}'s batch` });
+                      },
+                      onError: (error) => setCodeError(error instanceof ApiError && error.status === 404 ? 'No portion has that code.' : 'That code could not be looked up.'),
+                    });
+                  }}
+                />
+              </View>
+            </View>
             <FormTextField
               control={form.control}
               name="carbsGrams"
@@ -302,4 +339,5 @@ const styles = StyleSheet.create({
   pair: { flexDirection: 'row', gap: 12, flexWrap: 'wrap' },
   grow: { flex: 1, minWidth: 140 },
   input: { minWidth: 0 },
+  lookup: { justifyContent: 'flex-start', paddingTop: 26 },
 });

@@ -98,6 +98,9 @@ describe('dose check in the browser', () => {
     await rig.shot(page, 'wide-day-kinds-table');
     await page.goto(`${rig.baseUrl}/dose-check?carbs=55&portion=K7Q2&label=Lentil%20soup`);
     await page.getByText('For: Lentil soup (portion K7Q2)').waitFor();
+    await page.getByLabel('Portion code (optional)').fill('ZZZZ9');
+    await page.getByRole('button', { name: 'Use this portion' }).click();
+    await page.getByText('No portion has that code.').waitFor();
     await page.getByLabel('Glucose now').fill('3.4');
     await page.getByRole('button', { name: 'Work out a dose' }).click();
     await page.getByText('Treat the low first', { exact: false }).waitFor();
