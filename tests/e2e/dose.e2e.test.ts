@@ -104,6 +104,7 @@ describe('dose check in the browser', () => {
     await page.getByLabel('Glucose now').fill('3.4');
     await page.getByRole('button', { name: 'Work out a dose' }).click();
     await page.getByText('Treat the low first', { exact: false }).waitFor();
+    await page.getByText('A calculation, not medical advice').scrollIntoViewIfNeeded();
     await rig.shot(page, 'wide-dose-low');
 
     await page.getByLabel('Glucose now').fill('11');
