@@ -92,11 +92,20 @@ export async function getFoodPhotoPath(id: number, userId: number): Promise<stri
 }
 
 const FUZZY_BELOW = 20;
+
+/** Up to 3 lexicon words closest to a typed word (pg_trgm similarity ≥ its default 0.3). */
+async function nearWords(word: string): Promise<string[]> {
+  const rows = await FoodModel.sequelize!.query<{ word: string }>(
+    'SELECT word FROM food_words WHERE word % :word ORDER BY similarity(word, :word) DESC, word LIMIT 3',
+    { replacements: { word }, type: QueryTypes.SELECT },
+  );
+  return rows.map((r) => r.word);
+}
 const escapeLike = (s: string) => s.replace(/[\\%_]/g, (c) => `\\${c}`);
 
 /**
- * Ranked, paginated food search. Matching: every word as a substring (prefix-as-you-type); when that finds fewer
- * than 20 foods, also trigram word similarity to the name (typos). Ranking: exact name, name prefix, word prefix, substring, fuzzy; within a tier
+ * Ranked, paginated food search. Matching: every word as a substring of the name or an alias (prefix-as-you-type);
+ * when that finds fewer than 20 foods, each word may also be one of its nearest lexicon words (typos). Ranking: exact name, name prefix, word prefix, substring, fuzzy; within a tier
  * plain raw foods before processed variants (rank_penalty), then closeness and shorter names.
  * The text is only ever a bound parameter.
  */
@@ -129,16 +138,24 @@ export async function searchFoods(query: FoodSearchQuery, userId: number): Promi
   const scope = `(f.owner_user_id IS NULL OR f.owner_user_id = :userId OR f.shared_profile_id IN (:profileIds))
         AND (CAST(:source AS TEXT) IS NULL OR f.source = CAST(:source AS enum_foods_source))
         AND (CAST(:group AS TEXT) IS NULL OR f.food_group ILIKE :group)`;
-  // Trigram similarity is costly on every row, so it is only the fallback when the words match too few foods.
-  let fuzzy = false;
+  // Typos: when the words as typed match too few foods, each word may also match its nearest words in the
+  // table's lexicon (trigram similarity on short strings, index-backed), searched as substrings like the rest.
+  let match = allWords;
   if (q) {
     const [{ n }] = await sequelize.query<{ n: number }>(
       `SELECT count(*)::int AS n FROM (SELECT 1 FROM foods f WHERE ${scope} AND ${allWords} LIMIT ${FUZZY_BELOW}) hits`,
       { replacements: repl, type: QueryTypes.SELECT },
     );
-    fuzzy = n < FUZZY_BELOW;
+    if (n < FUZZY_BELOW) {
+      const perWord: string[] = [];
+      for (const [i, w] of words.entries()) {
+        const near = w.length >= 3 ? await nearWords(w) : [];
+        near.forEach((word, k) => (repl[`w${i}n${k}`] = `%${escapeLike(word)}%`));
+        perWord.push(`(${[`f.search_text LIKE :w${i}`, ...near.map((_, k) => `f.search_text LIKE :w${i}n${k}`)].join(' OR ')})`);
+      }
+      match = perWord.join(' AND ');
+    }
   }
-  const match = fuzzy ? `((${allWords}) OR :q <% f.name_key)` : allWords;
   const rows = await sequelize.query<Record<string, unknown>>(
     `SELECT f.id
        FROM foods f
@@ -152,7 +169,7 @@ export async function searchFoods(query: FoodSearchQuery, userId: number): Promi
              WHEN ${allWords} THEN 3
              ELSE 4 END,
         f.rank_penalty,
-        ${q ? 'word_similarity(:q, f.name_key) DESC,' : ''}
+        ${q ? 'similarity(:q, f.name_key) DESC,' : ''}
         length(f.name),
         f.id
       LIMIT :limit OFFSET :offset`,
