@@ -44,7 +44,16 @@ export function fieldWords(path: string): string {
     .replace(/^blocks /, 'block ');
 }
 
-const shown = (v: unknown) => (v == null || v === '' ? '—' : typeof v === 'boolean' ? (v ? 'yes' : 'no') : String(v));
+const VALUE_WORDS: Record<string, string> = {
+  mmol_l: 'mmol/L',
+  mg_dl: 'mg/dL',
+  correction_only: 'the correction only',
+  portion10: '10 g portions',
+  unit12: '12 g units',
+  exchange15: '15 g exchanges',
+};
+const shown = (v: unknown) =>
+  v == null || v === '' ? '—' : typeof v === 'boolean' ? (v ? 'yes' : 'no') : typeof v === 'string' ? (VALUE_WORDS[v] ?? v) : String(v);
 const ACTION = { created: 'set up', updated: 'changed', deleted: 'deleted' } as const;
 
 function ChangeCard({ change }: { change: SettingsChange }) {

@@ -218,11 +218,25 @@ function flatten(value: unknown, prefix = '', out: Record<string, unknown> = {})
   return out;
 }
 
-/** Field-by-field differences between two stored values (dot paths, e.g. "blocks.0.carbRatio"). */
+// PostgreSQL's jsonb reorders keys, so changes are listed in the order the screens show the fields.
+const FIELD_ORDER = [
+  'name', 'isDefault', 'longActingUnits', 'glucoseUnit', 'carbBasis', 'carbUnit', 'penIncrement', 'rounding', 'maxDoseUnits',
+  'actionTimeHours', 'targetLow', 'targetHigh', 'correctionTarget', 'hypoThreshold', 'veryHigh', 'allowNegativeCorrection',
+  'iobConvention', 'exerciseReductions', 'light', 'moderate', 'hard', 'min30', 'min60', 'blocks', 'from', 'to', 'carbRatio', 'correctionFactor',
+];
+function fieldRank(path: string): number[] {
+  return path.split('.').map((p) => (/^\d+$/.test(p) ? Number(p) : FIELD_ORDER.indexOf(p) + 1000));
+}
+function compareRanks(a: number[], b: number[]): number {
+  for (let i = 0; i < Math.min(a.length, b.length); i++) if (a[i] !== b[i]) return a[i] - b[i];
+  return a.length - b.length;
+}
+
+/** Field-by-field differences between two stored values (dot paths, e.g. "blocks.0.carbRatio"), in screen order. */
 export function diffValues(oldValue: unknown, newValue: unknown): SettingsChange['changes'] {
   const a = flatten(oldValue);
   const b = flatten(newValue);
-  const keys = [...new Set([...Object.keys(a), ...Object.keys(b)])];
+  const keys = [...new Set([...Object.keys(a), ...Object.keys(b)])].sort((x, y) => compareRanks(fieldRank(x), fieldRank(y)));
   return keys.filter((k) => JSON.stringify(a[k]) !== JSON.stringify(b[k])).map((k) => ({ field: k, from: a[k] ?? null, to: b[k] ?? null }));
 }
 

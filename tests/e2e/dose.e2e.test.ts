@@ -30,6 +30,7 @@ async function addDayKind(page: Page, name: string, ratio: string, factor: strin
   await page.getByLabel('Name of this kind of day').fill(name);
   await page.getByLabel('Block 1 ratio').fill(ratio);
   await page.getByLabel('Block 1 correction factor').fill(factor);
+  await rig.shot(page, `phone-new-day-kind-${name.toLowerCase().replace(/\W+/g, '-')}`);
   await page.getByRole('button', { name: 'Add day kind' }).click();
   await page.getByRole('heading', { name: 'Day kinds and ratios' }).waitFor();
   await page.getByRole('heading', { name, exact: true }).waitFor();
@@ -89,6 +90,11 @@ describe('dose check in the browser', () => {
     expect(rest).toMatch(/4 units/);
     expect(ride).toMatch(/2\.5 units/);
     await expect(page.getByText('42 g ÷ 15 g per unit').isVisible()).resolves.toBe(true);
+
+    await page.goto(`${rig.baseUrl}/settings/history`);
+    await page.getByText('Sam set up day kind “Long ride”').waitFor();
+    await page.getByText('Sam set up units and safety limits').waitFor();
+    await rig.shot(page, 'phone-history');
   });
 
   it('shows the ratio table at wide width and a low glucose gives no dose', async () => {

@@ -212,6 +212,16 @@ describe('day kinds', () => {
       changes: [{ field: 'blocks.0.carbRatio', from: 8, to: 7 }],
     });
     expect(history.body.changes[1]).toMatchObject({ action: 'created', changedBy: { displayName: 'Owner' } });
+    expect(history.body.changes[1].changes.map((c: { field: string }) => c.field).slice(0, 8)).toEqual([
+      'name',
+      'isDefault',
+      'longActingUnits',
+      'glucoseUnit',
+      'blocks.0.from',
+      'blocks.0.to',
+      'blocks.0.carbRatio',
+      'blocks.0.correctionFactor',
+    ]);
   });
 
   it('keeps the old blocks when an update is invalid', async () => {
