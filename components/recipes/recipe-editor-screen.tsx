@@ -3,9 +3,10 @@ import { useMemo, useState } from 'react';
 import { StyleSheet, View } from 'react-native';
 import { computeRecipe } from '../../shared/compute/recipe';
 import type { Nutrients } from '../../shared/compute/nutrients';
+import type { Food, FoodMeasure } from '../../shared/schemas/food';
 import { recipeInputSchema, type RecipeDetail, type RecipeInput, type RecipeVisibility } from '../../shared/schemas/recipe';
 import { useActiveProfile } from '../api/auth';
-import { ApiError } from '../api/client';
+import { ApiError, apiFetch } from '../api/client';
 import { Button } from '../ui/button';
 import { Callout } from '../ui/callout';
 import { Card } from '../ui/card';
@@ -14,10 +15,10 @@ import { ErrorState, LoadingState } from '../ui/states';
 import { Text } from '../ui/text';
 import { TextField } from '../ui/text-field';
 import { FoodSearch, type PickedFood } from './food-search';
-import { VISIBILITY_WORDS, showCarb } from './recipe-format';
+import { VISIBILITY_WORDS, showCarb, showGrams } from './recipe-format';
 import { useCreateRecipe, useRecipe, useUpdateRecipe } from './recipe-queries';
 
-type Line = { key: number; food: PickedFood; grams: string; measureLabel: string; note: string };
+type Line = { key: number; food: PickedFood; grams: string; measureLabel: string; note: string; measures: FoodMeasure[] };
 type Draft = { title: string; description: string; portions: string; tags: string; steps: string; visibility: RecipeVisibility; lines: Line[] };
 type Errors = Record<string, string>;
 
@@ -39,6 +40,7 @@ function draftFrom(recipe?: RecipeDetail): Draft {
       grams: String(i.grams),
       measureLabel: i.measureLabel ?? '',
       note: i.note ?? '',
+      measures: i.food.measures ?? [],
     })),
   };
 }
@@ -141,6 +143,13 @@ function RecipeEditor({ id, initial }: { id?: number; initial: Draft }) {
                 <TextField label="Note (optional)" value={line.note} onChangeText={(note) => setLine(line.key, { note })} error={errors[`ingredients.${index}.note`]} placeholder="grated" />
               </View>
             </View>
+            {line.measures.length ? (
+              <View style={styles.row} role="group" aria-label={`Household measures for ${line.food.name}`}>
+                {line.measures.slice(0, 4).map((m) => (
+                  <Button key={m.label} variant="secondary" label={`${m.label} = ${showGrams(m.grams)}`} onPress={() => setLine(line.key, { grams: String(m.grams), measureLabel: m.label })} />
+                ))}
+              </View>
+            ) : null}
             <View style={styles.row}>
               <Button variant="quiet" label="Move up" disabled={index === 0} onPress={() => move(index, -1)} />
               <Button variant="quiet" label="Move down" disabled={index === draft.lines.length - 1} onPress={() => move(index, 1)} />
@@ -148,7 +157,15 @@ function RecipeEditor({ id, initial }: { id?: number; initial: Draft }) {
             </View>
           </View>
         ))}
-        <FoodSearch onPick={(food) => set({ lines: [...draft.lines, { key: nextKey++, food, grams: '', measureLabel: '', note: '' }] })} />
+        <FoodSearch
+          onPick={(food) => {
+            const key = nextKey++;
+            setDraft((d) => ({ ...d, lines: [...d.lines, { key, food, grams: '', measureLabel: '', note: '', measures: [] }] }));
+            apiFetch<{ food: Food }>(`/foods/${food.id}`)
+              .then(({ food: full }) => setDraft((d) => ({ ...d, lines: d.lines.map((l) => (l.key === key ? { ...l, measures: full?.measures ?? [] } : l)) })))
+              .catch(() => undefined);
+          }}
+        />
       </Card>
 
       {preview ? (
