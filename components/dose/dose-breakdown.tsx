@@ -45,12 +45,15 @@ export function DoseWarnings({ warnings }: { warnings: DoseWarning[] }) {
 export function DoseBreakdownView({ result }: { result: DoseSuggestion }) {
   if (result.status === 'no_settings') {
     return (
-      <Callout tone="caution" title="No dose suggested">
-        <Text>{result.warnings[0]?.message}</Text>
-        <Link href="/settings" asChild>
-          <Button label="Set up ratios and limits" variant="secondary" />
-        </Link>
-      </Callout>
+      <View style={styles.stack}>
+        <Callout tone="caution" title="No dose suggested">
+          <Text>{result.warnings[0]?.message}</Text>
+          <Link href="/settings" asChild>
+            <Button label="Set up ratios and limits" variant="secondary" />
+          </Link>
+        </Callout>
+        <DoseWarnings warnings={result.warnings.slice(1)} />
+      </View>
     );
   }
   if (result.status === 'treat_low') {

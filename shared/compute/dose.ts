@@ -103,6 +103,9 @@ export const TREAT_LOW_GUIDANCE =
 
 const EPS = 1e-9;
 
+/** Without settings a low reading is still called out, at the IHSG 2017 alert value (3.9 mmol/L, 70 mg/dL). */
+const FALLBACK_HYPO_MMOL = 3.9;
+
 /** Rounds a dose to the pen increment: down (never up) or to the nearest step; tolerant of float noise. */
 export function roundToIncrement(units: number, increment: number, rounding: Rounding): number {
   if (!(units > 0)) return 0;
@@ -131,16 +134,18 @@ export function fatProteinUnits(fatGrams?: number | null, proteinGrams?: number 
 export function computeDose(settings: DoseSettings | null, dayKind: DayKindRatios | null, input: DoseInput): DoseResult {
   const block = dayKind ? findBlock(dayKind.blocks, input.mealMinuteOfDay) : undefined;
   if (!settings || !dayKind || !block) {
-    return {
-      status: 'no_settings',
-      warnings: [
-        {
-          code: 'no_settings',
-          tone: 'caution',
-          message: 'No dose can be suggested until the ratios, targets and limits from your diabetes team are set up.',
-        },
-      ],
-    };
+    const warnings: DoseWarning[] = [
+      {
+        code: 'no_settings',
+        tone: 'caution',
+        message: 'No dose can be suggested until the ratios, targets and limits from your diabetes team are set up.',
+      },
+    ];
+    const mmol = input.glucose ? glucoseToMmol(input.glucose.value, input.glucose.unit) : null;
+    if (mmol != null && mmol <= (settings?.hypoThresholdMmol ?? FALLBACK_HYPO_MMOL) + EPS) {
+      warnings.push({ code: 'treat_low', tone: 'danger', message: TREAT_LOW_GUIDANCE });
+    }
+    return { status: 'no_settings', warnings };
   }
   const warnings: DoseWarning[] = [];
   const earlier = input.earlierDoses ?? [];

@@ -145,6 +145,15 @@ describe('computeDose rules and warnings', () => {
     expect(computeDose(settings(), null, input()).status).toBe('no_settings');
   });
 
+  it('still says to treat a low without settings, at the IHSG 2017 alert value of 3.9 mmol/L', () => {
+    const low = computeDose(null, null, input({ glucose: { value: 3.9, unit: 'mmol_l', takenAt: T0 } }));
+    const fine = computeDose(null, null, input({ glucose: { value: 4.0, unit: 'mmol_l', takenAt: T0 } }));
+
+    expect(low.status).toBe('no_settings');
+    expect(low.warnings.map((w) => w.code)).toEqual(['no_settings', 'treat_low']);
+    expect(fine.warnings.map((w) => w.code)).toEqual(['no_settings']);
+  });
+
   it.each([
     { name: '3.9 mmol/L (at the IHSG 2017 alert value)', value: 3.9, unit: 'mmol_l' },
     { name: '70 mg/dL (3.886 mmol/L, check-values §5)', value: 70, unit: 'mg_dl' },
