@@ -1,14 +1,14 @@
 /**
  * Active insulin ("insulin on board") from earlier rapid-acting doses.
  *
- * Curve: the exponential insulin-activity model used by the open-source closed-loop project OpenAPS
- * (oref0 "exponential" curve, D. Maksimovic), parameterised by the action time and the time of peak
- * activity. Chosen over a straight line because it follows absorption: little insulin has acted in
+ * Curve: an exponential insulin-activity model with a finite action time td and a time of peak activity tp
+ * (activity ∝ t·(1 − t/td)·e^(−t/τ), integrated and normalised so the active fraction is exactly 1 at 0
+ * and 0 at td; τ follows from tp and td). Chosen over a straight line because it follows absorption: little insulin has acted in
  * the first half hour, so it does not under-count insulin just taken, which is what leads to
  * stacking. It reaches exactly 1 at 0 and 0 at the action time, and falls monotonically between.
  */
 
-/** Peak activity of a rapid-acting analogue, minutes (the oref0 "rapid-acting" preset). */
+/** Peak activity of a rapid-acting analogue, minutes (about 1–1.5 h after injection — from memory, common practice). */
 export const RAPID_PEAK_MINUTES = 75;
 
 /** The model needs the peak before half the action time; short action times move the peak earlier. */
