@@ -74,6 +74,7 @@ function RecipeEditor({ id, initial }: { id?: number; initial: Draft }) {
   const update = useUpdateRecipe(id ?? 0);
   const saving = create.isPending || update.isPending;
   const set = (patch: Partial<Draft>) => setDraft((d) => ({ ...d, ...patch }));
+  const clearError = (key: string) => setErrors(({ [key]: _gone, ...rest }) => rest);
   const setLine = (key: number, patch: Partial<Line>) => set({ lines: draft.lines.map((l) => (l.key === key ? { ...l, ...patch } : l)) });
   const move = (index: number, by: number) => {
     const lines = [...draft.lines];
@@ -116,9 +117,15 @@ function RecipeEditor({ id, initial }: { id?: number; initial: Draft }) {
     <Screen title={id === undefined ? 'New recipe' : 'Edit recipe'} backHref={id === undefined ? '/recipes' : `/recipes/${id}`}>
       {formError ? <Callout tone="danger" title="Not saved">{formError}</Callout> : null}
       <Card>
-        <TextField label="Title" value={draft.title} onChangeText={(title) => set({ title })} error={errors.title} placeholder="e.g. Red lentil soup" />
+        <TextField label="Title" value={draft.title} onChangeText={(title) => {
+            set({ title });
+            clearError('title');
+          }} error={errors.title} placeholder="e.g. Red lentil soup" />
         <TextField label="Description (optional)" value={draft.description} onChangeText={(description) => set({ description })} error={errors.description} multiline />
-        <TextField label="Portions" value={draft.portions} onChangeText={(portions) => set({ portions })} error={errors.defaultPortions} inputMode="numeric" unit="portions" />
+        <TextField label="Portions" value={draft.portions} onChangeText={(portions) => {
+            set({ portions });
+            clearError('defaultPortions');
+          }} error={errors.defaultPortions} inputMode="numeric" unit="portions" />
         <TextField label="Tags (separated by commas)" value={draft.tags} onChangeText={(tags) => set({ tags })} error={errors.tags} placeholder="breakfast, freezer" autoCapitalize="none" />
       </Card>
 
@@ -134,7 +141,10 @@ function RecipeEditor({ id, initial }: { id?: number; initial: Draft }) {
             {errors[`ingredients.${index}.foodId`] ? <Text color="danger">{errors[`ingredients.${index}.foodId`]}</Text> : null}
             <View style={styles.fields}>
               <View style={styles.small}>
-                <TextField label={`Grams of ${line.food.name}`} value={line.grams} onChangeText={(grams) => setLine(line.key, { grams })} error={errors[`ingredients.${index}.grams`]} inputMode="decimal" unit="g" />
+                <TextField label={`Grams of ${line.food.name}`} value={line.grams} onChangeText={(grams) => {
+                    setLine(line.key, { grams });
+                    clearError(`ingredients.${index}.grams`);
+                  }} error={errors[`ingredients.${index}.grams`]} inputMode="decimal" unit="g" />
               </View>
               <View style={styles.small}>
                 <TextField label="Household measure (optional)" value={line.measureLabel} onChangeText={(measureLabel) => setLine(line.key, { measureLabel })} error={errors[`ingredients.${index}.measureLabel`]} placeholder="1 cup" />
@@ -160,6 +170,7 @@ function RecipeEditor({ id, initial }: { id?: number; initial: Draft }) {
         <FoodSearch
           onPick={(food) => {
             const key = nextKey++;
+            clearError('ingredients');
             setDraft((d) => ({ ...d, lines: [...d.lines, { key, food, grams: '', measureLabel: '', note: '', measures: [] }] }));
             apiFetch<{ food: Food }>(`/foods/${food.id}`)
               .then(({ food: full }) => setDraft((d) => ({ ...d, lines: d.lines.map((l) => (l.key === key ? { ...l, measures: full?.measures ?? [] } : l)) })))
