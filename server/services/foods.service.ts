@@ -137,7 +137,7 @@ export async function searchFoods(query: FoodSearchQuery, userId: number): Promi
   const allWords = wordConds.length ? wordConds.join(' AND ') : 'TRUE';
   const scope = `(f.owner_user_id IS NULL OR f.owner_user_id = :userId OR f.shared_profile_id IN (:profileIds))
         AND (CAST(:source AS TEXT) IS NULL OR f.source = CAST(:source AS enum_foods_source))
-        AND (CAST(:group AS TEXT) IS NULL OR f.food_group ILIKE :group)`;
+        AND (CAST(:group AS TEXT) IS NULL OR lower(f.food_group) = lower(:group))`;
   // Typos: when the words as typed match too few foods, each word may also match its nearest words in the
   // table's lexicon (trigram similarity on short strings, index-backed), searched as substrings like the rest.
   let match = allWords;
