@@ -1,5 +1,5 @@
 import { Link } from 'expo-router';
-import { useEffect, useState } from 'react';
+import { useEffect, useRef, useState } from 'react';
 import { Controller, useForm, type FieldPath } from 'react-hook-form';
 import { StyleSheet, View } from 'react-native';
 import { formatCarb } from '../../shared/compute/units';
@@ -16,6 +16,7 @@ import { Card } from '../ui/card';
 import { FormTextField } from '../ui/form-text-field';
 import { TextField } from '../ui/text-field';
 import { Screen } from '../ui/screen';
+import { scrollIntoView } from '../ui/scroll-into-view';
 import { ErrorState, LoadingState } from '../ui/states';
 import { Text } from '../ui/text';
 import { DoseBreakdownView } from './dose-breakdown';
@@ -70,6 +71,7 @@ export function DoseCheckScreen({ carbs, portion, label }: DoseCheckParams) {
   const suggest = useDoseSuggestion(profile?.id ?? 0);
   const { isWide } = useLayout();
   const [formError, setFormError] = useState<string>();
+  const resultRef = useRef<View>(null);
   const [picked, setPicked] = useState(portion || label ? { code: portion, label } : null);
   const [code, setCode] = useState('');
   const [codeError, setCodeError] = useState<string>();
@@ -150,6 +152,8 @@ export function DoseCheckScreen({ carbs, portion, label }: DoseCheckParams) {
       return;
     }
     suggest.mutate(parsed.data, {
+      // On a phone the answer sits below the form: bring it (and the caution above it) into view.
+      onSuccess: () => requestAnimationFrame(() => scrollIntoView(resultRef)),
       onError: (error) => {
         if (error instanceof ApiError && error.fieldErrors) place(error.fieldErrors);
         else setFormError(error instanceof ApiError ? error.message : 'Something went wrong. Please try again.');
@@ -318,7 +322,7 @@ export function DoseCheckScreen({ carbs, portion, label }: DoseCheckParams) {
           {formError ? <Callout tone="danger" title="Not worked out">{formError}</Callout> : null}
           <Button label="Work out a dose" size="lg" loading={suggest.isPending} onPress={onSubmit} />
         </View>
-        <View style={[styles.column, isWide && styles.columnWide]} aria-live="polite">
+        <View ref={resultRef} style={[styles.column, isWide && styles.columnWide]} aria-live="polite">
           <DoseCaution />
           {suggest.data ? (
             <DoseBreakdownView result={suggest.data} />
