@@ -239,8 +239,8 @@ export async function createBatch(profileId: number, userId: number, input: Crea
             carbAvailable: share.carbGrams,
             carbTotal: carbTotal == null ? null : carbTotal / split.count,
           }))
-        : await Promise.all(
-            split.portions.map(async (w, i) => {
+        : await inSequence(
+            split.portions.map((w, i) => async () => {
               const container = w.containerId ? await findContainerOr400(profileId, w.containerId, `split.portions.${i}.containerId`, transaction) : null;
               const net = w.grossGrams - w.tareGrams;
               return {
@@ -287,4 +287,11 @@ export async function updateBatch(profileId: number, id: number, input: UpdateBa
   }
   await batch.save();
   return getBatch(profileId, id);
+}
+
+/** Runs async steps one after another (a transaction's connection runs one query at a time). */
+async function inSequence<T>(steps: (() => Promise<T>)[]): Promise<T[]> {
+  const out: T[] = [];
+  for (const step of steps) out.push(await step());
+  return out;
 }

@@ -150,16 +150,15 @@ export async function getRecipeForUser(
 ): Promise<RecipeDetail> {
   const recipe = await findViewableRecipe(recipeId, userId, transaction);
   const isOwner = recipe.ownerUserId === userId;
-  const [display, lineMap, owner, cooked, shares, source] = await Promise.all([
-    resolveDisplay(userId, view.profileId),
-    loadIngredients([recipe.id], transaction),
-    UserModel.findByPk(recipe.ownerUserId, { transaction }),
-    lastCooked([recipe.id], userId),
-    isOwner
-      ? RecipeShareModel.findAll({ where: { recipeId }, include: [{ model: UserModel, as: 'user' }], order: [['createdAt', 'ASC']], transaction })
-      : null,
-    recipe.copiedFromRecipeId ? RecipeModel.findByPk(recipe.copiedFromRecipeId, { transaction }) : null,
-  ]);
+  // One after another: inside a transaction every query shares one connection, which runs one at a time.
+  const display = await resolveDisplay(userId, view.profileId);
+  const lineMap = await loadIngredients([recipe.id], transaction);
+  const owner = await UserModel.findByPk(recipe.ownerUserId, { transaction });
+  const cooked = await lastCooked([recipe.id], userId);
+  const shares = isOwner
+    ? await RecipeShareModel.findAll({ where: { recipeId }, include: [{ model: UserModel, as: 'user' }], order: [['createdAt', 'ASC']], transaction })
+    : null;
+  const source = recipe.copiedFromRecipeId ? await RecipeModel.findByPk(recipe.copiedFromRecipeId, { transaction }) : null;
   const lines = lineMap.get(recipe.id) ?? [];
   const foods = await loadFoods(lines.map((l) => l.foodId), transaction);
   const scale =
