@@ -4,7 +4,9 @@ import path from 'node:path';
 import { z } from 'zod';
 import { createBatchInputSchema } from '../../shared/schemas/batch';
 import { createLabelFoodInputSchema } from '../../shared/schemas/food';
+import { dayKindInputSchema, profileSettingsInputSchema } from '../../shared/schemas/profile-settings';
 import { recipeInputSchema } from '../../shared/schemas/recipe';
+import { DEFAULT_EXERCISE_REDUCTIONS } from '../../shared/compute/exercise';
 import type { Config } from '../config';
 import { REPO_ROOT } from '../config';
 import { BatchModel, ContainerModel, FoodModel, ProfileModel, RecipeModel, UserModel } from '../models';
@@ -12,6 +14,7 @@ import { signUp } from '../services/auth.service';
 import { createBatch } from '../services/batches.service';
 import { createContainer } from '../services/containers.service';
 import { createLabelFood } from '../services/label-foods.service';
+import { createDayKind, getSettings, listDayKinds, updateSettings } from '../services/profile-settings.service';
 import { createRecipe } from '../services/recipes.service';
 
 const ingredientSchema = z.object({
@@ -25,6 +28,8 @@ const ingredientSchema = z.object({
 const scenarioSchema = z.object({
   member: z.object({ email: z.string(), displayName: z.string() }),
   profile: z.object({ carbBasis: z.enum(['available', 'total']), carbUnit: z.enum(['g', 'portion10', 'unit12', 'exchange15']) }),
+  doseSettings: z.object({ note: z.string() }).passthrough(),
+  dayKinds: z.array(z.object({ name: z.string() }).passthrough()),
   labelFoods: z.array(z.object({ key: z.string() }).passthrough()),
   recipes: z.array(
     z.object({
@@ -60,7 +65,8 @@ export function loadScenario(file = DEMO_FILE): DemoScenario {
 export type DemoResult = { skipped?: string; created: string[]; email: string; password?: string };
 
 /**
- * Seeds the invented demo household through the services: the member, two label foods, two recipes built
+ * Seeds the invented demo household through the services: the member, invented dose settings and two day
+ * kinds, two label foods, two recipes built
  * from the IFCT table (one public), saved containers and one cooked batch with weighed portions.
  * Idempotent: each part is looked up first and only what is missing is created. The password comes from
  * `password` (DEMO_PASSWORD) or is generated and returned once, when the account is created.
@@ -86,6 +92,19 @@ export async function seedDemo(config: Config, options: { password?: string; tod
   const profile = (await ProfileModel.findOne({ where: { ownerUserId: user.id } }))!;
   if (profile.carbBasis !== s.profile.carbBasis || profile.carbUnit !== s.profile.carbUnit) {
     await profile.update({ carbBasis: s.profile.carbBasis, carbUnit: s.profile.carbUnit });
+  }
+
+  // Invented demo ratios and limits (marked so in the scenario), so the dose check can be tried.
+  if ((await getSettings(profile.id)).settings === null) {
+    const { note: _note, ...settings } = s.doseSettings;
+    await updateSettings(profile.id, user.id, profileSettingsInputSchema.parse({ ...settings, exerciseReductions: DEFAULT_EXERCISE_REDUCTIONS }));
+    created.push('dose settings');
+  }
+  const kindNames = new Set((await listDayKinds(profile.id)).map((k) => k.name));
+  for (const kind of s.dayKinds) {
+    if (kindNames.has(kind.name)) continue;
+    await createDayKind(profile.id, user.id, dayKindInputSchema.parse(kind));
+    created.push(`day kind ${kind.name}`);
   }
 
   for (const lf of s.labelFoods) {

@@ -37,6 +37,16 @@ describe('seedDemo', () => {
 
     const signIn = await request(ctx.app).post('/api/auth/sign-in').send({ email: first.email, password: first.password });
     expect(signIn.status).toBe(200);
+
+    // The invented demo ratios let the dose check be tried: 60 g at 12:30 on the rest day with the
+    // 11:00–17:00 ratio of 10 g/U is 6 U (meal dose = carbohydrate ÷ ratio, check-values §12 T8).
+    const profileId = signIn.body.me.profiles[0].id;
+    const dose = await request(ctx.app)
+      .post(`/api/profiles/${profileId}/dose-suggestions`)
+      .set('Authorization', `Bearer ${signIn.body.token}`)
+      .send({ carbsGrams: 60, localTime: '12:30' });
+    expect(dose.body).toMatchObject({ status: 'ok', dayKind: { name: 'Rest day' }, breakdown: { carbRatio: 10, doseUnits: 6 } });
+    expect(first.created).toEqual(expect.arrayContaining(['dose settings', 'day kind Rest day', 'day kind Swim training']));
   }, 120_000);
 
   it('splits the demo dal into the weighed tubs with carbohydrate from the snapshot values', async () => {
