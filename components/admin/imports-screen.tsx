@@ -2,7 +2,7 @@ import { useEffect, useState } from 'react';
 import { StyleSheet, View } from 'react-native';
 import { useMe } from '../api/auth';
 import { useImport, useImports, useStartImport } from '../api/foods';
-import { Choice } from '../foods/choice';
+import { ChoiceGroup } from '../ui/choice-group';
 import { Button } from '../ui/button';
 import { Callout } from '../ui/callout';
 import { Card } from '../ui/card';
@@ -49,11 +49,11 @@ export function ImportsScreen() {
   return (
     <Screen title="Dataset imports" subtitle="Load the USDA tables (public domain) beside the default IFCT 2017 table" backHref="/more">
       <Card>
-        <Choice
+        <ChoiceGroup
           label="Layout"
           value={kind}
           onChange={(v) => { setKind(v); setFiles([]); }}
-          options={[
+          choices={[
             { value: 'fdc', label: LAYOUTS.fdc.label, hint: 'SR Legacy or Foundation download' },
             { value: 'sr28', label: LAYOUTS.sr28.label, hint: '~-quoted, ^-separated files' },
           ]}

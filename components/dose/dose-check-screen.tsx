@@ -8,7 +8,7 @@ import { useActiveProfile } from '../api/auth';
 import { ApiError } from '../api/client';
 import { useDoseSuggestion, usePortionLookup } from '../api/dose';
 import { useDayKindDays, useDayKinds, useProfileSettings } from '../api/profile-settings';
-import { ChoiceGroup } from '../settings/choice-group';
+import { ChoiceGroup } from '../ui/choice-group';
 import { useLayout } from '../theme/use-theme';
 import { Button } from '../ui/button';
 import { Callout } from '../ui/callout';

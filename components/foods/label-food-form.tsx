@@ -9,7 +9,7 @@ import { Callout } from '../ui/callout';
 import { Card } from '../ui/card';
 import { FormTextField } from '../ui/form-text-field';
 import { Text } from '../ui/text';
-import { Choice } from './choice';
+import { ChoiceGroup } from '../ui/choice-group';
 import { emptyLabelFood, LABEL_FOOD_FIELDS, labelFoodResolver, parseLabelFood, type LabelFoodFormValues } from './label-food-form-values';
 import { PhotoInput } from './photo-input';
 
@@ -56,11 +56,11 @@ export function LabelFoodForm({ onSubmit, submitting, submitError, shareOptions,
           control={form.control}
           name="basis"
           render={({ field }) => (
-            <Choice
+            <ChoiceGroup
               label="The label's values are"
               value={field.value}
               onChange={field.onChange}
-              options={[
+              choices={[
                 { value: 'per100g', label: 'Per 100 g' },
                 { value: 'perServing', label: 'Per serving', hint: 'We convert to per 100 g from the serving weight.' },
               ]}
@@ -72,11 +72,11 @@ export function LabelFoodForm({ onSubmit, submitting, submitError, shareOptions,
           control={form.control}
           name="convention"
           render={({ field }) => (
-            <Choice
+            <ChoiceGroup
               label="Kind of label"
               value={field.value}
               onChange={field.onChange}
-              options={[
+              choices={[
                 { value: 'eu', label: 'EU / UK “Carbohydrate”', hint: 'Available carbohydrate: fibre is listed separately, not included.' },
                 { value: 'us', label: 'US “Total carbohydrate”', hint: 'Fibre is included in the total.' },
               ]}
@@ -103,11 +103,11 @@ export function LabelFoodForm({ onSubmit, submitting, submitError, shareOptions,
         <Text variant="heading">Photo of the label</Text>
         <PhotoInput value={photo} onChange={setPhoto} />
         {shareOptions.length > 1 ? (
-          <Choice
+          <ChoiceGroup
             label="Who can use this food"
             value={share}
             onChange={setShare}
-            options={shareOptions.map((o) => ({ value: String(o.profileId ?? 'private'), label: o.label }))}
+            choices={shareOptions.map((o) => ({ value: String(o.profileId ?? 'private'), label: o.label }))}
           />
         ) : null}
       </Card>

@@ -6,7 +6,7 @@ import { Button } from '../ui/button';
 import { Card } from '../ui/card';
 import { Text } from '../ui/text';
 import { TextField } from '../ui/text-field';
-import { ChoiceRow } from './choice-row';
+import { ChoiceGroup } from '../ui/choice-group';
 import { gramsText } from './kitchen-format';
 import { useContainers, useCreateContainer, useDeleteContainer } from './kitchen-queries';
 
@@ -48,11 +48,11 @@ export function ContainersPanel({ profileId }: { profileId: number }) {
           <Button variant="quiet" label={`Remove ${c.name}`} onPress={() => remove.mutate(c.id)} />
         </View>
       ))}
-      <ChoiceRow
+      <ChoiceGroup
         label="Kind"
         value={kind}
         onChange={setKind}
-        options={[
+        choices={[
           { value: 'container', label: 'Container or jar' },
           { value: 'pot', label: 'Cooking pot' },
         ]}

@@ -7,7 +7,7 @@ import { Callout } from '../ui/callout';
 import { Card } from '../ui/card';
 import { Text } from '../ui/text';
 import { TextField } from '../ui/text-field';
-import { ChoiceRow } from './choice-row';
+import { ChoiceGroup } from '../ui/choice-group';
 import { netOf, type Weighing } from './cook-state';
 import { carbText, gramsText } from './kitchen-format';
 
@@ -30,14 +30,14 @@ export function CookedWeightStep({ pot, pots, onChange, batch, unit, errors, onB
       <Text variant="heading">Weigh the cooked pot</Text>
       <Text color="textMuted">Put the whole pot on the scale (without the lid unless you weighed the lid too).</Text>
       {pots.length ? (
-        <ChoiceRow
+        <ChoiceGroup
           label="Which pot"
           value={String(pot.containerId ?? 'other')}
           onChange={(v) => {
             const chosen = pots.find((p) => String(p.id) === v);
             onChange({ ...pot, containerId: chosen?.id ?? null, tare: chosen ? String(chosen.tareGrams) : pot.tare });
           }}
-          options={[...pots.map((p) => ({ value: String(p.id), label: `${p.name} (${gramsText(p.tareGrams)})` })), { value: 'other', label: 'Another pot' }]}
+          choices={[...pots.map((p) => ({ value: String(p.id), label: `${p.name} (${gramsText(p.tareGrams)})` })), { value: 'other', label: 'Another pot' }]}
         />
       ) : null}
       <TextField label="Empty pot (tare)" unit="g" keyboardType="decimal-pad" value={pot.tare} onChangeText={(tare) => onChange({ ...pot, tare })} error={errors['cookedWeight.tareGrams']} />

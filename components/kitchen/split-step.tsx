@@ -7,7 +7,7 @@ import { Callout } from '../ui/callout';
 import { Card } from '../ui/card';
 import { Text } from '../ui/text';
 import { TextField } from '../ui/text-field';
-import { ChoiceRow } from './choice-row';
+import { ChoiceGroup } from '../ui/choice-group';
 import { num, previewJars, type CookState, type Weighing } from './cook-state';
 import { carbText, gramsText } from './kitchen-format';
 
@@ -37,11 +37,11 @@ export function SplitStep({ state, containers, batch, unit, errors, onChange, on
   return (
     <Card aria-label="Split into portions">
       <Text variant="heading">Split into portions</Text>
-      <ChoiceRow
+      <ChoiceGroup
         label="How"
         value={state.splitMode}
         onChange={(splitMode) => onChange({ splitMode, jars: splitMode === 'weighed' && !state.jars.length ? [{ containerId: null, tare: '', gross: '' }] : state.jars })}
-        options={[
+        choices={[
           { value: 'weighed', label: 'Weigh each container' },
           { value: 'equal', label: 'Equal portions' },
         ]}
@@ -61,14 +61,14 @@ export function SplitStep({ state, containers, batch, unit, errors, onChange, on
             <View key={i} style={styles.jar} aria-label={`Container ${i + 1}`}>
               <Text variant="label">Container {i + 1}</Text>
               {containers.length ? (
-                <ChoiceRow
+                <ChoiceGroup
                   label="Which container"
                   value={String(jar.containerId ?? 'other')}
                   onChange={(v) => {
                     const chosen = containers.find((c) => String(c.id) === v);
                     setJar(i, { ...jar, containerId: chosen?.id ?? null, tare: chosen ? String(chosen.tareGrams) : jar.tare });
                   }}
-                  options={[...containers.map((c) => ({ value: String(c.id), label: `${c.name} (${gramsText(c.tareGrams)})` })), { value: 'other', label: 'Another' }]}
+                  choices={[...containers.map((c) => ({ value: String(c.id), label: `${c.name} (${gramsText(c.tareGrams)})` })), { value: 'other', label: 'Another' }]}
                 />
               ) : null}
               <View style={styles.pair}>

@@ -5,7 +5,7 @@ import { Callout } from '../ui/callout';
 import { Card } from '../ui/card';
 import { Text } from '../ui/text';
 import { TextField } from '../ui/text-field';
-import { ChoiceRow } from './choice-row';
+import { ChoiceGroup } from '../ui/choice-group';
 import type { CookState } from './cook-state';
 
 type Props = {
@@ -31,20 +31,20 @@ export function StorageStep({ state, containsRice, errors, formError, saving, on
   return (
     <Card aria-label="Storage">
       <Text variant="heading">Storage and use-by</Text>
-      <ChoiceRow
+      <ChoiceGroup
         label="Where it goes"
         value={state.storage}
         onChange={(storage) => reset({ storage })}
-        options={[
+        choices={[
           { value: 'fridge', label: 'Fridge' },
           { value: 'freezer', label: 'Freezer' },
         ]}
       />
-      <ChoiceRow
+      <ChoiceGroup
         label="Food-safety advice to follow"
         value={state.region}
         onChange={(region) => reset({ region })}
-        options={[
+        choices={[
           { value: 'uk', label: 'UK (Food Standards Agency)' },
           { value: 'us', label: 'US (USDA)' },
         ]}

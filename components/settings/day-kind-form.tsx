@@ -8,7 +8,7 @@ import { Callout } from '../ui/callout';
 import { Card } from '../ui/card';
 import { FormTextField } from '../ui/form-text-field';
 import { Text } from '../ui/text';
-import { ChoiceGroup } from './choice-group';
+import { ChoiceGroup } from '../ui/choice-group';
 
 export type DayKindForm = UseFormReturn<DayKindFormValues, unknown, DayKindInput>;
 

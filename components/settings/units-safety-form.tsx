@@ -16,7 +16,7 @@ import { Callout } from '../ui/callout';
 import { Card } from '../ui/card';
 import { FormTextField } from '../ui/form-text-field';
 import { Text } from '../ui/text';
-import { ChoiceGroup } from './choice-group';
+import { ChoiceGroup } from '../ui/choice-group';
 
 const GLUCOSE_FIELDS = ['targetLow', 'targetHigh', 'correctionTarget', 'hypoThreshold', 'veryHigh'] as const;
 export const SETTINGS_FIELDS: FieldPath<ProfileSettingsFormValues>[] = [
