@@ -3,6 +3,7 @@ import { StyleSheet, View } from 'react-native';
 import { useMe, useSignOut } from '../api/auth';
 import { Button } from '../ui/button';
 import { Card } from '../ui/card';
+import { LinkCard } from '../ui/link-card';
 import { Screen } from '../ui/screen';
 import { ErrorState, LoadingState } from '../ui/states';
 import { Text } from '../ui/text';
@@ -33,38 +34,24 @@ export function MoreScreen() {
           ))
         )}
       </Card>
-      <Card>
-        <Text variant="heading">Settings</Text>
-        <Text color="textMuted">Units, safety limits, day kinds with their ratios, and the change history.</Text>
-        <View style={styles.actions}>
-          <Link href="/settings" asChild>
-            <Button variant="secondary" label="Settings" />
-          </Link>
-        </View>
-      </Card>
-      <Card>
-        <Text variant="heading">Food table</Text>
-        <Text color="textMuted">Search carbohydrate per 100 g and per household measure, or add a food from a package label.</Text>
-        <View style={styles.actions}>
-          <Link href="/foods" asChild>
-            <Button variant="secondary" label="Food table" />
-          </Link>
-          {user.role === 'admin' ? (
-            <Link href="/admin/imports" asChild>
-              <Button variant="secondary" label="Imports" />
-            </Link>
-          ) : null}
-        </View>
-      </Card>
-      <Card>
-        <Text variant="heading">Pots and containers</Text>
-        <Text color="textMuted">Saved pots and containers with their empty weights, used when you cook and split a batch.</Text>
-        <View style={styles.actions}>
-          <Link href="/kitchen" asChild>
-            <Button variant="secondary" label="Kitchen: containers and batches" />
-          </Link>
-        </View>
-      </Card>
+      <LinkCard
+        title="Settings"
+        description="Units, safety limits, day kinds with their ratios, and the change history."
+        links={[{ href: '/settings', label: 'Settings' }]}
+      />
+      <LinkCard
+        title="Food table"
+        description="Search carbohydrate per 100 g and per household measure, or add a food from a package label."
+        links={[
+          { href: '/foods', label: 'Food table' },
+          ...(user.role === 'admin' ? [{ href: '/admin/imports', label: 'Imports' }] : []),
+        ]}
+      />
+      <LinkCard
+        title="Pots and containers"
+        description="Saved pots and containers with their empty weights, used when you cook and split a batch."
+        links={[{ href: '/kitchen', label: 'Kitchen: containers and batches' }]}
+      />
       <Card>
         <Text variant="heading">Account</Text>
         <Text color="textMuted">Role: {user.role}</Text>

@@ -1,13 +1,9 @@
-import { Link } from 'expo-router';
-import { StyleSheet, View } from 'react-native';
 import { useActiveProfile } from '../api/auth';
 import { useDayKinds, useProfileSettings } from '../api/profile-settings';
-import { Button } from '../ui/button';
 import { Callout } from '../ui/callout';
-import { Card } from '../ui/card';
+import { LinkCard } from '../ui/link-card';
 import { Screen } from '../ui/screen';
 import { ErrorState, LoadingState } from '../ui/states';
-import { Text } from '../ui/text';
 
 /** Settings: where units and safety limits, day kinds and the change history live. */
 export function SettingsHomeScreen() {
@@ -30,41 +26,21 @@ export function SettingsHomeScreen() {
           filled in. Use the numbers your diabetes team gave you.
         </Callout>
       )}
-      <Card>
-        <Text variant="heading">Units and safety limits</Text>
-        <Text color="textMuted">
-          {settings.data.settings ? 'Set.' : 'Not set yet.'} Glucose and carbohydrate units, pen steps, maximum dose,
-          action time, targets and the exercise table.
-        </Text>
-        <View style={styles.actions}>
-          <Link href="/settings/units" asChild>
-            <Button label="Units and safety limits" variant="secondary" />
-          </Link>
-        </View>
-      </Card>
-      <Card>
-        <Text variant="heading">Day kinds and ratios</Text>
-        <Text color="textMuted">
-          {dayKinds.data.length ? dayKinds.data.map((k) => k.name).join(', ') : 'None yet.'} Each kind of day holds its
-          insulin-to-carb ratios and correction factors by time of day.
-        </Text>
-        <View style={styles.actions}>
-          <Link href="/settings/day-kinds" asChild>
-            <Button label="Day kinds and ratios" variant="secondary" />
-          </Link>
-        </View>
-      </Card>
-      <Card>
-        <Text variant="heading">Change history</Text>
-        <Text color="textMuted">Who changed what, and when, with the old and new values.</Text>
-        <View style={styles.actions}>
-          <Link href="/settings/history" asChild>
-            <Button label="Change history" variant="secondary" />
-          </Link>
-        </View>
-      </Card>
+      <LinkCard
+        title="Units and safety limits"
+        description={`${settings.data.settings ? 'Set.' : 'Not set yet.'} Glucose and carbohydrate units, pen steps, maximum dose, action time, targets and the exercise table.`}
+        links={[{ href: '/settings/units', label: 'Units and safety limits' }]}
+      />
+      <LinkCard
+        title="Day kinds and ratios"
+        description={`${dayKinds.data.length ? dayKinds.data.map((k) => k.name).join(', ') : 'None yet.'} Each kind of day holds its insulin-to-carb ratios and correction factors by time of day.`}
+        links={[{ href: '/settings/day-kinds', label: 'Day kinds and ratios' }]}
+      />
+      <LinkCard
+        title="Change history"
+        description="Who changed what, and when, with the old and new values."
+        links={[{ href: '/settings/history', label: 'Change history' }]}
+      />
     </Screen>
   );
 }
-
-const styles = StyleSheet.create({ actions: { flexDirection: 'row', flexWrap: 'wrap', gap: 12 } });
