@@ -2,6 +2,7 @@ import { forwardRef, useId } from 'react';
 import { StyleSheet, TextInput, View, type TextInputProps } from 'react-native';
 import { MIN_TOUCH } from '../theme/tokens';
 import { useTheme } from '../theme/use-theme';
+import { FieldMessage } from './field-message';
 import { Text } from './text';
 
 export type TextFieldProps = TextInputProps & { label: string; error?: string; hint?: string; unit?: string };
@@ -38,16 +39,7 @@ export const TextField = forwardRef<TextInput, TextFieldProps>(function TextFiel
           </Text>
         ) : null}
       </View>
-      {hint && !error ? (
-        <Text variant="caption" color="textMuted">
-          {hint}
-        </Text>
-      ) : null}
-      {error ? (
-        <Text variant="caption" color="danger" role="alert">
-          {error}
-        </Text>
-      ) : null}
+      <FieldMessage hint={hint} error={error} />
     </View>
   );
 });
