@@ -2,10 +2,9 @@ import fs from 'node:fs';
 import path from 'node:path';
 import { emptyNutrients, type NutrientKey } from '../../shared/compute/nutrients';
 import { SkipLog, USDA_LICENCE, type FoodInput, type ParsedDataset, type ProgressFn } from './dataset';
-import { completeEnergy, deriveCarbs } from './food-rows';
 import { ImportFileError } from './import-error';
 import { FDC_LAYOUT, headerIndex, parseAmount, readRows, requireFile, type Row } from './read-rows';
-import { formatAmount, SR_NUTRIENTS, USDA_CARB_NOTE } from './usda-nutrients';
+import { finishUsdaFoods, formatAmount, SR_NUTRIENTS, USDA_CARB_NOTE } from './usda-nutrients';
 
 export const FDC_ATTRIBUTION = 'U.S. Department of Agriculture, Agricultural Research Service. FoodData Central (fdc.nal.usda.gov).';
 
@@ -104,7 +103,7 @@ export async function parseFdc(folder: string, onProgress?: ProgressFn): Promise
     if (rowsRead % 50_000 === 0) onProgress?.('food_nutrient.csv', rowsRead);
   }
 
-  const portions: { id: string; seq: number; label: string; grams: number }[] = [];
+  const portions: { key: string; seq: number; label: string; grams: number }[] = [];
   for await (const r of fdcRows(folder, 'food_portion.csv', ['fdc_id', 'seq_num', 'amount', 'measure_unit_id', 'modifier', 'gram_weight'], ['portion_description'])) {
     rowsRead += 1;
     const id = r.get('fdc_id').trim();
@@ -116,17 +115,9 @@ export async function parseFdc(folder: string, onProgress?: ProgressFn): Promise
     const what = [unit, r.get('modifier').trim()].filter(Boolean).join(' ') || r.get('portion_description').trim();
     if (!foods.has(id)) skipped.add('portion for a food not imported from food.csv', `food_portion.csv line ${r.line}`);
     else if (grams == null || grams <= 0 || !what) skipped.add('portion without a weight or a description', `food_portion.csv line ${r.line}`);
-    else portions.push({ id, seq, label: amount != null ? `${formatAmount(amount)} ${what}` : what, grams });
+    else portions.push({ key: id, seq, label: amount != null ? `${formatAmount(amount)} ${what}` : what, grams });
   }
-  portions.sort((a, b) => a.seq - b.seq);
-  for (const p of portions) foods.get(p.id)!.measures.push({ label: p.label, grams: p.grams });
-
-  for (const food of foods.values()) {
-    const { nutrients, derived } = deriveCarbs(food.nutrients, 'total');
-    completeEnergy(nutrients, derived);
-    food.nutrients = nutrients;
-    food.derived = derived;
-  }
+  finishUsdaFoods(foods, portions);
   onProgress?.('files read', rowsRead);
   return {
     dataset: 'usda_fdc',

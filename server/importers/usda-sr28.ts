@@ -1,9 +1,8 @@
 import { emptyNutrients } from '../../shared/compute/nutrients';
 import { SkipLog, USDA_LICENCE, type FoodInput, type ParsedDataset, type ProgressFn } from './dataset';
-import { completeEnergy, deriveCarbs } from './food-rows';
 import { ImportFileError } from './import-error';
 import { parseAmount, readRows, requireFile, SR28_LAYOUT, type Row } from './read-rows';
-import { formatAmount, SR_NUTRIENTS, USDA_CARB_NOTE } from './usda-nutrients';
+import { finishUsdaFoods, formatAmount, SR_NUTRIENTS, USDA_CARB_NOTE } from './usda-nutrients';
 
 const FIELDS = {
   'FD_GROUP.txt': ['FdGrp_Cd', 'FdGrp_Desc'],
@@ -89,7 +88,7 @@ export async function parseSr28(folder: string, onProgress?: ProgressFn): Promis
     if (rowsRead % 50_000 === 0) onProgress?.('NUT_DATA.txt', rowsRead);
   }
 
-  const measures: { code: string; seq: number; label: string; grams: number }[] = [];
+  const measures: { key: string; seq: number; label: string; grams: number }[] = [];
   for await (const r of srRows(folder, 'WEIGHT.txt')) {
     rowsRead += 1;
     const code = r.get('NDB_No').trim();
@@ -98,17 +97,9 @@ export async function parseSr28(folder: string, onProgress?: ProgressFn): Promis
     const seq = parseAmount(r.get('Seq'), 'WEIGHT.txt', r.line, 'Seq') ?? 0;
     if (!foods.has(code)) skipped.add('household measure for a food not in FOOD_DES.txt', `WEIGHT.txt line ${r.line}`);
     else if (grams == null || grams <= 0 || amount == null || amount <= 0) skipped.add('household measure without a positive amount and weight', `WEIGHT.txt line ${r.line}`);
-    else measures.push({ code, seq, label: `${formatAmount(amount)} ${r.get('Msre_Desc').trim()}`, grams });
+    else measures.push({ key: code, seq, label: `${formatAmount(amount)} ${r.get('Msre_Desc').trim()}`, grams });
   }
-  measures.sort((a, b) => a.seq - b.seq);
-  for (const m of measures) foods.get(m.code)!.measures.push({ label: m.label, grams: m.grams });
-
-  for (const food of foods.values()) {
-    const { nutrients, derived } = deriveCarbs(food.nutrients, 'total');
-    completeEnergy(nutrients, derived);
-    food.nutrients = nutrients;
-    food.derived = derived;
-  }
+  finishUsdaFoods(foods, measures);
   onProgress?.('files read', rowsRead);
   return { dataset: 'usda_sr28', version: 'SR28 (May 2016)', attribution: SR28_ATTRIBUTION, licence: USDA_LICENCE, foods: [...foods.values()], rowsRead, skipped };
 }
