@@ -33,7 +33,7 @@ const lineHeights = StyleSheet.create({
   body: { lineHeight: 23 },
   label: { lineHeight: 20 },
   caption: { lineHeight: 18 },
-  number: { lineHeight: 50, fontVariant: ['tabular-nums'] },
+  number: { lineHeight: 50 },
 });
 
 const styles = StyleSheet.create({ base: {} });
