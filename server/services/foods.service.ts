@@ -93,19 +93,23 @@ export async function getFoodPhotoPath(id: number, userId: number): Promise<stri
 
 const FUZZY_BELOW = 20;
 
-/** Up to 3 lexicon words closest to a typed word (pg_trgm similarity ≥ its default 0.3). */
-async function nearWords(word: string): Promise<string[]> {
-  const rows = await FoodModel.sequelize!.query<{ word: string }>(
-    'SELECT word FROM food_words WHERE word % :word ORDER BY similarity(word, :word) DESC, word LIMIT 3',
+/**
+ * Up to 3 lexicon words (words of table-food names and aliases) closest to a typed word, with their
+ * pg_trgm similarity (≥ its default 0.3).
+ */
+async function nearWords(word: string): Promise<{ word: string; sim: number }[]> {
+  const rows = await FoodModel.sequelize!.query<{ word: string; sim: number }>(
+    'SELECT word, similarity(word, :word)::float8 AS sim FROM food_words WHERE word % :word ORDER BY sim DESC, word LIMIT 3',
     { replacements: { word }, type: QueryTypes.SELECT },
   );
-  return rows.map((r) => r.word);
+  return rows.map((r) => ({ word: r.word, sim: Number(r.sim) }));
 }
 const escapeLike = (s: string) => s.replace(/[\\%_]/g, (c) => `\\${c}`);
 
 /**
  * Ranked, paginated food search. Matching: every word as a substring of the name or an alias (prefix-as-you-type);
- * when that finds fewer than 20 foods, each word may also be one of its nearest lexicon words (typos). Ranking: exact name, name prefix, word prefix, substring, fuzzy; within a tier
+ * when that finds fewer than 20 foods, each word may also be one of its nearest lexicon words (typos in names and
+ * aliases). Ranking: exact name, name prefix, word prefix, substring, fuzzy (closer corrections first); within a tier
  * plain raw foods before processed variants (rank_penalty), then closeness and shorter names.
  * The text is only ever a bound parameter.
  */
@@ -141,6 +145,7 @@ export async function searchFoods(query: FoodSearchQuery, userId: number): Promi
   // Typos: when the words as typed match too few foods, each word may also match its nearest words in the
   // table's lexicon (trigram similarity on short strings, index-backed), searched as substrings like the rest.
   let match = allWords;
+  let closeness = '';
   if (q) {
     const [{ n }] = await sequelize.query<{ n: number }>(
       `SELECT count(*)::int AS n FROM (SELECT 1 FROM foods f WHERE ${scope} AND ${allWords} LIMIT ${FUZZY_BELOW}) hits`,
@@ -148,12 +153,20 @@ export async function searchFoods(query: FoodSearchQuery, userId: number): Promi
     );
     if (n < FUZZY_BELOW) {
       const perWord: string[] = [];
+      const scores: string[] = [];
       for (const [i, w] of words.entries()) {
         const near = w.length >= 3 ? await nearWords(w) : [];
-        near.forEach((word, k) => (repl[`w${i}n${k}`] = `%${escapeLike(word)}%`));
+        near.forEach(({ word, sim }, k) => {
+          repl[`w${i}n${k}`] = `%${escapeLike(word)}%`;
+          repl[`w${i}s${k}`] = sim;
+        });
         perWord.push(`(${[`f.search_text LIKE :w${i}`, ...near.map((_, k) => `f.search_text LIKE :w${i}n${k}`)].join(' OR ')})`);
+        // A word as typed scores 1, a correction its similarity: a near-miss of a rare local name outranks a
+        // short common word that only resembles it, whatever the rank penalty of the foods carrying them.
+        scores.push(`GREATEST(CASE WHEN f.search_text LIKE :w${i} THEN 1 ELSE 0 END${near.map((_, k) => `, CASE WHEN f.search_text LIKE :w${i}n${k} THEN :w${i}s${k} ELSE 0 END`).join('')})`);
       }
       match = perWord.join(' AND ');
+      closeness = `round((${scores.join(' + ')})::numeric, 1) DESC,`;
     }
   }
   const rows = await sequelize.query<Record<string, unknown>>(
@@ -168,6 +181,7 @@ export async function searchFoods(query: FoodSearchQuery, userId: number): Promi
              WHEN (' ' || f.search_text) LIKE :wordPrefix THEN 2
              WHEN ${allWords} THEN 3
              ELSE 4 END,
+        ${closeness}
         f.rank_penalty,
         ${q ? 'similarity(:q, f.name_key) DESC,' : ''}
         length(f.name),
