@@ -15,15 +15,18 @@ export const containerSchema = z.object({
 });
 export type Container = z.infer<typeof containerSchema>;
 
-export const createContainerInputSchema = z.object({
+const containerFields = {
   name: z.string().trim().min(1, 'Give it a name, e.g. "Big blue pot".').max(80, 'Use at most 80 characters.'),
-  kind: containerKindSchema.default('container'),
+  kind: containerKindSchema,
   tareGrams: z.coerce
     .number({ error: 'Enter the empty weight in grams.' })
     .min(0, 'The empty weight cannot be negative.')
     .max(20_000, 'That is heavier than any kitchen scale reads (20 kg).'),
-});
+};
+
+export const createContainerInputSchema = z.object({ ...containerFields, kind: containerKindSchema.default('container') });
 export type CreateContainerInput = z.input<typeof createContainerInputSchema>;
 
-export const updateContainerInputSchema = createContainerInputSchema.partial();
+/** Only the fields sent change (no defaults here: a rename must not turn a pot into a container). */
+export const updateContainerInputSchema = z.object(containerFields).partial();
 export type UpdateContainerInput = z.input<typeof updateContainerInputSchema>;
