@@ -178,7 +178,7 @@ export async function createBatch(profileId: number, userId: number, input: Crea
   const batch = computeBatch(lines, cookedGrams, 'available');
   const carbAvailable = carbInBasis(batch.totals, 'available');
   const carbTotal = carbInBasis(batch.totals, 'total');
-  const containsRice = input.ingredients.some((l) => !l.omitted && /\brice\b/i.test(foods.get(l.foodId)!.name));
+  const containsRice = input.ingredients.some((l) => !l.omitted && isRice(foods.get(l.foodId)!.name));
   const rule = defaultUseBy(input.cookedOn, input.storage, input.region, containsRice);
   const sequelize = BatchModel.sequelize!;
 
@@ -270,9 +270,11 @@ async function findContainerOr400(profileId: number, id: number, field: string, 
   });
 }
 
-/** Moves a batch between fridge and freezer or corrects its use-by date (default follows the new storage). */
+const isRice = (foodName: string) => /\brice\b/i.test(foodName);
+
+/** Moves a batch between fridge and freezer or corrects its use-by date (default follows the new storage, rice rule included). */
 export async function updateBatch(profileId: number, id: number, input: UpdateBatchInput): Promise<BatchDetail> {
-  const batch = await BatchModel.findOne({ where: { id, profileId } });
+  const batch = await BatchModel.findOne({ where: { id, profileId }, include: [{ model: BatchIngredientModel, as: 'ingredients' }] });
   if (!batch) throw AppError.notFound('batch');
   if (input.useBy && input.useBy < batch.cookedOn) {
     throw AppError.validation({ useBy: ['The use-by date cannot be before the cooking date.'] });
@@ -282,7 +284,8 @@ export async function updateBatch(profileId: number, id: number, input: UpdateBa
     batch.useBy = input.useBy;
     batch.useBySource = 'Set by the cook';
   } else if (input.storage) {
-    const rule = defaultUseBy(batch.cookedOn, batch.storage, input.region ?? 'uk');
+    const containsRice = (batch.ingredients ?? []).some((l) => !l.omitted && isRice(l.foodName));
+    const rule = defaultUseBy(batch.cookedOn, batch.storage, input.region ?? 'uk', containsRice);
     Object.assign(batch, { useBy: rule.useBy, useBySource: rule.source, useByNote: rule.note });
   }
   await batch.save();

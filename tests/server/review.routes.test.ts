@@ -1,5 +1,6 @@
 import request from 'supertest';
 import { bearer, signUpUser, startTestApp, type TestContext } from '../helpers/api';
+import { makeFood, makeRecipe, postBatch } from './batches-fixtures';
 
 let ctx: TestContext;
 beforeAll(async () => {
@@ -26,5 +27,34 @@ describe('PATCH /api/profiles/:profileId/containers/:id', () => {
     expect(renamed.status).toBe(200);
     expect(renamed.body).toMatchObject({ name: 'Big blue pot', kind: 'pot', tareGrams: 1450 });
     expect(list.body.items).toEqual([expect.objectContaining({ id: pot.body.id, kind: 'pot' })]);
+  });
+});
+
+describe('PATCH /api/profiles/:profileId/batches/:id', () => {
+  it('gives a rice batch moved from the freezer to the fridge the one-day rice use-by date', async () => {
+    const m = await member();
+    // USDA SR Legacy NDB 20045, rice, white, long-grain, cooked: 28.17 g total carbohydrate, 0.4 g fibre (check-values §11).
+    const rice = await makeFood('Rice, white, long-grain, cooked', { carbTotal: 28.17, fibre: 0.4 });
+    const recipe = await makeRecipe(m.userId, 'Plain rice', [{ foodId: rice.id, grams: 500 }]);
+    const created = await postBatch(ctx.app, m.token, m.profileId, {
+      recipeId: recipe.id,
+      cookedOn: '2026-03-10',
+      storage: 'freezer',
+      region: 'uk',
+      ingredients: [{ foodId: rice.id, plannedGrams: 500, actualGrams: 500 }],
+      cookedWeight: { grossGrams: 500, tareGrams: 0 },
+      split: { mode: 'equal', count: 2 },
+    });
+
+    const moved = await request(ctx.app)
+      .patch(`/api/profiles/${m.profileId}/batches/${created.body.id}`)
+      .set(bearer(m.token))
+      .send({ storage: 'fridge', region: 'uk' });
+
+    expect(created.status).toBe(201);
+    expect(moved.status).toBe(200);
+    // check-values T26: UK cooked rice in the fridge, D+1 (FSA); other leftovers D+2.
+    expect(moved.body).toMatchObject({ storage: 'fridge', useBy: '2026-03-11' });
+    expect(moved.body.useBySource).toMatch(/cooked rice/);
   });
 });
