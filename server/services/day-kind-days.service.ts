@@ -29,9 +29,13 @@ export async function setDayKindDay(profileId: number, date: string, userId: num
   } else {
     const kind = await DayKindModel.findOne({ where: { id: input.dayKindId, profileId } });
     if (!kind) throw AppError.validation({ dayKindId: ['That day kind is not on this profile.'] });
-    const existing = await DayKindDayModel.findOne({ where: { profileId, date } });
-    if (existing) await existing.update({ dayKindId: kind.id, setByUserId: userId });
-    else await DayKindDayModel.create({ profileId, date, dayKindId: kind.id, setByUserId: userId });
+    // One statement, so two people setting the same date at once cannot trip over the unique index.
+    await DayKindDayModel.sequelize!.query(
+      `INSERT INTO day_kind_days (profile_id, date, day_kind_id, set_by_user_id, created_at, updated_at)
+       VALUES (:profileId, :date, :dayKindId, :userId, now(), now())
+       ON CONFLICT (profile_id, date) DO UPDATE SET day_kind_id = EXCLUDED.day_kind_id, set_by_user_id = EXCLUDED.set_by_user_id, updated_at = now()`,
+      { replacements: { profileId, date, dayKindId: kind.id, userId } },
+    );
   }
   return (await listDayKindDays(profileId, date, date))[0];
 }

@@ -58,3 +58,29 @@ describe('PATCH /api/profiles/:profileId/batches/:id', () => {
     expect(moved.body.useBySource).toMatch(/cooked rice/);
   });
 });
+
+describe('PUT /api/profiles/:profileId/days/:date', () => {
+  it('answers every one of several simultaneous requests for the same date, and keeps one of them', async () => {
+    const m = await member();
+    const kinds: number[] = [];
+    for (const name of ['Rest', 'Ride']) {
+      const res = await request(ctx.app)
+        .post(`/api/profiles/${m.profileId}/day-kinds`)
+        .set(bearer(m.token))
+        .send({ name, isDefault: name === 'Rest', longActingUnits: 18, glucoseUnit: 'mmol_l', blocks: [{ from: '00:00', to: '24:00', carbRatio: 10, correctionFactor: 2 }] });
+      kinds.push(res.body.id);
+    }
+
+    const answers = await Promise.all(
+      Array.from({ length: 8 }, (_, i) =>
+        request(ctx.app).put(`/api/profiles/${m.profileId}/days/2026-03-03`).set(bearer(m.token)).send({ dayKindId: kinds[i % 2] }),
+      ),
+    );
+    const day = await request(ctx.app).get(`/api/profiles/${m.profileId}/days?from=2026-03-03&to=2026-03-03`).set(bearer(m.token));
+
+    expect(answers.map((a) => a.status)).toEqual(Array(8).fill(200));
+    expect(day.body.days).toHaveLength(1);
+    expect(kinds).toContain(day.body.days[0].dayKindId);
+    expect(day.body.days[0].isSet).toBe(true);
+  });
+});
