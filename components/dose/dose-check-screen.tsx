@@ -21,6 +21,7 @@ import { ErrorState, LoadingState } from '../ui/states';
 import { Text } from '../ui/text';
 import { DoseBreakdownView } from './dose-breakdown';
 import { DoseCaution } from './dose-caution';
+import { EarlierDosesFields, earlierDoseField, earlierDosesRequest, type EarlierDoseRow } from './earlier-doses-fields';
 
 type Values = {
   carbsGrams: string;
@@ -34,8 +35,7 @@ type Values = {
   splitOn: boolean;
   splitNow: string;
   splitLater: string;
-  earlierUnits: string;
-  earlierMinutesAgo: string;
+  earlierDoses: EarlierDoseRow[];
   fatGrams: string;
   proteinGrams: string;
 };
@@ -44,13 +44,13 @@ type Values = {
 const FIELD_OF: Record<string, FieldPath<Values>> = {
   carbsGrams: 'carbsGrams',
   glucose: 'glucose',
+  glucoseTakenAt: 'glucoseMinutesAgo',
   localTime: 'localTime',
   dayKindId: 'dayKindId',
   'exercise.durationMinutes': 'exerciseDuration',
   'exercise.startsInMinutes': 'exerciseStartsIn',
   'split.nowPercent': 'splitNow',
   'split.laterMinutes': 'splitLater',
-  'earlierDoses.0.units': 'earlierUnits',
   fatGrams: 'fatGrams',
   proteinGrams: 'proteinGrams',
 };
@@ -89,8 +89,7 @@ export function DoseCheckScreen({ carbs, portion, label }: DoseCheckParams) {
       splitOn: false,
       splitNow: '60',
       splitLater: '60',
-      earlierUnits: '',
-      earlierMinutesAgo: '',
+      earlierDoses: [],
       fatGrams: '',
       proteinGrams: '',
     },
@@ -119,7 +118,12 @@ export function DoseCheckScreen({ carbs, portion, label }: DoseCheckParams) {
     setFormError(undefined);
     form.clearErrors();
     const now = Date.now();
-    const minutesAgo = (s: string) => new Date(now - Number(s.replace(',', '.') || 0) * 60_000).toISOString();
+    const minutesAgo = (s: string) => {
+      const minutes = Number(s.replace(',', '.') || 0);
+      return Number.isFinite(minutes) && minutes >= 0 ? new Date(now - minutes * 60_000).toISOString() : 'not a time';
+    };
+    const earlier = earlierDosesRequest(v.earlierDoses, now);
+    const rowOfDose = earlier.doses.map((d) => d.row);
     const request = {
       carbsGrams: v.carbsGrams,
       glucose: blank(v.glucose) ? null : v.glucose,
@@ -129,7 +133,7 @@ export function DoseCheckScreen({ carbs, portion, label }: DoseCheckParams) {
       localTime: v.localTime,
       dayKindId: v.dayKindId,
       date: today,
-      earlierDoses: blank(v.earlierUnits) ? [] : [{ units: v.earlierUnits, takenAt: minutesAgo(v.earlierMinutesAgo) }],
+      earlierDoses: earlier.doses.map(({ units, takenAt }) => ({ units, takenAt })),
       exercise: v.exerciseIntensity === 'none' ? null : { intensity: v.exerciseIntensity, durationMinutes: v.exerciseDuration, startsInMinutes: v.exerciseStartsIn },
       split: v.splitOn ? { nowPercent: v.splitNow, laterMinutes: v.splitLater } : null,
       fatGrams: v.fatGrams,
@@ -138,15 +142,16 @@ export function DoseCheckScreen({ carbs, portion, label }: DoseCheckParams) {
     const place = (fieldErrors: Record<string, string[]>) => {
       let unplaced: string | undefined;
       for (const [path, messages] of Object.entries(fieldErrors)) {
-        const field = FIELD_OF[path] ?? (path.startsWith('earlierDoses') ? 'earlierMinutesAgo' : undefined);
+        const field = FIELD_OF[path] ?? (earlierDoseField(path, rowOfDose) as FieldPath<Values> | undefined);
         if (field) form.setError(field, { message: messages[0] });
         else unplaced = messages[0];
       }
       if (unplaced) setFormError(unplaced);
     };
     const parsed = doseRequestSchema.safeParse(request);
-    if (!parsed.success) {
-      const errors: Record<string, string[]> = {};
+    if (!parsed.success || Object.keys(earlier.errors).length) {
+      const errors: Record<string, string[]> = { ...earlier.errors };
+      if (parsed.success) return place(errors);
       for (const issue of parsed.error.issues) (errors[issue.path.join('.')] ??= []).push(issue.message);
       place(errors);
       return;
@@ -280,14 +285,7 @@ export function DoseCheckScreen({ carbs, portion, label }: DoseCheckParams) {
                 </View>
               </View>
             ) : null}
-            <View style={styles.pair}>
-              <View style={styles.grow}>
-                <FormTextField control={form.control} name="earlierUnits" style={styles.input} label="Rapid insulin taken recently" unit="units" inputMode="decimal" hint="Leave empty if none within your action time." />
-              </View>
-              <View style={styles.grow}>
-                <FormTextField control={form.control} name="earlierMinutesAgo" style={styles.input} label="Taken" unit="min ago" inputMode="numeric" />
-              </View>
-            </View>
+            <EarlierDosesFields control={form.control} />
             <Controller
               control={form.control}
               name="splitOn"

@@ -1,26 +1,53 @@
 import { Link } from 'expo-router';
-import { useMe } from '../api/auth';
+import { useState } from 'react';
+import { StyleSheet, View } from 'react-native';
+import { useActiveProfile, useMe } from '../api/auth';
+import { localToday } from '../kitchen/kitchen-format';
+import { useLayout } from '../theme/use-theme';
 import { Button } from '../ui/button';
 import { Screen } from '../ui/screen';
-import { EmptyState } from '../ui/states';
+import { ErrorState, LoadingState } from '../ui/states';
+import { TodayDayKindCard } from './today-day-kind';
+import { TodayPortionsCard } from './today-portions';
 
 function todayLabel(now: Date) {
   return now.toLocaleDateString(undefined, { weekday: 'long', day: 'numeric', month: 'long' });
 }
 
-/** Today: the day's kind, planned meals and logging. */
+/** Today: the day's kind (which ratios apply), a dose check, and the portions waiting in the fridge and freezer. */
 export function TodayScreen() {
   const me = useMe();
+  const { profile } = useActiveProfile();
+  const { isWide } = useLayout();
+  const [today] = useState(() => localToday());
   const name = me.data?.user.displayName;
   return (
     <Screen title={name ? `Good to see you, ${name}` : 'Today'} subtitle={todayLabel(new Date())}>
       <Link href="/dose-check" asChild>
         <Button label="Check a dose" size="lg" />
       </Link>
-      <EmptyState title="Nothing planned for today yet">
-        Once you cook a batch and plan the week, today&apos;s meals appear here with their carbohydrate, and you can
-        check a dose and log what you ate and injected.
-      </EmptyState>
+      {me.isPending ? (
+        <LoadingState />
+      ) : me.isError ? (
+        <ErrorState error={me.error} onRetry={() => void me.refetch()} />
+      ) : profile ? (
+        <View style={[styles.columns, isWide && styles.columnsWide]}>
+          <View style={[styles.column, isWide && styles.side]}>
+            <TodayDayKindCard profileId={profile.id} today={today} />
+          </View>
+          <View style={[styles.column, isWide && styles.main]}>
+            <TodayPortionsCard profileId={profile.id} unit={profile.carbUnit} today={today} />
+          </View>
+        </View>
+      ) : null}
     </Screen>
   );
 }
+
+const styles = StyleSheet.create({
+  columns: { gap: 16 },
+  columnsWide: { flexDirection: 'row', alignItems: 'flex-start' },
+  column: { gap: 16 },
+  side: { flex: 2 },
+  main: { flex: 3 },
+});

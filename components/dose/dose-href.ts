@@ -1,0 +1,4 @@
+/** The dose check pre-filled for a portion: its code, carbohydrate in grams (empty when unknown) and title. */
+export function doseCheckHref(portion: { code: string; carbGrams: number | null; label: string }): string {
+  return `/dose-check?portion=${encodeURIComponent(portion.code)}&carbs=${portion.carbGrams ?? ''}&label=${encodeURIComponent(portion.label)}`;
+}

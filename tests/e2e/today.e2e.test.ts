@@ -1,0 +1,198 @@
+import type { Page } from 'playwright-core';
+import request from 'supertest';
+import { FoodModel } from '../../server/models';
+import { activeInsulin } from '../../shared/compute/active-insulin';
+import { DEFAULT_EXERCISE_REDUCTIONS } from '../../shared/compute/exercise';
+import { formatCarb } from '../../shared/compute/units';
+import { PHONE, WIDE, startBrowserRig, type BrowserRig } from '../helpers/browser';
+
+let rig: BrowserRig;
+beforeAll(async () => {
+  rig = await startBrowserRig('today');
+});
+afterAll(async () => {
+  await rig?.close();
+});
+
+const localToday = () => {
+  const d = new Date();
+  return `${d.getFullYear()}-${String(d.getMonth() + 1).padStart(2, '0')}-${String(d.getDate()).padStart(2, '0')}`;
+};
+
+async function signUp(email: string, displayName: string) {
+  const res = await request(rig.baseUrl).post('/api/auth/sign-up').send({ email, displayName, password: 'a long kitchen passphrase' });
+  if (res.status !== 201) throw new Error(`sign-up: ${JSON.stringify(res.body)}`);
+  return { token: res.body.token as string, profileId: res.body.me.profiles[0].id as number, auth: { Authorization: `Bearer ${res.body.token}` } };
+}
+
+/** Invented settings for the test (not anyone's real ratios): action time 4 h, Rest 10 g/U, Long ride 15 g/U. */
+async function setUpDoseSettings(profileId: number, auth: Record<string, string>) {
+  const settings = await request(rig.baseUrl)
+    .put(`/api/profiles/${profileId}/settings`)
+    .set(auth)
+    .send({
+      glucoseUnit: 'mmol_l',
+      carbBasis: 'available',
+      carbUnit: 'g',
+      penIncrement: 0.5,
+      rounding: 'down',
+      maxDoseUnits: 15,
+      actionTimeHours: 4,
+      targetLow: 5,
+      targetHigh: 8,
+      correctionTarget: 6,
+      hypoThreshold: 3.9,
+      veryHigh: 15,
+      allowNegativeCorrection: false,
+      iobConvention: 'correction_only',
+      exerciseReductions: DEFAULT_EXERCISE_REDUCTIONS,
+    });
+  if (settings.status !== 200) throw new Error(`settings: ${JSON.stringify(settings.body)}`);
+  for (const [name, ratio, isDefault] of [
+    ['Rest', 10, true],
+    ['Long ride', 15, false],
+  ] as const) {
+    const kind = await request(rig.baseUrl)
+      .post(`/api/profiles/${profileId}/day-kinds`)
+      .set(auth)
+      .send({ name, isDefault, longActingUnits: null, glucoseUnit: 'mmol_l', blocks: [{ from: '00:00', to: '24:00', carbRatio: ratio, correctionFactor: 3 }] });
+    if (kind.status !== 201) throw new Error(`day kind: ${JSON.stringify(kind.body)}`);
+  }
+}
+
+/** One batch of three equal portions in the fridge; returns the portions as the API gives them. */
+async function cookBatch(profileId: number, auth: Record<string, string>) {
+  // Per 100 g, USDA SR Legacy via check-values §11 ([C2]): rolled oats 67.7 g total carbohydrate, 10.1 g fibre.
+  const oats = await FoodModel.create({
+    source: 'usda_sr28',
+    sourceCode: 'E2E-TODAY-OATS',
+    name: 'Oats, rolled, dry',
+    foodGroup: null,
+    energyKcal: null,
+    energyKj: null,
+    carbAvailable: 67.7 - 10.1,
+    carbTotal: 67.7,
+    fibre: 10.1,
+    sugars: null,
+    protein: null,
+    fat: null,
+    water: null,
+    carbMeasured: 'total',
+    attribution: 'USDA SR Legacy values (test fixture)',
+    licence: 'Public domain',
+  });
+  const recipe = await request(rig.baseUrl)
+    .post('/api/recipes')
+    .set(auth)
+    .send({ title: 'Porridge base', defaultPortions: 3, ingredients: [{ foodId: oats.id, grams: 150 }] });
+  if (recipe.status !== 201) throw new Error(`recipe: ${JSON.stringify(recipe.body)}`);
+  const batch = await request(rig.baseUrl)
+    .post(`/api/profiles/${profileId}/batches`)
+    .set(auth)
+    .send({
+      recipeId: recipe.body.id,
+      cookedOn: localToday(),
+      storage: 'fridge',
+      ingredients: [{ foodId: oats.id, plannedGrams: 150, actualGrams: 150 }],
+      cookedWeight: { grossGrams: 900, tareGrams: 300 },
+      split: { mode: 'equal', count: 3 },
+    });
+  if (batch.status !== 201) throw new Error(`batch: ${JSON.stringify(batch.body)}`);
+  return batch.body.portions as { code: string; carb: { grams: number } }[];
+}
+
+async function signedIn(token: string, viewport: { width: number; height: number }, path: string): Promise<Page> {
+  const page = await rig.newPage(viewport);
+  await page.goto(`${rig.baseUrl}/sign-in`);
+  await page.evaluate((t) => localStorage.setItem('carbwright.session', t), token);
+  await page.goto(`${rig.baseUrl}${path}`);
+  return page;
+}
+
+describe('Today in the browser', () => {
+  let sam: Awaited<ReturnType<typeof signUp>>;
+  let portions: { code: string; carb: { grams: number } }[];
+  beforeAll(async () => {
+    sam = await signUp('today-sam@example.test', 'Sam');
+    await setUpDoseSettings(sam.profileId, sam.auth);
+    portions = await cookBatch(sam.profileId, sam.auth);
+  });
+
+  it('switches today to another day kind on a phone, and the dose check for a fridge portion uses its ratio and adds up two earlier doses', async () => {
+    const page = await signedIn(sam.token, PHONE, '/');
+    const kindNow = page.getByLabel('Today’s kind of day', { exact: true });
+    await kindNow.waitFor();
+    await expect(kindNow.innerText()).resolves.toBe('Rest');
+    await page.getByText('Your default kind of day.', { exact: false }).waitFor();
+    await page.getByText('In the fridge and freezer').waitFor();
+    // The portion's carbohydrate comes from the API's own batch answer, shown in the profile unit.
+    await page.getByText(formatCarb(portions[0].carb.grams, 'g'), { exact: true }).first().waitFor();
+    await expect(page.getByRole('link', { name: /^Check a dose for Porridge base/ }).count()).resolves.toBe(3);
+    await rig.shot(page, 'phone-today-rest');
+
+    await page.getByRole('radio', { name: 'Long ride' }).click();
+    await page.getByText('Chosen for today.', { exact: false }).waitFor();
+    await expect(kindNow.innerText()).resolves.toBe('Long ride');
+    await rig.shot(page, 'phone-today-long-ride');
+    const days = await request(rig.baseUrl).get(`/api/profiles/${sam.profileId}/days?from=${localToday()}&to=${localToday()}`).set(sam.auth);
+    expect(days.body.days[0]).toMatchObject({ dayKindName: 'Long ride', isSet: true });
+
+    await page.getByRole('link', { name: /^Check a dose for Porridge base/ }).first().click();
+    await page.getByRole('heading', { name: 'Check a dose' }).waitFor();
+    await page.getByText('For: Porridge base (portion', { exact: false }).waitFor();
+    await expect(page.getByLabel('Carbohydrate (available)').inputValue()).resolves.toBe(String(Math.round(portions[0].carb.grams * 10) / 10));
+    await expect(page.getByRole('radio', { name: 'Long ride' }).getAttribute('aria-checked')).resolves.toBe('true');
+    await page.getByLabel('Glucose now').fill('11');
+
+    await page.getByRole('button', { name: 'Add an earlier dose' }).click();
+    await page.getByLabel('Earlier dose 1', { exact: true }).fill('2');
+    await page.getByLabel('Dose 1 taken').fill('30');
+    await page.getByRole('button', { name: 'Add another earlier dose' }).click();
+    await page.getByLabel('Earlier dose 2', { exact: true }).fill('1');
+    await page.getByLabel('Dose 2 taken').fill('abc');
+    await page.getByRole('button', { name: 'Work out a dose' }).click();
+    await page.getByText('Enter how long ago, 0 to 1440 minutes.').waitFor();
+    await rig.shot(page, 'phone-dose-earlier-error');
+    await page.getByLabel('Dose 2 taken').fill('90');
+    await page.getByRole('button', { name: 'Add another earlier dose' }).click();
+    await page.getByLabel('Earlier dose 3', { exact: true }).fill('5');
+    await page.getByRole('button', { name: 'Remove earlier dose 3' }).click();
+    await expect(page.getByLabel('Earlier dose 3', { exact: true }).count()).resolves.toBe(0);
+
+    await page.getByRole('button', { name: 'Work out a dose' }).click();
+    await page.getByText('ratio for Long ride,', { exact: false }).waitFor();
+    // Both doses count: the same curve the server uses, for the same minutes, 4 h action time.
+    const now = Date.now();
+    const both = activeInsulin([{ units: 2, takenAt: now - 30 * 60_000 }, { units: 1, takenAt: now - 90 * 60_000 }], now, 4);
+    const firstOnly = activeInsulin([{ units: 2, takenAt: now - 30 * 60_000 }], now, 4);
+    const u = (n: number) => `${(Math.round(n * 100) / 100).toFixed(2)} u from earlier doses`;
+    expect(u(both)).not.toBe(u(firstOnly));
+    await page.getByText(u(both), { exact: false }).waitFor();
+    await expect(page.getByText('A calculation, not medical advice').isVisible()).resolves.toBe(true);
+    await page.getByText('Insulin still active').scrollIntoViewIfNeeded();
+    await rig.shot(page, 'phone-dose-two-earlier-doses');
+  });
+
+  it('shows the day kind and the fridge side by side at wide width, and honest empty states for a new profile', async () => {
+    const page = await signedIn(sam.token, WIDE, '/');
+    await page.getByLabel('Today’s kind of day', { exact: true }).waitFor();
+    await page.getByText('In the fridge and freezer').waitFor();
+    const kindBox = await page.getByLabel('Kind of day', { exact: true }).boundingBox();
+    const fridgeBox = await page.getByLabel('In the fridge and freezer', { exact: true }).boundingBox();
+    expect(kindBox && fridgeBox && fridgeBox.x > kindBox.x + kindBox.width).toBe(true);
+    await rig.shot(page, 'wide-today');
+
+    await page.getByRole('button', { name: 'Back to the default kind' }).click();
+    await page.getByText('Your default kind of day.', { exact: false }).waitFor();
+    await expect(page.getByLabel('Today’s kind of day', { exact: true }).innerText()).resolves.toBe('Rest');
+
+    const newcomer = await signUp('today-new@example.test', 'Noor');
+    const fresh = await signedIn(newcomer.token, WIDE, '/');
+    await fresh.getByText('No day kinds yet').waitFor();
+    await fresh.getByText('Nothing cooked in the fridge or freezer').waitFor();
+    await expect(fresh.getByRole('link', { name: 'Check a dose' }).isVisible()).resolves.toBe(true);
+    await rig.shot(fresh, 'wide-today-empty');
+    await fresh.getByRole('link', { name: 'Set up day kinds' }).click();
+    await fresh.getByRole('heading', { name: 'Settings', exact: true }).waitFor();
+  });
+});
