@@ -8,9 +8,9 @@ import type { BatchDetail, BatchIngredient, BatchSummary, CreateBatchParsed, Upd
 import type { PortionStatus } from '../../shared/schemas/portion';
 import type { CarbBasis, CarbUnit } from '../../shared/schemas/units';
 import { AppError, type FieldErrors } from '../errors';
-import { BatchIngredientModel, BatchModel, PortionModel, ProfileModel, UserModel } from '../models';
+import { BatchIngredientModel, BatchModel, FoodModel, PortionModel, ProfileModel, RecipeIngredientModel, UserModel } from '../models';
 import { findContainer } from './containers.service';
-import { getUsableFoods } from './foods.service';
+import { getUsableFoods, toFood } from './foods.service';
 import { carbOf, toPortion } from './portions.service';
 import { findViewableRecipe } from './recipes.service';
 
@@ -148,10 +148,19 @@ export async function listBatches(profileId: number, include: 'available' | 'all
 
 type Snapshot = { foodId: number; name: string; source: string; per100g: Nutrients };
 
-/** Loads every food the batch names (used and swapped-from) as the cook may use them; unknown ids → 400 per line. */
-async function snapshotFoods(input: CreateBatchParsed, userId: number): Promise<Map<number, Snapshot>> {
+/**
+ * Loads every food the batch names (used and swapped-from): foods the cook may use, and the recipe's own foods
+ * (seeing a recipe lets you see, and so cook, its foods, as the recipe page does). Unknown ids → 400 per line.
+ */
+async function snapshotFoods(input: CreateBatchParsed, userId: number, recipeId: number): Promise<Map<number, Snapshot>> {
   const ids = input.ingredients.flatMap((l) => [l.foodId, ...(l.swappedFromFoodId ? [l.swappedFromFoodId] : [])]);
   const foods = await getUsableFoods(ids, userId);
+  const missing = ids.filter((id) => !foods.has(id));
+  if (missing.length) {
+    const inRecipe = await RecipeIngredientModel.findAll({ where: { recipeId, foodId: { [Op.in]: missing } }, attributes: ['foodId'] });
+    const rows = inRecipe.length ? await FoodModel.findAll({ where: { id: { [Op.in]: inRecipe.map((l) => l.foodId) } } }) : [];
+    for (const row of rows) foods.set(row.id, toFood(row));
+  }
   const fieldErrors: FieldErrors = {};
   input.ingredients.forEach((l, i) => {
     if (!foods.has(l.foodId)) fieldErrors[`ingredients.${i}.foodId`] = ['That food was not found.'];
@@ -172,7 +181,7 @@ export async function createBatch(profileId: number, userId: number, input: Crea
     if (err instanceof AppError && err.status === 404) throw AppError.validation({ recipeId: ['That recipe was not found.'] });
     throw err;
   });
-  const foods = await snapshotFoods(input, userId);
+  const foods = await snapshotFoods(input, userId, recipe.id);
   const cookedGrams = input.cookedWeight.grossGrams - input.cookedWeight.tareGrams;
   const lines = input.ingredients.map((l) => ({ per100g: foods.get(l.foodId)!.per100g, actualGrams: l.actualGrams ?? 0, omitted: l.omitted }));
   const batch = computeBatch(lines, cookedGrams, 'available');
