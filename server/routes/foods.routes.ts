@@ -43,9 +43,11 @@ export function foodsRouter(config: Config) {
     res.json({ food: await getFood(Number(req.params.id), req.auth!.user.id) });
   });
 
-  router.get('/foods/:id/photo', validate({ params: idParamSchema }), async (req, res) => {
+  router.get('/foods/:id/photo', validate({ params: idParamSchema }), async (req, res, next) => {
     const stored = await getFoodPhotoPath(Number(req.params.id), req.auth!.user.id);
-    res.sendFile(path.join(config.UPLOADS_DIR, stored), { headers: { 'Cache-Control': 'private, max-age=3600' } });
+    res.sendFile(path.resolve(config.UPLOADS_DIR, stored), { headers: { 'Cache-Control': 'private, max-age=3600' } }, (err) => {
+      if (err && !res.headersSent) next(AppError.notFound('photo'));
+    });
   });
 
   router.post('/foods', labelUpload, async (req, res) => {

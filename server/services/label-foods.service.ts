@@ -7,6 +7,7 @@ import type { CreateLabelFoodValues } from '../../shared/schemas/food';
 import { emptyNutrients } from '../../shared/compute/nutrients';
 import { AppError } from '../errors';
 import { completeEnergy, deriveCarbs, roundTo } from '../importers/food-rows';
+import { readImageHeader, type ImageKind } from '../lib/photo-worker';
 import { FoodModel, ProfileAccessModel } from '../models';
 import { getFood } from './foods.service';
 
@@ -14,6 +15,7 @@ export const LABEL_ATTRIBUTION = 'Typed from a package label by a Carbwright mem
 export const LABEL_LICENCE = 'Private to the member who added it, and to the care team of a profile it is shared with.';
 
 const PHOTO_TYPES: Record<string, string> = { 'image/jpeg': 'jpg', 'image/png': 'png', 'image/webp': 'webp' };
+const IMAGE_EXTENSIONS: Record<ImageKind, string> = { jpeg: 'jpg', png: 'png', webp: 'webp' };
 export const LABEL_PHOTO_MAX_BYTES = 8 * 1024 * 1024;
 
 export type LabelPhoto = { buffer: Buffer; mimetype: string };
@@ -50,7 +52,9 @@ export async function createLabelFood(userId: number, input: CreateLabelFoodValu
   }
   let photoPath: string | null = null;
   if (photo) {
-    const ext = PHOTO_TYPES[photo.mimetype];
+    // The declared type is the browser's guess from the file name: the bytes decide what is stored and served.
+    const header = readImageHeader(photo.buffer);
+    const ext = PHOTO_TYPES[photo.mimetype] && header ? IMAGE_EXTENSIONS[header.kind] : undefined;
     if (!ext) throw AppError.validation({ photo: ['The photo must be a JPEG, PNG or WebP image.'] });
     photoPath = path.join('label-photos', `${randomUUID()}.${ext}`);
     await fs.mkdir(path.join(uploadsDir, 'label-photos'), { recursive: true });

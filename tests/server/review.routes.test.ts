@@ -1,13 +1,20 @@
+import fs from 'node:fs';
+import os from 'node:os';
+import path from 'node:path';
+import { PNG } from 'pngjs';
 import request from 'supertest';
+import { FoodModel } from '../../server/models';
 import { bearer, signUpUser, startTestApp, type TestContext } from '../helpers/api';
 import { makeFood, makeRecipe, postBatch } from './batches-fixtures';
 
 let ctx: TestContext;
+const uploads = fs.mkdtempSync(path.join(os.tmpdir(), 'cw-review-uploads-'));
 beforeAll(async () => {
-  ctx = await startTestApp();
+  ctx = await startTestApp({ UPLOADS_DIR: uploads });
 });
 afterAll(async () => {
   await ctx.sequelize.close();
+  fs.rmSync(uploads, { recursive: true, force: true });
 });
 
 async function member(name = 'Member') {
@@ -138,5 +145,43 @@ describe('POST /api/profiles/:profileId/batches (a recipe shared with me)', () =
 
     expect(res.status).toBe(400);
     expect(res.body.error.fieldErrors['ingredients.0.foodId']).toBeDefined();
+  });
+});
+
+describe('label food photos', () => {
+  const values = { name: 'Photo crackers', basis: 'per100g', convention: 'eu', carbohydrate: 60, fibre: 10 };
+
+  it('refuses a "photo" whose bytes are not an image, whatever type it claims, and saves no food', async () => {
+    const m = await member();
+    const page = Buffer.from('<html><script>alert(1)</script></html>');
+
+    const res = await request(ctx.app)
+      .post('/api/foods')
+      .set(bearer(m.token))
+      .field('data', JSON.stringify(values))
+      .attach('photo', page, { filename: 'label.png', contentType: 'image/png' });
+
+    expect(res.status).toBe(400);
+    expect(res.body.error.fieldErrors.photo).toBeDefined();
+    expect(fs.existsSync(path.join(uploads, 'label-photos')) ? fs.readdirSync(path.join(uploads, 'label-photos')) : []).toEqual([]);
+    expect(await FoodModel.count({ where: { ownerUserId: m.userId } })).toBe(0);
+  });
+
+  it('answers 404, not 500, when a label photo file has gone from the disk', async () => {
+    const m = await member();
+    const png = new PNG({ width: 4, height: 4 });
+    png.data.fill(200);
+    const created = await request(ctx.app)
+      .post('/api/foods')
+      .set(bearer(m.token))
+      .field('data', JSON.stringify(values))
+      .attach('photo', PNG.sync.write(png), { filename: 'label.png', contentType: 'image/png' });
+    fs.rmSync(path.join(uploads, 'label-photos'), { recursive: true, force: true });
+
+    const res = await request(ctx.app).get(`/api/foods/${created.body.food.id}/photo`).set(bearer(m.token));
+
+    expect(created.status).toBe(201);
+    expect(res.status).toBe(404);
+    expect(res.body.error.code).toBe('not_found');
   });
 });
