@@ -1,5 +1,6 @@
 import { useFieldArray, type Control, type FieldPath, type FieldValues } from 'react-hook-form';
 import { StyleSheet, View } from 'react-native';
+import { useTheme } from '../theme/use-theme';
 import { Button } from '../ui/button';
 import { FormTextField } from '../ui/form-text-field';
 import { Text } from '../ui/text';
@@ -47,6 +48,7 @@ export function earlierDoseField(path: string, rowOfDose: number[]): string | un
 
 /** Add and remove earlier rapid-acting doses; each row is units and minutes ago. */
 export function EarlierDosesFields<T extends Form>({ control }: { control: Control<T> }) {
+  const t = useTheme();
   const c = control as unknown as Control<Form>;
   const { fields, append, remove } = useFieldArray({ control: c, name: 'earlierDoses' });
   return (
@@ -54,29 +56,31 @@ export function EarlierDosesFields<T extends Form>({ control }: { control: Contr
       <Text weight="bold">Rapid insulin taken recently</Text>
       <Text color="textMuted">Add each dose still within your action time; leave none if there were none.</Text>
       {fields.map((f, i) => (
-        <View key={f.id} style={styles.row}>
-          <View style={styles.grow}>
-            <FormTextField
-              control={c}
-              name={`earlierDoses.${i}.units` as FieldPath<Form>}
-              style={styles.input}
-              label={`Earlier dose ${i + 1}`}
-              unit="units"
-              inputMode="decimal"
-            />
-          </View>
-          <View style={styles.grow}>
-            <FormTextField
-              control={c}
-              name={`earlierDoses.${i}.minutesAgo` as FieldPath<Form>}
-              style={styles.input}
-              label={`Dose ${i + 1} taken`}
-              unit="min ago"
-              inputMode="numeric"
-            />
+        <View key={f.id} style={[styles.dose, { borderColor: t.colors.border }]}>
+          <View style={styles.row}>
+            <View style={styles.grow}>
+              <FormTextField
+                control={c}
+                name={`earlierDoses.${i}.units` as FieldPath<Form>}
+                style={styles.input}
+                label={`Earlier dose ${i + 1}`}
+                unit="units"
+                inputMode="decimal"
+              />
+            </View>
+            <View style={styles.grow}>
+              <FormTextField
+                control={c}
+                name={`earlierDoses.${i}.minutesAgo` as FieldPath<Form>}
+                style={styles.input}
+                label={`Dose ${i + 1} taken`}
+                unit="min ago"
+                inputMode="numeric"
+              />
+            </View>
           </View>
           <View style={styles.remove}>
-            <Button variant="quiet" label="Remove" aria-label={`Remove earlier dose ${i + 1}`} onPress={() => remove(i)} />
+            <Button variant="quiet" label={`Remove dose ${i + 1}`} aria-label={`Remove earlier dose ${i + 1}`} onPress={() => remove(i)} />
           </View>
         </View>
       ))}
@@ -95,8 +99,9 @@ export function EarlierDosesFields<T extends Form>({ control }: { control: Contr
 
 const styles = StyleSheet.create({
   stack: { gap: 8 },
-  row: { flexDirection: 'row', gap: 12, flexWrap: 'wrap', alignItems: 'flex-start' },
+  row: { flexDirection: 'row', gap: 12, flexWrap: 'wrap' },
   grow: { flex: 1, minWidth: 120 },
   input: { minWidth: 0 },
-  remove: { paddingTop: 26 },
+  dose: { gap: 4, paddingBottom: 8, borderBottomWidth: 1 },
+  remove: { alignSelf: 'flex-start' },
 });

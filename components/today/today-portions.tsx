@@ -101,8 +101,8 @@ export function TodayPortionsCard({ profileId, unit, today }: { profileId: numbe
 }
 
 const styles = StyleSheet.create({
-  row: { flexDirection: 'row', flexWrap: 'wrap', alignItems: 'center', gap: 12, paddingVertical: 10, borderBottomWidth: 1 },
-  rowText: { flex: 1, minWidth: 180, gap: 2 },
+  row: { flexDirection: 'row', alignItems: 'center', gap: 12, paddingVertical: 10, borderBottomWidth: 1 },
+  rowText: { flex: 1, minWidth: 0, gap: 2 },
   rowEnd: { alignItems: 'flex-end', gap: 6 },
   carb: { fontVariant: ['tabular-nums'] },
 });
