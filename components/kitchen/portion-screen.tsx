@@ -10,6 +10,7 @@ import { Text } from '../ui/text';
 import { Figure } from './cooked-weight-step';
 import { carbText, gramsText, localToday, shelfStatus, shortDate } from './kitchen-format';
 import { usePortion, useSetPortionStatus } from './kitchen-queries';
+import { doseCheckHref } from '../dose/dose-href';
 
 /** The page a label's QR code opens: the portion's numbers, its dates, and what to do with it. */
 export function PortionScreen({ code }: { code: string }) {
@@ -19,7 +20,7 @@ export function PortionScreen({ code }: { code: string }) {
   if (portion.isError) return <ErrorState error={portion.error} onRetry={portion.refetch} />;
   const p = portion.data;
   const shelf = shelfStatus(p.useBy, localToday());
-  const doseHref = `/dose-check?portion=${encodeURIComponent(p.code)}&carbs=${p.carb.grams ?? ''}&label=${encodeURIComponent(p.recipeTitle)}`;
+  const doseHref = doseCheckHref({ code: p.code, carbGrams: p.carb.grams, label: p.recipeTitle });
   return (
     <Screen title={p.recipeTitle} subtitle={`Portion ${formatPortionCode(p.code)} · ${p.profileName}`} backHref="/kitchen">
       <Card>
