@@ -1,6 +1,6 @@
 import { randomInt } from 'node:crypto';
 import { literal, Op, type Transaction } from 'sequelize';
-import { computeBatch, gramsLeftToSplit, splitEqually, weighedPortionCarb, weighingDifference } from '../../shared/compute/batch';
+import { carbUnderstated, computeBatch, gramsLeftToSplit, splitEqually, weighedPortionCarb, weighingDifference } from '../../shared/compute/batch';
 import { carbInBasis, type Nutrients } from '../../shared/compute/nutrients';
 import { generatePortionCode } from '../../shared/compute/portion-code';
 import { defaultUseBy } from '../../shared/compute/use-by';
@@ -38,8 +38,9 @@ async function freshCodes(count: number, transaction: Transaction): Promise<stri
 }
 
 function batchNumbers(batch: BatchModel, units: Units) {
-  const carbTotal = carbInBasis(batch.totals, units.basis);
-  const carbPer100g = carbInBasis(batch.per100g, units.basis);
+  const understated = carbUnderstated(batch.totals, batch.incomplete, units.basis);
+  const carbTotal = understated ? null : carbInBasis(batch.totals, units.basis);
+  const carbPer100g = understated ? null : carbInBasis(batch.per100g, units.basis);
   return { carbTotal: carbOf(carbTotal, units.unit), carbPer100g: carbOf(carbPer100g, units.unit) };
 }
 
@@ -60,7 +61,7 @@ function toSummary(batch: BatchModel, portions: PortionModel[], units: Units): B
     unit: units.unit,
     carbPer100g: batchNumbers(batch, units).carbPer100g,
     counts,
-    portions: portions.map((p) => toPortion(p, units)),
+    portions: portions.map((p) => toPortion(p, units, carbUnderstated(batch.totals, batch.incomplete, units.basis))),
   };
 }
 

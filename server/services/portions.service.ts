@@ -1,4 +1,5 @@
 import { QueryTypes } from 'sequelize';
+import { carbUnderstated } from '../../shared/compute/batch';
 import { carbInBasis } from '../../shared/compute/nutrients';
 import { normalizePortionCode } from '../../shared/compute/portion-code';
 import { gramsToCarbUnit } from '../../shared/compute/units';
@@ -15,8 +16,8 @@ export function carbOf(grams: number | null, unit: CarbUnit) {
   return { grams, inUnit: grams == null ? null : gramsToCarbUnit(grams, unit) };
 }
 
-/** API shape of a portion, carbohydrate in the profile's basis and unit. */
-export function toPortion(p: PortionModel, units: Units): Portion {
+/** API shape of a portion, carbohydrate in the profile's basis and unit (unknown when the batch's sum understates it). */
+export function toPortion(p: PortionModel, units: Units, understated = false): Portion {
   return {
     id: p.id,
     code: p.code,
@@ -27,7 +28,7 @@ export function toPortion(p: PortionModel, units: Units): Portion {
     grossGrams: p.grossGrams,
     tareGrams: p.tareGrams,
     netGrams: p.netGrams,
-    carb: carbOf(units.basis === 'available' ? p.carbAvailable : p.carbTotal, units.unit),
+    carb: carbOf(understated ? null : units.basis === 'available' ? p.carbAvailable : p.carbTotal, units.unit),
     status: p.status,
     statusChangedAt: p.statusChangedAt ? p.statusChangedAt.toISOString() : null,
   };
@@ -54,14 +55,15 @@ export async function getPortion(rawCode: string, userId: number): Promise<Porti
   const profile = (await ProfileModel.findByPk(portion.profileId))!;
   const units = { basis: profile.carbBasis, unit: profile.carbUnit };
   const batch = portion.batch!;
+  const understated = carbUnderstated(batch.totals, batch.incomplete, units.basis);
   return {
-    ...toPortion(portion, units),
+    ...toPortion(portion, units, understated),
     recipeTitle: batch.recipeTitle,
     recipeId: batch.recipeId,
     cookedOn: batch.cookedOn,
     useBy: batch.useBy,
     storage: batch.storage,
-    carbPer100g: carbOf(carbInBasis(batch.per100g, units.basis), units.unit),
+    carbPer100g: carbOf(understated ? null : carbInBasis(batch.per100g, units.basis), units.unit),
     basis: units.basis,
     unit: units.unit,
     profileName: profile.displayName,

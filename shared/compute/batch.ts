@@ -62,6 +62,17 @@ export function computeBatch(lines: BatchIngredientLine[], cookedGrams: number, 
   };
 }
 
+/**
+ * True when the batch's carbohydrate in `basis` is a partial sum (a used ingredient's value is unknown), so any
+ * number from it understates the truth: portions and labels must then say "unknown", never a low number.
+ */
+export function carbUnderstated(totals: Pick<Nutrients, 'carbAvailable' | 'carbTotal'>, incomplete: readonly string[], basis: CarbBasis): boolean {
+  const direct = basis === 'available' ? 'carbAvailable' : 'carbTotal';
+  const other = basis === 'available' ? 'carbTotal' : 'carbAvailable';
+  if (totals[direct] != null) return incomplete.includes(direct);
+  return incomplete.includes(other) || incomplete.includes('fibre');
+}
+
 /** Carbohydrate (g) in a weighed portion: per-100 g cooked × net grams / 100. Null stays null. */
 export function weighedPortionCarb(carbPer100g: number | null, netPortionGrams: number): number | null {
   return carbPer100g == null ? null : (carbPer100g * netPortionGrams) / 100;

@@ -185,3 +185,55 @@ describe('label food photos', () => {
     expect(res.body.error.code).toBe('not_found');
   });
 });
+
+describe('a batch with an ingredient of unknown carbohydrate', () => {
+  it('shows the portions’ carbohydrate as unknown instead of a partial sum that understates it', async () => {
+    const m = await member();
+    // USDA SR Legacy NDB 08120 rolled oats: 67.7 g total carbohydrate, 10.1 g fibre per 100 g (check-values §11).
+    const oats = await makeFood('Oats, rolled, dry', { carbTotal: 67.7, fibre: 10.1 });
+    const sauce = await FoodModel.create({
+      source: 'usda_sr28',
+      sourceCode: `REVIEW-${process.pid}`,
+      name: 'Sauce with no carbohydrate value',
+      foodGroup: null,
+      energyKcal: null,
+      energyKj: null,
+      carbAvailable: null,
+      carbTotal: null,
+      fibre: null,
+      sugars: null,
+      protein: null,
+      fat: null,
+      water: null,
+      carbMeasured: 'total',
+      attribution: 'test fixture',
+      licence: 'test fixture',
+    });
+    const recipe = await makeRecipe(m.userId, 'Oats with sauce', [
+      { foodId: oats.id, grams: 100 },
+      { foodId: sauce.id, grams: 100 },
+    ]);
+    const batch = await postBatch(ctx.app, m.token, m.profileId, {
+      recipeId: recipe.id,
+      cookedOn: '2026-03-10',
+      storage: 'fridge',
+      ingredients: [
+        { foodId: oats.id, plannedGrams: 100, actualGrams: 100 },
+        { foodId: sauce.id, plannedGrams: 100, actualGrams: 100 },
+      ],
+      cookedWeight: { grossGrams: 200, tareGrams: 0 },
+      split: { mode: 'equal', count: 2 },
+    });
+
+    const portion = await request(ctx.app).get(`/api/portions/${batch.body.portions[0].code}`).set(bearer(m.token));
+    const labels = await request(ctx.app).get(`/api/profiles/${m.profileId}/batches/${batch.body.id}/labels`).set(bearer(m.token));
+
+    expect(batch.status).toBe(201);
+    expect(batch.body.incomplete).toContain('carbAvailable');
+    expect(batch.body.portions.map((p: { carb: { grams: number | null } }) => p.carb.grams)).toEqual([null, null]);
+    expect(batch.body.carbTotal.grams).toBeNull();
+    expect(portion.body.carb.grams).toBeNull();
+    expect(portion.body.carbPer100g.grams).toBeNull();
+    expect(labels.body.labels[0].text.carb).toBe('unknown');
+  });
+});
