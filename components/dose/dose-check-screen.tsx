@@ -122,13 +122,18 @@ export function DoseCheckScreen({ carbs, portion, label }: DoseCheckParams) {
       const minutes = Number(s.replace(',', '.') || 0);
       return Number.isFinite(minutes) && minutes >= 0 ? new Date(now - minutes * 60_000).toISOString() : 'not a time';
     };
+    const readingAt = blank(v.glucose) ? null : minutesAgo(v.glucoseMinutesAgo);
+    if (readingAt === 'not a time') {
+      form.setError('glucoseMinutesAgo', { message: 'Enter how many minutes ago the reading was taken (0 or more).' });
+      return;
+    }
     const earlier = earlierDosesRequest(v.earlierDoses, now);
     const rowOfDose = earlier.doses.map((d) => d.row);
     const request = {
       carbsGrams: v.carbsGrams,
       glucose: blank(v.glucose) ? null : v.glucose,
       glucoseUnit: profile.glucoseUnit,
-      glucoseTakenAt: blank(v.glucose) ? null : minutesAgo(v.glucoseMinutesAgo),
+      glucoseTakenAt: readingAt,
       mealAt: new Date(now).toISOString(),
       localTime: v.localTime,
       dayKindId: v.dayKindId,
