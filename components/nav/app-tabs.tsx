@@ -1,3 +1,4 @@
+import { router, usePathname } from 'expo-router';
 import { TabList, TabSlot, TabTrigger, Tabs, type TabTriggerSlotProps } from 'expo-router/ui';
 import { forwardRef } from 'react';
 import { Pressable, StyleSheet, View } from 'react-native';
@@ -45,6 +46,7 @@ export function AppTabs() {
   const t = useTheme();
   const { isWide } = useLayout();
   const insets = useSafeAreaInsets();
+  const pathname = usePathname();
   return (
     <Tabs style={[styles.fill, isWide && styles.row]}>
       <TabSlot style={styles.fill} />
@@ -64,7 +66,18 @@ export function AppTabs() {
           </View>
         ) : null}
         {TABS.map((tab) => (
-          <TabTrigger key={tab.name} name={tab.name} href={tab.href as never} asChild>
+          <TabTrigger
+            key={tab.name}
+            name={tab.name}
+            href={tab.href as never}
+            asChild
+            onPress={(e) => {
+              // Tapping the tab you are in goes to its first page, also when the page was opened from another tab.
+              if (tab.href === '/' || !pathname.startsWith(`${tab.href}/`)) return;
+              e.preventDefault();
+              router.navigate(tab.href as never);
+            }}
+          >
             <TabButton label={tab.label} icon={tab.icon} wide={isWide} />
           </TabTrigger>
         ))}
