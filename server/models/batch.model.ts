@@ -17,6 +17,7 @@ export class BatchModel extends Model<InferAttributes<BatchModel>, InferCreation
   declare storage: 'fridge' | 'freezer';
   declare useBy: string;
   declare useBySource: string;
+  declare foodSafetyRegion: CreationOptional<'uk' | 'us'>;
   declare useByNote: CreationOptional<string>;
   declare rawGrams: number;
   declare cookedGrossGrams: number;
@@ -48,6 +49,7 @@ export class BatchModel extends Model<InferAttributes<BatchModel>, InferCreation
         storage: { type: DataTypes.ENUM('fridge', 'freezer'), allowNull: false },
         useBy: { type: DataTypes.DATEONLY, allowNull: false },
         useBySource: { type: DataTypes.TEXT, allowNull: false },
+        foodSafetyRegion: { type: DataTypes.ENUM('uk', 'us'), allowNull: false, defaultValue: 'uk' },
         useByNote: { type: DataTypes.TEXT, allowNull: false, defaultValue: '' },
         rawGrams: { type: DataTypes.DOUBLE, allowNull: false },
         cookedGrossGrams: { type: DataTypes.DOUBLE, allowNull: false },

@@ -1,6 +1,6 @@
 import { randomInt } from 'node:crypto';
 import { literal, Op, type Transaction } from 'sequelize';
-import { carbUnderstated, computeBatch, gramsLeftToSplit, splitEqually, weighedPortionCarb, weighingDifference } from '../../shared/compute/batch';
+import { carbUnderstated, computeBatch, gramsLeftToSplit, netGrams, splitEqually, weighedPortionCarb, weighingDifference, yieldFactor } from '../../shared/compute/batch';
 import { carbInBasis, type Nutrients } from '../../shared/compute/nutrients';
 import { generatePortionCode } from '../../shared/compute/portion-code';
 import { defaultUseBy } from '../../shared/compute/use-by';
@@ -109,7 +109,7 @@ export async function getBatch(profileId: number, id: number): Promise<BatchDeta
     cookedGrossGrams: batch.cookedGrossGrams,
     potTareGrams: batch.potTareGrams,
     potName: batch.potName,
-    yieldFactor: batch.cookedGrams / batch.rawGrams,
+    yieldFactor: yieldFactor(batch.cookedGrams, batch.rawGrams),
     splitMode: batch.splitMode,
     gramsLeft: gramsLeftToSplit(batch.cookedGrams, portions.map((p) => p.netGrams)),
     carbTotal: batchNumbers(batch, units).carbTotal,
@@ -183,7 +183,7 @@ export async function createBatch(profileId: number, userId: number, input: Crea
     throw err;
   });
   const foods = await snapshotFoods(input, userId, recipe.id);
-  const cookedGrams = input.cookedWeight.grossGrams - input.cookedWeight.tareGrams;
+  const cookedGrams = netGrams(input.cookedWeight.grossGrams, input.cookedWeight.tareGrams);
   const lines = input.ingredients.map((l) => ({ per100g: foods.get(l.foodId)!.per100g, actualGrams: l.actualGrams ?? 0, omitted: l.omitted }));
   const batch = computeBatch(lines, cookedGrams, 'available');
   const carbAvailable = carbInBasis(batch.totals, 'available');
@@ -205,6 +205,7 @@ export async function createBatch(profileId: number, userId: number, input: Crea
         storage: input.storage,
         useBy: input.useBy ?? rule.useBy,
         useBySource: input.useBy && input.useBy !== rule.useBy ? 'Set by the cook' : rule.source,
+        foodSafetyRegion: input.region,
         useByNote: rule.note,
         rawGrams: batch.rawGrams,
         cookedGrossGrams: input.cookedWeight.grossGrams,
@@ -243,16 +244,18 @@ export async function createBatch(profileId: number, userId: number, input: Crea
     const split = input.split;
     const portions =
       split.mode === 'equal'
-        ? splitEqually({ cookedGrams, carbTotal: carbAvailable }, split.count).map((share) => ({
-            ...noContainer,
-            netGrams: share.netGrams,
-            carbAvailable: share.carbGrams,
-            carbTotal: carbTotal == null ? null : carbTotal / split.count,
-          }))
+        ? zipShares(splitEqually({ cookedGrams, carbTotal: carbAvailable }, split.count), splitEqually({ cookedGrams, carbTotal }, split.count)).map(
+            ([available, total]) => ({
+              ...noContainer,
+              netGrams: available.netGrams,
+              carbAvailable: available.carbGrams,
+              carbTotal: total.carbGrams,
+            }),
+          )
         : await inSequence(
             split.portions.map((w, i) => async () => {
               const container = w.containerId ? await findContainerOr400(profileId, w.containerId, `split.portions.${i}.containerId`, transaction) : null;
-              const net = w.grossGrams - w.tareGrams;
+              const net = netGrams(w.grossGrams, w.tareGrams);
               return {
                 containerId: container?.id ?? null,
                 containerName: container?.name ?? null,
@@ -290,12 +293,13 @@ export async function updateBatch(profileId: number, id: number, input: UpdateBa
     throw AppError.validation({ useBy: ['The use-by date cannot be before the cooking date.'] });
   }
   if (input.storage) batch.storage = input.storage;
+  if (input.region) batch.foodSafetyRegion = input.region;
   if (input.useBy) {
     batch.useBy = input.useBy;
     batch.useBySource = 'Set by the cook';
   } else if (input.storage) {
     const containsRice = (batch.ingredients ?? []).some((l) => !l.omitted && isRice(l.foodName));
-    const rule = defaultUseBy(batch.cookedOn, batch.storage, input.region ?? 'uk', containsRice);
+    const rule = defaultUseBy(batch.cookedOn, batch.storage, batch.foodSafetyRegion, containsRice);
     Object.assign(batch, { useBy: rule.useBy, useBySource: rule.source, useByNote: rule.note });
   }
   await batch.save();
@@ -307,4 +311,9 @@ async function inSequence<T>(steps: (() => Promise<T>)[]): Promise<T[]> {
   const out: T[] = [];
   for (const step of steps) out.push(await step());
   return out;
+}
+
+/** Pairs the i-th share of two equal splits (the same batch counted in both carbohydrate bases). */
+function zipShares<T>(a: T[], b: T[]): [T, T][] {
+  return a.map((share, i) => [share, b[i]]);
 }

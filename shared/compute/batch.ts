@@ -39,6 +39,11 @@ export function netGrams(grossGrams: number, tareGrams: number): number {
   return grossGrams - tareGrams;
 }
 
+/** Weight yield factor: cooked ÷ raw weight (Bognár 2002; EuroFIR D2.2.9). Below 1 when water cooks off. */
+export function yieldFactor(cookedGrams: number, rawGrams: number): number {
+  return cookedGrams / rawGrams;
+}
+
 /**
  * Computes a batch from actual ingredient weights and the cooked weight (g), in the given carbohydrate
  * basis. Omitted lines count for nothing. Throws when the cooked weight or the raw total is not above 0.
@@ -53,7 +58,7 @@ export function computeBatch(lines: BatchIngredientLine[], cookedGrams: number, 
   return {
     rawGrams,
     cookedGrams,
-    yieldFactor: cookedGrams / rawGrams,
+    yieldFactor: yieldFactor(cookedGrams, rawGrams),
     totals,
     incomplete,
     per100gCooked,

@@ -103,7 +103,7 @@ export type CreateBatchParsed = z.output<typeof createBatchInputSchema>;
 
 /** PATCH /api/profiles/:profileId/batches/:id — moving a batch to the freezer, or correcting its use-by date. */
 export const updateBatchInputSchema = z
-  .object({ storage: storageSchema.optional(), region: foodSafetyRegionSchema.default('uk'), useBy: isoDateSchema.nullish() })
+  .object({ storage: storageSchema.optional(), region: foodSafetyRegionSchema.optional(), useBy: isoDateSchema.nullish() })
   .refine((v) => v.storage !== undefined || v.useBy !== undefined, { message: 'Change the storage or the use-by date.', path: ['storage'] });
 export type UpdateBatchInput = z.input<typeof updateBatchInputSchema>;
 

@@ -64,6 +64,28 @@ describe('PATCH /api/profiles/:profileId/batches/:id', () => {
     expect(moved.body).toMatchObject({ storage: 'fridge', useBy: '2026-03-11' });
     expect(moved.body.useBySource).toMatch(/cooked rice/);
   });
+
+  it('keeps the region the batch was saved with when it is moved without naming one', async () => {
+    const m = await member();
+    // Dal ingredient with invented values (only the use-by date is under test here).
+    const lentils = await makeFood('Lentils, red, dry (invented test values)', { carbTotal: 60, fibre: 10 });
+    const recipe = await makeRecipe(m.userId, 'Dal', [{ foodId: lentils.id, grams: 400 }]);
+    const created = await postBatch(ctx.app, m.token, m.profileId, {
+      recipeId: recipe.id,
+      cookedOn: '2026-03-10',
+      storage: 'freezer',
+      region: 'us',
+      ingredients: [{ foodId: lentils.id, plannedGrams: 400, actualGrams: 400 }],
+      cookedWeight: { grossGrams: 1000, tareGrams: 0 },
+      split: { mode: 'equal', count: 4 },
+    });
+
+    const moved = await request(ctx.app).patch(`/api/profiles/${m.profileId}/batches/${created.body.id}`).set(bearer(m.token)).send({ storage: 'fridge' });
+
+    expect(created.status).toBe(201);
+    // check-values T26: USDA FSIS leftovers 3–4 days in the fridge → D+3 (the UK rule would give D+2).
+    expect(moved.body).toMatchObject({ storage: 'fridge', useBy: '2026-03-13' });
+  });
 });
 
 describe('PUT /api/profiles/:profileId/days/:date', () => {
