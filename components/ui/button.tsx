@@ -38,7 +38,7 @@ export function Button({ label, variant = 'primary', loading, disabled, icon, si
     >
       <View style={styles.row}>
         {loading ? <ActivityIndicator size="small" color={t.colors[fg]} /> : icon}
-        <Text variant={size === 'lg' ? 'lead' : 'label'} color={fg} weight="bold">
+        <Text variant={size === 'lg' ? 'lead' : 'label'} color={fg} weight="bold" style={styles.label}>
           {label}
         </Text>
       </View>
@@ -47,9 +47,10 @@ export function Button({ label, variant = 'primary', loading, disabled, icon, si
 }
 
 const styles = StyleSheet.create({
-  base: { minHeight: MIN_TOUCH, paddingHorizontal: 18, borderRadius: 10, justifyContent: 'center', alignItems: 'center' },
+  base: { minHeight: MIN_TOUCH, maxWidth: '100%', paddingHorizontal: 18, paddingVertical: 6, borderRadius: 10, justifyContent: 'center', alignItems: 'center' },
   large: { minHeight: 54, paddingHorizontal: 24 },
   quiet: { paddingHorizontal: 8 },
   disabled: { opacity: 0.55 },
-  row: { flexDirection: 'row', alignItems: 'center', gap: 8 },
+  row: { flexDirection: 'row', alignItems: 'center', gap: 8, flexShrink: 1 },
+  label: { flexShrink: 1, textAlign: 'center' },
 });
