@@ -93,16 +93,22 @@ export async function getFoodPhotoPath(id: number, userId: number): Promise<stri
 
 const FUZZY_BELOW = 20;
 
+// A correction this much less similar than the best one is another word, not what was meant.
+const NEAR_MARGIN = 0.25;
+
 /**
- * Up to 3 lexicon words (words of table-food names and aliases) closest to a typed word, with their
- * pg_trgm similarity (≥ its default 0.3).
+ * Up to 3 corrections of a typed word from the lexicon (words of table-food names and aliases), with their
+ * pg_trgm similarity (≥ its default 0.3; `<->` is 1 − similarity, answered by the lexicon's GiST index).
+ * None when the word is itself in the lexicon; none that contain the word (its substring match covers them).
  */
 async function nearWords(word: string): Promise<{ word: string; sim: number }[]> {
   const rows = await FoodModel.sequelize!.query<{ word: string; sim: number }>(
-    'SELECT word, similarity(word, :word)::float8 AS sim FROM food_words WHERE word % :word ORDER BY sim DESC, word LIMIT 3',
+    'SELECT word, similarity(word, :word)::float8 AS sim FROM food_words WHERE word % :word ORDER BY word <-> :word, word LIMIT 3',
     { replacements: { word }, type: QueryTypes.SELECT },
   );
-  return rows.map((r) => ({ word: r.word, sim: Number(r.sim) }));
+  if (!rows.length || rows[0].word === word) return [];
+  const best = Number(rows[0].sim);
+  return rows.map((r) => ({ word: r.word, sim: Number(r.sim) })).filter((r) => r.sim >= best - NEAR_MARGIN && !r.word.includes(word));
 }
 const escapeLike = (s: string) => s.replace(/[\\%_]/g, (c) => `\\${c}`);
 
@@ -154,8 +160,10 @@ export async function searchFoods(query: FoodSearchQuery, userId: number): Promi
     if (n < FUZZY_BELOW) {
       const perWord: string[] = [];
       const scores: string[] = [];
+      let corrections = 0;
       for (const [i, w] of words.entries()) {
         const near = w.length >= 3 ? await nearWords(w) : [];
+        corrections += near.length;
         near.forEach(({ word, sim }, k) => {
           repl[`w${i}n${k}`] = `%${escapeLike(word)}%`;
           repl[`w${i}s${k}`] = sim;
@@ -165,8 +173,10 @@ export async function searchFoods(query: FoodSearchQuery, userId: number): Promi
         // short common word that only resembles it, whatever the rank penalty of the foods carrying them.
         scores.push(`GREATEST(CASE WHEN f.search_text LIKE :w${i} THEN 1 ELSE 0 END${near.map((_, k) => `, CASE WHEN f.search_text LIKE :w${i}n${k} THEN :w${i}s${k} ELSE 0 END`).join('')})`);
       }
-      match = perWord.join(' AND ');
-      closeness = `round((${scores.join(' + ')})::numeric, 1) DESC,`;
+      if (corrections) {
+        match = perWord.join(' AND ');
+        closeness = `round((${scores.join(' + ')})::numeric, 1) DESC,`;
+      }
     }
   }
   const rows = await sequelize.query<Record<string, unknown>>(
