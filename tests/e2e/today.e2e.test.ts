@@ -2,9 +2,9 @@ import type { Page } from 'playwright-core';
 import request from 'supertest';
 import { FoodModel } from '../../server/models';
 import { activeInsulin } from '../../shared/compute/active-insulin';
-import { DEFAULT_EXERCISE_REDUCTIONS } from '../../shared/compute/exercise';
 import { formatCarb } from '../../shared/compute/units';
 import { PHONE, WIDE, startBrowserRig, type BrowserRig } from '../helpers/browser';
+import { TEST_DOSE_SETTINGS } from '../helpers/dose-settings';
 
 let rig: BrowserRig;
 beforeAll(async () => {
@@ -30,23 +30,7 @@ async function setUpDoseSettings(profileId: number, auth: Record<string, string>
   const settings = await request(rig.baseUrl)
     .put(`/api/profiles/${profileId}/settings`)
     .set(auth)
-    .send({
-      glucoseUnit: 'mmol_l',
-      carbBasis: 'available',
-      carbUnit: 'g',
-      penIncrement: 0.5,
-      rounding: 'down',
-      maxDoseUnits: 15,
-      actionTimeHours: 4,
-      targetLow: 5,
-      targetHigh: 8,
-      correctionTarget: 6,
-      hypoThreshold: 3.9,
-      veryHigh: 15,
-      allowNegativeCorrection: false,
-      iobConvention: 'correction_only',
-      exerciseReductions: DEFAULT_EXERCISE_REDUCTIONS,
-    });
+    .send(TEST_DOSE_SETTINGS);
   if (settings.status !== 200) throw new Error(`settings: ${JSON.stringify(settings.body)}`);
   for (const [name, ratio, isDefault] of [
     ['Rest', 10, true],

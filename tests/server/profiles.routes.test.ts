@@ -1,6 +1,7 @@
 import request from 'supertest';
 import { DayKindModel, ProfileAccessModel, ProfileSettingsModel, RatioBlockModel, SettingsChangeModel } from '../../server/models';
 import { bearer, signUpUser, startTestApp, type TestContext } from '../helpers/api';
+import { TEST_DOSE_SETTINGS } from '../helpers/dose-settings';
 
 let ctx: TestContext;
 beforeAll(async () => {
@@ -10,27 +11,7 @@ afterAll(async () => {
   await ctx.sequelize.close();
 });
 
-const SETTINGS = {
-  glucoseUnit: 'mmol_l',
-  carbBasis: 'available',
-  carbUnit: 'g',
-  penIncrement: 0.5,
-  rounding: 'down',
-  maxDoseUnits: 15,
-  actionTimeHours: 4,
-  targetLow: 5,
-  targetHigh: 8,
-  correctionTarget: 6,
-  hypoThreshold: 3.9,
-  veryHigh: 15,
-  allowNegativeCorrection: false,
-  iobConvention: 'correction_only',
-  exerciseReductions: {
-    light: { min30: 25, min60: 50 },
-    moderate: { min30: 50, min60: 75 },
-    hard: { min30: 75, min60: null },
-  },
-};
+const SETTINGS = TEST_DOSE_SETTINGS;
 const REST = {
   name: 'Rest',
   isDefault: true,
