@@ -27,3 +27,9 @@ export async function signUpUser(app: Express, name = 'Tester'): Promise<Session
 }
 
 export const bearer = (token: string) => ({ Authorization: `Bearer ${token}` });
+
+/** Signs up a member and returns what most profile tests need: token, user id and their own profile id. */
+export async function signUpMember(app: Express, name = 'Cook') {
+  const session = await signUpUser(app, name);
+  return { token: session.token, userId: session.me.user.id, profileId: session.me.profiles[0].id };
+}

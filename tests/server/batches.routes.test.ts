@@ -1,7 +1,7 @@
 import request from 'supertest';
 import { BatchIngredientModel, BatchModel, FoodModel, PortionModel, ProfileModel, RecipeModel } from '../../server/models';
 import { normalizePortionCode } from '../../shared/compute/portion-code';
-import { bearer, signUpUser, startTestApp, type TestContext } from '../helpers/api';
+import { bearer, signUpMember, startTestApp, type TestContext } from '../helpers/api';
 import { makeFood, makeRecipe, overnightOats, postBatch, SR } from './batches-fixtures';
 
 let ctx: TestContext;
@@ -12,10 +12,7 @@ afterAll(async () => {
   await ctx.sequelize.close();
 });
 
-async function member(name = 'Cook') {
-  const session = await signUpUser(ctx.app, name);
-  return { token: session.token, userId: session.me.user.id, profileId: session.me.profiles[0].id };
-}
+const member = (name = 'Cook') => signUpMember(ctx.app, name);
 
 describe('POST /api/profiles/:profileId/batches (weighed jars)', () => {
   it('saves the week of overnight oats with five weighed jars matching the hand calculation', async () => {

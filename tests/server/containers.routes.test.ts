@@ -1,6 +1,6 @@
 import request from 'supertest';
 import { ContainerModel, ProfileAccessModel } from '../../server/models';
-import { bearer, signUpUser, startTestApp, type TestContext } from '../helpers/api';
+import { bearer, signUpMember, startTestApp, type TestContext } from '../helpers/api';
 
 let ctx: TestContext;
 beforeAll(async () => {
@@ -10,10 +10,7 @@ afterAll(async () => {
   await ctx.sequelize.close();
 });
 
-async function member(name = 'Cook') {
-  const session = await signUpUser(ctx.app, name);
-  return { token: session.token, userId: session.me.user.id, profileId: session.me.profiles[0].id };
-}
+const member = (name = 'Cook') => signUpMember(ctx.app, name);
 
 describe('/api/profiles/:profileId/containers', () => {
   it('saves a pot and a jar with their tares and lists pots first', async () => {

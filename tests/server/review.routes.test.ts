@@ -4,7 +4,7 @@ import path from 'node:path';
 import { PNG } from 'pngjs';
 import request from 'supertest';
 import { FoodModel } from '../../server/models';
-import { bearer, signUpUser, startTestApp, type TestContext } from '../helpers/api';
+import { bearer, signUpMember, signUpUser, startTestApp, type TestContext } from '../helpers/api';
 import { makeFood, makeRecipe, postBatch } from './batches-fixtures';
 
 let ctx: TestContext;
@@ -17,10 +17,7 @@ afterAll(async () => {
   fs.rmSync(uploads, { recursive: true, force: true });
 });
 
-async function member(name = 'Member') {
-  const s = await signUpUser(ctx.app, name);
-  return { token: s.token, userId: s.me.user.id, profileId: s.me.profiles[0].id };
-}
+const member = (name = 'Member') => signUpMember(ctx.app, name);
 
 describe('PATCH /api/profiles/:profileId/containers/:id', () => {
   it('keeps a pot a pot when only its name is changed', async () => {
