@@ -20,6 +20,8 @@ const envSchema = z.object({
   AUTH_RATE_LIMIT: z.coerce.number().int().positive().default(20),
   AUTH_RATE_WINDOW_SECONDS: z.coerce.number().int().positive().default(15 * 60),
   LOG_LEVEL: z.enum(['fatal', 'error', 'warn', 'info', 'debug', 'trace', 'silent']).optional(),
+  DB_POOL_MAX: z.coerce.number().int().min(1).default(10),
+  DB_ACQUIRE_TIMEOUT_MS: z.coerce.number().int().min(100).default(5_000),
   BENCH_ROUTES: z.enum(['0', '1']).default('0'),
   ADMIN_EMAIL: z.string().optional(),
   ADMIN_PASSWORD: z.string().optional(),

@@ -2,17 +2,24 @@ import path from 'node:path';
 import { Sequelize } from 'sequelize';
 import { SequelizeStorage, Umzug } from 'umzug';
 import type { QueryInterface } from 'sequelize';
+import { enableTransactionContext } from './lib/transaction-context';
 import { initModels } from './models';
 
 export type MigrationContext = QueryInterface;
 export type Migration = (params: { context: MigrationContext }) => Promise<void>;
 
-/** Opens a pool to PostgreSQL and initialises every model on it. */
-export function createSequelize(databaseUrl: string, options: { poolMax?: number } = {}): Sequelize {
+export type PoolOptions = { poolMax?: number; acquireTimeoutMs?: number };
+
+/**
+ * Opens a pool to PostgreSQL and initialises every model on it. A request that waits longer than
+ * acquireTimeoutMs for a connection fails (503 `busy`) instead of hanging.
+ */
+export function createSequelize(databaseUrl: string, options: PoolOptions = {}): Sequelize {
+  enableTransactionContext();
   const sequelize = new Sequelize(databaseUrl, {
     dialect: 'postgres',
     logging: false,
-    pool: { max: options.poolMax ?? 10, min: 0, idle: 10_000 },
+    pool: { max: options.poolMax ?? 10, min: 0, idle: 10_000, acquire: options.acquireTimeoutMs ?? 5_000 },
   });
   initModels(sequelize);
   return sequelize;

@@ -5,7 +5,7 @@ import { logger } from './logger';
 
 async function main() {
   const config = loadConfig();
-  const sequelize = createSequelize(config.DATABASE_URL);
+  const sequelize = createSequelize(config.DATABASE_URL, { poolMax: config.DB_POOL_MAX, acquireTimeoutMs: config.DB_ACQUIRE_TIMEOUT_MS });
   await sequelize.authenticate();
   const app = createApp(config, sequelize);
   const server = app.listen(config.PORT, config.HOST, () => {

@@ -1,10 +1,14 @@
 import type { NextFunction, Request, Response } from 'express';
 import { MulterError } from 'multer';
+import { ConnectionAcquireTimeoutError } from 'sequelize';
 import { ZodError } from 'zod';
 import type { ApiErrorBody } from '../../shared/schemas/api-error';
 import { AppError } from '../errors';
 import { logger } from '../logger';
 import { toFieldErrors } from './validate';
+
+/** Seconds a client should wait before retrying when the database pool is exhausted. */
+export const BUSY_RETRY_AFTER_SECONDS = 5;
 
 function send(res: Response, status: number, body: ApiErrorBody) {
   res.status(status).json(body);
@@ -22,6 +26,12 @@ export function errorHandler(err: unknown, req: Request, res: Response, _next: N
   }
   if (err instanceof ZodError) {
     return send(res, 400, { error: { code: 'validation_failed', message: 'Some fields are invalid.', fieldErrors: toFieldErrors(err) } });
+  }
+  if (err instanceof ConnectionAcquireTimeoutError) {
+    // Every pooled database connection stayed busy for the whole acquire timeout: ask the client to retry.
+    logger.warn({ method: req.method, path: req.path }, 'database pool exhausted');
+    res.set('Retry-After', String(BUSY_RETRY_AFTER_SECONDS));
+    return send(res, 503, { error: { code: 'busy', message: 'The server is busy. Please try again in a few seconds.' } });
   }
   if (err instanceof MulterError) {
     if (err.code === 'LIMIT_FILE_SIZE') {

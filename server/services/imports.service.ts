@@ -63,7 +63,8 @@ export async function runImport(
   const progress: ProgressFn = (stage, rowsRead) => {
     if (Date.now() - lastSave < 250) return;
     lastSave = Date.now();
-    void record.update({ stage, rowsRead }).catch(() => undefined);
+    // Outside the import's transaction on purpose (transaction: null), so pollers see progress before it commits.
+    void record.update({ stage, rowsRead }, { transaction: null }).catch(() => undefined);
   };
   try {
     await record.update({ stage: 'reading files' });

@@ -10,6 +10,7 @@ export const apiErrorCodeSchema = z.enum([
   'payload_too_large',
   'unprocessable',
   'rate_limited',
+  'busy',
   'internal',
 ]);
 export type ApiErrorCode = z.infer<typeof apiErrorCodeSchema>;
