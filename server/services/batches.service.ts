@@ -1,9 +1,9 @@
 import { randomInt } from 'node:crypto';
 import { literal, Op, type Transaction } from 'sequelize';
-import { carbUnderstated, computeBatch, gramsLeftToSplit, netGrams, splitEqually, weighedPortionCarb, weighingDifference, yieldFactor } from '../../shared/compute/batch';
+import { carbUnderstated, computeBatch, gramsLeftToSplit, netGrams, splitBatch, weighingDifference, yieldFactor, type SplitShare } from '../../shared/compute/batch';
 import { carbInBasis, type Nutrients } from '../../shared/compute/nutrients';
 import { generatePortionCode } from '../../shared/compute/portion-code';
-import { defaultUseBy } from '../../shared/compute/use-by';
+import { batchContainsRice, defaultUseBy } from '../../shared/compute/use-by';
 import type { BatchDetail, BatchIngredient, BatchSummary, CreateBatchParsed, UpdateBatchInput } from '../../shared/schemas/batch';
 import type { PortionStatus } from '../../shared/schemas/portion';
 import type { CarbBasis, CarbUnit } from '../../shared/schemas/units';
@@ -186,9 +186,8 @@ export async function createBatch(profileId: number, userId: number, input: Crea
   const cookedGrams = netGrams(input.cookedWeight.grossGrams, input.cookedWeight.tareGrams);
   const lines = input.ingredients.map((l) => ({ per100g: foods.get(l.foodId)!.per100g, actualGrams: l.actualGrams ?? 0, omitted: l.omitted }));
   const batch = computeBatch(lines, cookedGrams, 'available');
-  const carbAvailable = carbInBasis(batch.totals, 'available');
-  const carbTotal = carbInBasis(batch.totals, 'total');
-  const containsRice = input.ingredients.some((l) => !l.omitted && isRice(foods.get(l.foodId)!.name));
+  const shares = splitBatch(batch, input.split);
+  const containsRice = batchContainsRice(input.ingredients.map((l) => ({ foodName: foods.get(l.foodId)!.name, omitted: l.omitted })));
   const rule = defaultUseBy(input.cookedOn, input.storage, input.region, containsRice);
   const sequelize = BatchModel.sequelize!;
 
@@ -244,26 +243,16 @@ export async function createBatch(profileId: number, userId: number, input: Crea
     const split = input.split;
     const portions =
       split.mode === 'equal'
-        ? zipShares(splitEqually({ cookedGrams, carbTotal: carbAvailable }, split.count), splitEqually({ cookedGrams, carbTotal }, split.count)).map(
-            ([available, total]) => ({
-              ...noContainer,
-              netGrams: available.netGrams,
-              carbAvailable: available.carbGrams,
-              carbTotal: total.carbGrams,
-            }),
-          )
+        ? shares.map((share) => ({ ...noContainer, ...toPortionCarb(share) }))
         : await inSequence(
             split.portions.map((w, i) => async () => {
               const container = w.containerId ? await findContainerOr400(profileId, w.containerId, `split.portions.${i}.containerId`, transaction) : null;
-              const net = netGrams(w.grossGrams, w.tareGrams);
               return {
                 containerId: container?.id ?? null,
                 containerName: container?.name ?? null,
                 grossGrams: w.grossGrams,
                 tareGrams: w.tareGrams,
-                netGrams: net,
-                carbAvailable: weighedPortionCarb(carbInBasis(batch.per100gCooked, 'available'), net),
-                carbTotal: weighedPortionCarb(carbInBasis(batch.per100gCooked, 'total'), net),
+                ...toPortionCarb(shares[i]),
               };
             }),
           );
@@ -283,7 +272,10 @@ async function findContainerOr400(profileId: number, id: number, field: string, 
   });
 }
 
-const isRice = (foodName: string) => /\brice\b/i.test(foodName);
+/** The stored columns of one share of the split. */
+function toPortionCarb(share: SplitShare) {
+  return { netGrams: share.netGrams, carbAvailable: share.carbAvailable, carbTotal: share.carbTotal };
+}
 
 /** Moves a batch between fridge and freezer or corrects its use-by date (default follows the new storage, rice rule included). */
 export async function updateBatch(profileId: number, id: number, input: UpdateBatchInput): Promise<BatchDetail> {
@@ -298,7 +290,7 @@ export async function updateBatch(profileId: number, id: number, input: UpdateBa
     batch.useBy = input.useBy;
     batch.useBySource = 'Set by the cook';
   } else if (input.storage) {
-    const containsRice = (batch.ingredients ?? []).some((l) => !l.omitted && isRice(l.foodName));
+    const containsRice = batchContainsRice(batch.ingredients ?? []);
     const rule = defaultUseBy(batch.cookedOn, batch.storage, batch.foodSafetyRegion, containsRice);
     Object.assign(batch, { useBy: rule.useBy, useBySource: rule.source, useByNote: rule.note });
   }
@@ -311,9 +303,4 @@ async function inSequence<T>(steps: (() => Promise<T>)[]): Promise<T[]> {
   const out: T[] = [];
   for (const step of steps) out.push(await step());
   return out;
-}
-
-/** Pairs the i-th share of two equal splits (the same batch counted in both carbohydrate bases). */
-function zipShares<T>(a: T[], b: T[]): [T, T][] {
-  return a.map((share, i) => [share, b[i]]);
 }

@@ -94,6 +94,34 @@ export function splitEqually(batch: Pick<BatchComputation, 'cookedGrams' | 'carb
   return Array.from({ length: count }, () => ({ netGrams, carbGrams }));
 }
 
+/** How a batch is divided: N equal portions, or portions each weighed (gross on the scale, container tare). */
+export type BatchSplit =
+  | { mode: 'equal'; count: number }
+  | { mode: 'weighed'; portions: readonly { grossGrams: number; tareGrams: number }[] };
+
+/** One portion of a split: its net grams and its carbohydrate in both bases (g; null when unknown). */
+export type SplitShare = { netGrams: number; carbAvailable: number | null; carbTotal: number | null };
+
+/**
+ * Divides a computed batch into portions, counting carbohydrate in both bases at once (FAO recipe method,
+ * Greenfield & Southgate 2003: per gram of the cooked dish). Equal: each gets cooked ÷ N grams and the
+ * batch's carbohydrate ÷ N. Weighed: each gets its net grams (gross − tare) × carbohydrate per 100 g cooked ÷ 100.
+ * Throws a RangeError for a count that is not a whole number ≥ 1 or a tare not below its gross.
+ */
+export function splitBatch(batch: Pick<BatchComputation, 'cookedGrams' | 'totals' | 'per100gCooked'>, split: BatchSplit): SplitShare[] {
+  if (split.mode === 'equal') {
+    const available = splitEqually({ cookedGrams: batch.cookedGrams, carbTotal: carbInBasis(batch.totals, 'available') }, split.count);
+    const total = splitEqually({ cookedGrams: batch.cookedGrams, carbTotal: carbInBasis(batch.totals, 'total') }, split.count);
+    return available.map((share, i) => ({ netGrams: share.netGrams, carbAvailable: share.carbGrams, carbTotal: total[i].carbGrams }));
+  }
+  const per100Available = carbInBasis(batch.per100gCooked, 'available');
+  const per100Total = carbInBasis(batch.per100gCooked, 'total');
+  return split.portions.map((w) => {
+    const net = netGrams(w.grossGrams, w.tareGrams);
+    return { netGrams: net, carbAvailable: weighedPortionCarb(per100Available, net), carbTotal: weighedPortionCarb(per100Total, net) };
+  });
+}
+
 /**
  * Scales and weighing are not exact: weighed portions may add up to this many grams more than the
  * cooked weight before we call it a mistake (common practice for 1 g kitchen scales read several times).

@@ -47,6 +47,16 @@ export function defaultUseBy(cookedOn: string, storage: Storage, region: FoodSaf
   return { useBy: addDays(cookedOn, rule.days ?? 0, rule.months ?? 0), source: rule.source, note: rule.note };
 }
 
+/** True when a food's name says it is rice (word match, so "licorice" is not rice). */
+export function isRiceFood(foodName: string): boolean {
+  return /\brice\b/i.test(foodName);
+}
+
+/** True when any ingredient that went into the batch (not left out) is rice: the stricter fridge rule applies. */
+export function batchContainsRice(lines: readonly { foodName: string; omitted?: boolean }[]): boolean {
+  return lines.some((l) => !l.omitted && isRiceFood(l.foodName));
+}
+
 /** Whole days from `today` to `useBy` (both YYYY-MM-DD): 0 = last day, negative = expired. */
 export function daysUntil(useBy: string, today: string): number {
   return Math.round((Date.parse(`${useBy}T00:00:00Z`) - Date.parse(`${today}T00:00:00Z`)) / 86_400_000);

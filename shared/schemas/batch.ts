@@ -1,5 +1,5 @@
 import { z } from 'zod';
-import { SPLIT_TOLERANCE_GRAMS } from '../compute/batch';
+import { netGrams, splitExceedsBatch } from '../compute/batch';
 import type { Nutrients } from '../compute/nutrients';
 import type { CarbBasis, CarbUnit } from './units';
 import { carbAmountSchema, storageSchema, type Portion } from './portion';
@@ -63,6 +63,15 @@ export const splitInputSchema = z.discriminatedUnion('mode', [
 ]);
 export type SplitInput = z.input<typeof splitInputSchema>;
 
+/** Net grams of a weighing, or null when it is not a valid reading (its own field errors say why). */
+function netOrNull(w: { grossGrams: number; tareGrams: number }): number | null {
+  try {
+    return netGrams(w.grossGrams, w.tareGrams);
+  } catch {
+    return null;
+  }
+}
+
 /** POST /api/profiles/:profileId/batches — a whole cook, saved at once. */
 export const createBatchInputSchema = z
   .object({
@@ -84,12 +93,11 @@ export const createBatchInputSchema = z
     if (input.useBy && input.useBy < input.cookedOn) {
       ctx.addIssue({ code: 'custom', path: ['useBy'], message: 'The use-by date cannot be before the cooking date.' });
     }
-    const { grossGrams, tareGrams } = input.cookedWeight;
-    if (input.split.mode === 'weighed' && tareGrams < grossGrams) {
-      const cooked = grossGrams - tareGrams;
-      const nets = input.split.portions.map((p) => p.grossGrams - p.tareGrams);
+    const cooked = netOrNull(input.cookedWeight);
+    if (input.split.mode === 'weighed' && cooked != null) {
+      const nets = input.split.portions.map((p) => netOrNull(p) ?? 0);
       const sum = nets.reduce((a, b) => a + b, 0);
-      if (sum > cooked + SPLIT_TOLERANCE_GRAMS) {
+      if (splitExceedsBatch(cooked, nets)) {
         ctx.addIssue({
           code: 'custom',
           path: ['split', 'portions'],

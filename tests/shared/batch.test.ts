@@ -3,6 +3,7 @@ import {
   gramsLeftToSplit,
   netGrams,
   splitEqually,
+  splitBatch,
   splitExceedsBatch,
   weighedPortionCarb,
   weighingDifference,
@@ -124,6 +125,59 @@ describe('a realistic weighed week of overnight oats in five jars', () => {
     const equal = splitEqually(computeBatch(lines, cooked, 'available'), 5);
 
     expect(gramsToCarbUnit(equal[0].carbGrams!, unit)).toBeCloseTo(expected, 5);
+  });
+});
+
+describe('splitBatch: both carbohydrate bases at once, equal and weighed', () => {
+  // Expected values per portion, each from outside the code under test:
+  //   T1 porridge (check-values §2.3/T1, FAO recipe method, Greenfield & Southgate 2003, on SR Legacy): 2200 g cooked,
+  //     8 portions of 275 g → total 48.3125 g, available 42.000 g (±0.01 g).
+  //   T4 jars (check-values §2.4/T4): 1150 g, 6 jars → total 41.09 g, available 36.20 g (±0.01 g).
+  //   T2 and §2.3 weighed porridge portions: 250 g → total 43.92, available 38.18; 300 g → 52.70 / 45.82 (±0.01 g).
+  //   Five oat jars: the hand calculation written out above (226 g → 39.2206 / 45.0831; 227 g → 39.3942 / 45.2825).
+  const oatLines = [line(oats, 252), line(wholeMilk, 496), line(greekYogurt, 247), line(apple, 163)];
+  it.each([
+    { name: 'T1 porridge, 8 equal portions', lines: porridge, cooked: 2200, split: { mode: 'equal' as const, count: 8 }, expected: [{ net: 275, available: 42.0, total: 48.3125 }] },
+    { name: 'T4 jars, 6 equal jars', lines: jars, cooked: 1150, split: { mode: 'equal' as const, count: 6 }, expected: [{ net: 1150 / 6, available: 36.2, total: 41.09 }] },
+    {
+      name: 'T2 / §2.3 porridge, weighed 250 g and 300 g in containers',
+      lines: porridge,
+      cooked: 2200,
+      split: { mode: 'weighed' as const, portions: [{ grossGrams: 400, tareGrams: 150 }, { grossGrams: 300, tareGrams: 0 }] },
+      expected: [{ net: 250, available: 38.18, total: 43.92 }, { net: 300, available: 45.82, total: 52.7 }],
+    },
+    {
+      name: 'five weighed oat jars (hand calculation)',
+      lines: oatLines,
+      cooked: 1132,
+      split: { mode: 'weighed' as const, portions: [{ grossGrams: 438, tareGrams: 212 }, { grossGrams: 436, tareGrams: 209 }] },
+      expected: [{ net: 226, available: 39.2206, total: 45.0831 }, { net: 227, available: 39.3942, total: 45.2825 }],
+    },
+  ])('$name', ({ lines, cooked, split, expected }) => {
+    const shares = splitBatch(computeBatch(lines, cooked, 'available'), split);
+
+    expect(shares).toHaveLength(split.mode === 'equal' ? split.count : expected.length);
+    expected.forEach((e, i) => {
+      expect(shares[i].netGrams).toBeCloseTo(e.net, 9);
+      expect(Math.abs(shares[i].carbAvailable! - e.available)).toBeLessThan(0.01);
+      expect(Math.abs(shares[i].carbTotal! - e.total)).toBeLessThan(0.01);
+    });
+  });
+
+  it('keeps unknown carbohydrate unknown in every share', () => {
+    const shares = splitBatch(computeBatch([line(emptyNutrients(), 100)], 100, 'available'), { mode: 'equal', count: 2 });
+
+    expect(shares).toEqual([
+      { netGrams: 50, carbAvailable: null, carbTotal: null },
+      { netGrams: 50, carbAvailable: null, carbTotal: null },
+    ]);
+  });
+
+  it.each([
+    { name: 'zero portions', split: { mode: 'equal' as const, count: 0 } },
+    { name: 'a tare not below its gross', split: { mode: 'weighed' as const, portions: [{ grossGrams: 200, tareGrams: 200 }] } },
+  ])('throws a RangeError for $name', ({ split }) => {
+    expect(() => splitBatch(computeBatch(porridge, 2200, 'total'), split)).toThrow(RangeError);
   });
 });
 

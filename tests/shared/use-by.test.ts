@@ -1,4 +1,4 @@
-import { daysUntil, defaultUseBy, regionForLocale } from '../../shared/compute/use-by';
+import { batchContainsRice, daysUntil, defaultUseBy, regionForLocale } from '../../shared/compute/use-by';
 
 describe('defaultUseBy', () => {
   it.each([
@@ -19,6 +19,19 @@ describe('defaultUseBy', () => {
     expect(result.useBy).toBe(expected);
     expect(result.source).toMatch(source);
     expect(result.note.length).toBeGreaterThan(10);
+  });
+});
+
+describe('batchContainsRice', () => {
+  // Which foods count as rice is our own word rule (common practice: match the word, not a substring).
+  it.each([
+    { name: 'a rice line', lines: [{ foodName: 'Rice, white, long-grain, cooked' }], expected: true },
+    { name: 'rice within a name', lines: [{ foodName: 'Beans and Rice, canned' }], expected: true },
+    { name: 'rice left out', lines: [{ foodName: 'Rice, brown, cooked', omitted: true }, { foodName: 'Lentils' }], expected: false },
+    { name: 'a word that only contains "rice"', lines: [{ foodName: 'Licorice' }, { foodName: 'Price-checked oats' }], expected: false },
+    { name: 'no lines', lines: [], expected: false },
+  ])('$name → $expected', ({ lines, expected }) => {
+    expect(batchContainsRice(lines)).toBe(expected);
   });
 });
 
