@@ -3,14 +3,23 @@ import helmet from 'helmet';
 import { pinoHttp } from 'pino-http';
 import type { Sequelize } from 'sequelize';
 import type { Config } from './config';
+import { PhotoProcessor } from './lib/photo-worker';
+import { localDiskStorage } from './lib/storage';
 import { logger } from './logger';
 import { errorHandler, notFoundHandler } from './middleware/error-handler';
 import { apiRouter } from './routes';
+import type { AppDeps } from './routes/registry';
+import { configurePhotoSigning } from './services/photos.service';
 import { serveWeb } from './web';
 
-/** Builds the Express app (API + web build); server/index.ts calls listen(), tests use supertest. */
+/**
+ * Builds the Express app (API + web build); server/index.ts calls listen(), tests use supertest. The one file storage
+ * and the one photo processor (at most two decodes at once) are made here and handed to every route that stores or serves a file.
+ */
 export function createApp(config: Config, sequelize: Sequelize) {
   logger.level = config.LOG_LEVEL;
+  configurePhotoSigning(config.jwtSecret);
+  const deps: AppDeps = { config, sequelize, storage: localDiskStorage(config.UPLOADS_DIR), photos: new PhotoProcessor(2) };
   const app = express();
   app.disable('x-powered-by');
   app.use(
@@ -42,7 +51,7 @@ export function createApp(config: Config, sequelize: Sequelize) {
     );
   }
   app.use(express.json({ limit: '1mb' }));
-  app.use('/api', apiRouter(config, sequelize));
+  app.use('/api', apiRouter(deps));
   app.use('/api', notFoundHandler);
   serveWeb(app, config.WEB_DIST_DIR);
   app.use(errorHandler);

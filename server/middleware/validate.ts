@@ -2,7 +2,12 @@ import type { NextFunction, Request, Response } from 'express';
 import type { z } from 'zod';
 import { AppError, type FieldErrors } from '../errors';
 
-type Schemas = { body?: z.ZodType; query?: z.ZodType; params?: z.ZodType };
+export type RequestSchemas = { body?: z.ZodType; query?: z.ZodType; params?: z.ZodType };
+
+/** What `validate` leaves in `res.locals.input`: each part parsed by its schema (undefined without one). */
+export type ValidatedInput<S extends RequestSchemas> = {
+  [K in keyof Required<RequestSchemas>]: S[K] extends z.ZodType ? z.output<S[K]> : undefined;
+};
 
 /** Turns zod issues into { "field.path": [messages] }. */
 export function toFieldErrors(error: z.ZodError): FieldErrors {
@@ -14,23 +19,23 @@ export function toFieldErrors(error: z.ZodError): FieldErrors {
   return out;
 }
 
-/** Validates body, query and params with zod and replaces them with the parsed values. */
-export function validate(schemas: Schemas) {
-  return (req: Request, _res: Response, next: NextFunction) => {
+/**
+ * Validates params, query and body with zod (every field error at once) and puts the parsed values in
+ * `res.locals.input`; handlers read them typed through the route registry (`defineRoute`), never by casting req.
+ */
+export function validate(schemas: RequestSchemas) {
+  return (req: Request, res: Response, next: NextFunction) => {
     const fieldErrors: FieldErrors = {};
-    const parsed: Partial<Record<keyof Schemas, unknown>> = {};
+    const input: Record<string, unknown> = {};
     for (const part of ['params', 'query', 'body'] as const) {
       const schema = schemas[part];
       if (!schema) continue;
       const result = schema.safeParse(req[part] ?? {});
-      if (result.success) parsed[part] = result.data;
+      if (result.success) input[part] = result.data;
       else Object.assign(fieldErrors, toFieldErrors(result.error));
     }
     if (Object.keys(fieldErrors).length) return next(AppError.validation(fieldErrors));
-    if ('body' in parsed) req.body = parsed.body;
-    // Express 5 exposes req.query through a getter; shadow it with the parsed value.
-    if ('query' in parsed) Object.defineProperty(req, 'query', { value: parsed.query, writable: true, configurable: true });
-    if ('params' in parsed) req.params = parsed.params as Request['params'];
+    res.locals.input = input;
     next();
   };
 }

@@ -1,14 +1,12 @@
-import { Router } from 'express';
-import type { Config } from '../config';
-import { requireAuth, requireRole } from '../middleware/auth';
 import { listUsers } from '../services/users.service';
+import { access, defineRoute, type AnyRoute } from './registry';
 
 /** Admin-only account management. */
-export function adminRouter(config: Config) {
-  const router = Router();
-  router.use('/admin', requireAuth(config), requireRole('admin'));
-  router.get('/admin/users', async (_req, res) => {
-    res.json({ users: await listUsers() });
-  });
-  return router;
+export function adminRoutes(): AnyRoute[] {
+  return [
+    defineRoute({
+      method: 'get', path: '/admin/users', summary: 'Every account.', access: access.role('admin'),
+      handler: async (_ctx, _req, res) => res.json({ users: await listUsers() }),
+    }),
+  ];
 }

@@ -1,16 +1,11 @@
-import { Router } from 'express';
 import { rateLimit } from 'express-rate-limit';
-import { changePasswordInputSchema, signInInputSchema, signUpInputSchema } from '../../shared/schemas/auth';
-import type { Config } from '../config';
+import { changePasswordInputSchema, meSchema, sessionSchema, signInInputSchema, signUpInputSchema } from '../../shared/schemas/auth';
 import { AppError } from '../errors';
-import { requireAuth } from '../middleware/auth';
-import { validate } from '../middleware/validate';
 import { changePassword, getMe, signIn, signOut, signUp } from '../services/auth.service';
+import { access, defineRoute, type AnyRoute, type AppDeps } from './registry';
 
 /** Sign-up, sign-in, sign-out, password change and /me. */
-export function authRouter(config: Config) {
-  const router = Router();
-  const auth = requireAuth(config);
+export function authRoutes({ config }: AppDeps): AnyRoute[] {
   const limiter = rateLimit({
     windowMs: config.AUTH_RATE_WINDOW_SECONDS * 1000,
     limit: config.AUTH_RATE_LIMIT,
@@ -19,22 +14,32 @@ export function authRouter(config: Config) {
     handler: (_req, _res, next) =>
       next(new AppError(429, 'rate_limited', 'Too many attempts. Please wait a few minutes and try again.')),
   });
-
-  router.post('/auth/sign-up', limiter, validate({ body: signUpInputSchema }), async (req, res) => {
-    res.status(201).json(await signUp(config, req.body));
-  });
-  router.post('/auth/sign-in', limiter, validate({ body: signInInputSchema }), async (req, res) => {
-    res.json(await signIn(config, req.body));
-  });
-  router.post('/auth/sign-out', auth, async (req, res) => {
-    await signOut(req.auth!.jti, req.auth!.expiresAt);
-    res.status(204).end();
-  });
-  router.post('/auth/password', auth, limiter, validate({ body: changePasswordInputSchema }), async (req, res) => {
-    res.json(await changePassword(config, req.auth!.user, req.body));
-  });
-  router.get('/me', auth, async (req, res) => {
-    res.json(await getMe(req.auth!.user));
-  });
-  return router;
+  return [
+    defineRoute({
+      method: 'post', path: '/auth/sign-up', access: access.public, before: [limiter], body: signUpInputSchema, status: 201, response: sessionSchema,
+      summary: 'Create an account (rate-limited): a member also gets their own profile. 409 when the email is taken.',
+      handler: async ({ body }, _req, res) => res.status(201).json(await signUp(config, body)),
+    }),
+    defineRoute({
+      method: 'post', path: '/auth/sign-in', access: access.public, before: [limiter], body: signInInputSchema, response: sessionSchema,
+      summary: 'Sign in (rate-limited); the same 401 for an unknown email or a wrong password.',
+      handler: async ({ body }, _req, res) => res.json(await signIn(config, body)),
+    }),
+    defineRoute({
+      method: 'post', path: '/auth/sign-out', access: access.signedIn, status: 204, summary: 'Revoke this token.',
+      handler: async ({ auth }, _req, res) => {
+        await signOut(auth.jti, auth.expiresAt);
+        res.status(204).end();
+      },
+    }),
+    defineRoute({
+      method: 'post', path: '/auth/password', access: access.signedIn, before: [limiter], body: changePasswordInputSchema, response: sessionSchema,
+      summary: 'Change the password (rate-limited) and get a new session; older tokens stop working.',
+      handler: async ({ user, body }, _req, res) => res.json(await changePassword(config, user.id, body)),
+    }),
+    defineRoute({
+      method: 'get', path: '/me', access: access.signedIn, response: meSchema, summary: 'The signed-in account and the profiles it may open.',
+      handler: async ({ user }, _req, res) => res.json(await getMe(user.id)),
+    }),
+  ];
 }

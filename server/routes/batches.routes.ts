@@ -1,13 +1,10 @@
-import { Router, type Request } from 'express';
-import { z } from 'zod';
+import type { Request } from 'express';
+import { profileIdParamSchema } from '../../shared/schemas/common';
 import { batchListQuerySchema, batchParamsSchema, createBatchInputSchema, updateBatchInputSchema } from '../../shared/schemas/batch';
 import type { Config } from '../config';
-import { requireAuth, requireProfileAccess } from '../middleware/auth';
-import { validate } from '../middleware/validate';
 import { createBatch, getBatch, listBatches, updateBatch } from '../services/batches.service';
 import { buildLabelSheet } from '../services/labels.service';
-
-const profileParams = z.object({ profileId: z.coerce.number().int().positive('Not a valid id.') });
+import { access, defineRoute, type AnyRoute, type AppDeps } from './registry';
 
 /** PUBLIC_URL when set (behind a proxy), else the origin the request came to. */
 function originOf(config: Config, req: Request): string {
@@ -15,28 +12,33 @@ function originOf(config: Config, req: Request): string {
 }
 
 /** Cooked batches of a profile: save a cook, the inventory, a batch page, storage changes and the label sheet. */
-export function batchesRouter(config: Config) {
-  const router = Router();
-  const auth = requireAuth(config);
-  const read = requireProfileAccess();
-  const write = requireProfileAccess(['owner', 'carer']);
+export function batchesRoutes({ config }: AppDeps): AnyRoute[] {
+  const read = access.profile('owner', 'carer', 'clinician');
+  const write = access.profile('owner', 'carer');
   const base = '/profiles/:profileId/batches';
-
-  router.get(base, auth, read, validate({ params: profileParams, query: batchListQuerySchema }), async (req, res) => {
-    const { include } = req.query as z.infer<typeof batchListQuerySchema>;
-    res.json({ items: await listBatches(Number(req.params.profileId), include) });
-  });
-  router.post(base, auth, write, validate({ params: profileParams, body: createBatchInputSchema }), async (req, res) => {
-    res.status(201).json(await createBatch(Number(req.params.profileId), req.auth!.user.id, req.body));
-  });
-  router.get(`${base}/:id`, auth, read, validate({ params: batchParamsSchema }), async (req, res) => {
-    res.json(await getBatch(Number(req.params.profileId), Number(req.params.id)));
-  });
-  router.patch(`${base}/:id`, auth, write, validate({ params: batchParamsSchema, body: updateBatchInputSchema }), async (req, res) => {
-    res.json(await updateBatch(Number(req.params.profileId), Number(req.params.id), req.body));
-  });
-  router.get(`${base}/:id/labels`, auth, read, validate({ params: batchParamsSchema }), async (req, res) => {
-    res.json(await buildLabelSheet(Number(req.params.profileId), Number(req.params.id), originOf(config, req)));
-  });
-  return router;
+  return [
+    defineRoute({
+      method: 'get', path: base, access: read, params: profileIdParamSchema, query: batchListQuerySchema,
+      summary: 'The inventory, newest cook first, with portion counts and codes (`include=available|all`).',
+      handler: async ({ params, query }, _req, res) => res.json({ items: await listBatches(params.profileId, query.include) }),
+    }),
+    defineRoute({
+      method: 'post', path: base, access: write, params: profileIdParamSchema, body: createBatchInputSchema, status: 201,
+      summary: 'Save a whole cook at once: weighed lines, cooked weight, the split (equal or weighed) and the use-by date.',
+      handler: async ({ params, user, body }, _req, res) => res.status(201).json(await createBatch(params.profileId, user.id, body)),
+    }),
+    defineRoute({
+      method: 'get', path: `${base}/:id`, access: read, params: batchParamsSchema, summary: 'A batch page with its snapshot and portions.',
+      handler: async ({ params }, _req, res) => res.json(await getBatch(params.profileId, params.id)),
+    }),
+    defineRoute({
+      method: 'patch', path: `${base}/:id`, access: write, params: batchParamsSchema, body: updateBatchInputSchema,
+      summary: 'Move between fridge and freezer or correct the use-by date.',
+      handler: async ({ params, body }, _req, res) => res.json(await updateBatch(params.profileId, params.id, body)),
+    }),
+    defineRoute({
+      method: 'get', path: `${base}/:id/labels`, access: read, params: batchParamsSchema, summary: 'The printable label sheet (QR codes as PNG data).',
+      handler: async ({ params }, req, res) => res.json(await buildLabelSheet(params.profileId, params.id, originOf(config, req))),
+    }),
+  ];
 }

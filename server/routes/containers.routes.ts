@@ -1,34 +1,34 @@
-import { Router } from 'express';
-import { z } from 'zod';
-import { createContainerInputSchema, updateContainerInputSchema } from '../../shared/schemas/container';
-import type { Config } from '../config';
-import { requireAuth, requireProfileAccess } from '../middleware/auth';
-import { validate } from '../middleware/validate';
+import { profileIdParamSchema, profileItemParamSchema } from '../../shared/schemas/common';
+import { containerSchema, createContainerInputSchema, updateContainerInputSchema } from '../../shared/schemas/container';
 import { createContainer, deleteContainer, listContainers, updateContainer } from '../services/containers.service';
-
-const profileParams = z.object({ profileId: z.coerce.number().int().positive('Not a valid id.') });
-const containerParams = profileParams.extend({ id: z.coerce.number().int().positive('Not a valid id.') });
+import { access, defineRoute, type AnyRoute } from './registry';
 
 /** Saved pots and containers (with tares) of a profile. Clinicians may look but not change them. */
-export function containersRouter(config: Config) {
-  const router = Router();
-  const auth = requireAuth(config);
-  const read = requireProfileAccess();
-  const write = requireProfileAccess(['owner', 'carer']);
+export function containersRoutes(): AnyRoute[] {
+  const read = access.profile('owner', 'carer', 'clinician');
+  const write = access.profile('owner', 'carer');
   const base = '/profiles/:profileId/containers';
-
-  router.get(base, auth, read, validate({ params: profileParams }), async (req, res) => {
-    res.json({ items: await listContainers(Number(req.params.profileId)) });
-  });
-  router.post(base, auth, write, validate({ params: profileParams, body: createContainerInputSchema }), async (req, res) => {
-    res.status(201).json(await createContainer(Number(req.params.profileId), req.body));
-  });
-  router.patch(`${base}/:id`, auth, write, validate({ params: containerParams, body: updateContainerInputSchema }), async (req, res) => {
-    res.json(await updateContainer(Number(req.params.profileId), Number(req.params.id), req.body));
-  });
-  router.delete(`${base}/:id`, auth, write, validate({ params: containerParams }), async (req, res) => {
-    await deleteContainer(Number(req.params.profileId), Number(req.params.id));
-    res.status(204).end();
-  });
-  return router;
+  return [
+    defineRoute({
+      method: 'get', path: base, access: read, params: profileIdParamSchema, summary: 'Saved pots and containers with their tares.',
+      handler: async ({ params }, _req, res) => res.json({ items: await listContainers(params.profileId) }),
+    }),
+    defineRoute({
+      method: 'post', path: base, access: write, params: profileIdParamSchema, body: createContainerInputSchema, status: 201, response: containerSchema,
+      summary: 'Save a pot or container with its empty weight.',
+      handler: async ({ params, body }, _req, res) => res.status(201).json(await createContainer(params.profileId, body)),
+    }),
+    defineRoute({
+      method: 'patch', path: `${base}/:id`, access: write, params: profileItemParamSchema, body: updateContainerInputSchema, response: containerSchema,
+      summary: 'Rename or re-weigh a container.',
+      handler: async ({ params, body }, _req, res) => res.json(await updateContainer(params.profileId, params.id, body)),
+    }),
+    defineRoute({
+      method: 'delete', path: `${base}/:id`, access: write, params: profileItemParamSchema, status: 204, summary: 'Delete a container.',
+      handler: async ({ params }, _req, res) => {
+        await deleteContainer(params.profileId, params.id);
+        res.status(204).end();
+      },
+    }),
+  ];
 }

@@ -1,24 +1,16 @@
-import { Router } from 'express';
-import { z } from 'zod';
+import { profileIdParamSchema } from '../../shared/schemas/common';
 import { doseRequestSchema } from '../../shared/schemas/dose';
-import type { Config } from '../config';
-import { requireAuth, requireProfileAccess } from '../middleware/auth';
-import { validate } from '../middleware/validate';
 import { suggestDose } from '../services/dose.service';
-
-const profileParams = z.object({ profileId: z.coerce.number().int().positive('Not a valid id.') });
+import { access, defineRoute, type AnyRoute } from './registry';
 
 /** Dose suggestions: computed by the shared engine on the server, never stored here. */
-export function doseRouter(config: Config) {
-  const router = Router();
-  router.post(
-    '/profiles/:profileId/dose-suggestions',
-    requireAuth(config),
-    requireProfileAccess(['owner', 'carer', 'clinician']),
-    validate({ params: profileParams, body: doseRequestSchema }),
-    async (req, res) => {
-      res.json(await suggestDose(Number(req.params.profileId), req.body));
-    },
-  );
-  return router;
+export function doseRoutes(): AnyRoute[] {
+  return [
+    defineRoute({
+      method: 'post', path: '/profiles/:profileId/dose-suggestions', access: access.profile('owner', 'carer', 'clinician'),
+      params: profileIdParamSchema, body: doseRequestSchema,
+      summary: 'A dose suggestion with every part of the sum, warnings and cautions (not stored).',
+      handler: async ({ params, body }, _req, res) => res.json(await suggestDose(params.profileId, body)),
+    }),
+  ];
 }

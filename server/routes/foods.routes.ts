@@ -1,14 +1,13 @@
-import path from 'node:path';
-import { Router, type NextFunction, type Request, type Response } from 'express';
+import type { NextFunction, Request, Response } from 'express';
 import multer from 'multer';
+import { z } from 'zod';
 import { idParamSchema } from '../../shared/schemas/common';
-import { createLabelFoodInputSchema, foodSearchQuerySchema, type FoodSearchQuery } from '../../shared/schemas/food';
-import type { Config } from '../config';
+import { createLabelFoodInputSchema, foodSchema, foodSearchPageSchema, foodSearchQuerySchema } from '../../shared/schemas/food';
 import { AppError } from '../errors';
-import { requireAuth } from '../middleware/auth';
-import { toFieldErrors, validate } from '../middleware/validate';
 import { getFood, getFoodPhotoPath, searchFoods } from '../services/foods.service';
 import { createLabelFood, deleteLabelFood, LABEL_PHOTO_MAX_BYTES } from '../services/label-foods.service';
+import { signedPhotoUrl } from '../services/photos.service';
+import { access, defineRoute, type AnyRoute, type AppDeps } from './registry';
 
 const upload = multer({ storage: multer.memoryStorage(), limits: { fileSize: LABEL_PHOTO_MAX_BYTES, files: 1 } });
 
@@ -30,37 +29,42 @@ function labelUpload(req: Request, res: Response, next: NextFunction) {
   });
 }
 
+const foodBody = z.object({ food: foodSchema });
+
 /** Food search, food details and label foods. */
-export function foodsRouter(config: Config) {
-  const router = Router();
-  router.use('/foods', requireAuth(config));
-
-  router.get('/foods', validate({ query: foodSearchQuerySchema }), async (req, res) => {
-    res.json(await searchFoods(req.query as unknown as FoodSearchQuery, req.auth!.user.id));
-  });
-
-  router.get('/foods/:id', validate({ params: idParamSchema }), async (req, res) => {
-    res.json({ food: await getFood(Number(req.params.id), req.auth!.user.id) });
-  });
-
-  router.get('/foods/:id/photo', validate({ params: idParamSchema }), async (req, res, next) => {
-    const stored = await getFoodPhotoPath(Number(req.params.id), req.auth!.user.id);
-    res.sendFile(path.resolve(config.UPLOADS_DIR, stored), { headers: { 'Cache-Control': 'private, max-age=3600' } }, (err) => {
-      if (err && !res.headersSent) next(AppError.notFound('photo'));
-    });
-  });
-
-  router.post('/foods', labelUpload, async (req, res) => {
-    const parsed = createLabelFoodInputSchema.safeParse(req.body ?? {});
-    if (!parsed.success) throw AppError.validation(toFieldErrors(parsed.error));
-    const photo = req.file ? { buffer: req.file.buffer, mimetype: req.file.mimetype } : undefined;
-    res.status(201).json({ food: await createLabelFood(req.auth!.user.id, parsed.data, config.UPLOADS_DIR, photo) });
-  });
-
-  router.delete('/foods/:id', validate({ params: idParamSchema }), async (req, res) => {
-    await deleteLabelFood(Number(req.params.id), req.auth!.user.id, config.UPLOADS_DIR);
-    res.status(204).end();
-  });
-
-  return router;
+export function foodsRoutes(deps: AppDeps): AnyRoute[] {
+  return [
+    defineRoute({
+      method: 'get', path: '/foods', access: access.signedIn, query: foodSearchQuerySchema, response: foodSearchPageSchema,
+      summary: 'Ranked, typo-tolerant food search; `nextCursor` pages on.',
+      handler: async ({ query, user }, _req, res) => res.json(await searchFoods(query, user.id)),
+    }),
+    defineRoute({
+      method: 'get', path: '/foods/:id', access: access.signedIn, params: idParamSchema, response: foodBody,
+      summary: 'Every value, which carbohydrate was published and which derived, household measures, source and licence.',
+      handler: async ({ params, user }, _req, res) => res.json({ food: await getFood(params.id, user.id) }),
+    }),
+    defineRoute({
+      method: 'get', path: '/foods/:id/photo', access: access.signedIn, params: idParamSchema, status: 302,
+      summary: 'Redirects to a signed link to the label photo (for people who may see the food).',
+      handler: async ({ params, user }, _req, res) => res.redirect(302, signedPhotoUrl(await getFoodPhotoPath(params.id, user.id))),
+    }),
+    defineRoute({
+      method: 'post', path: '/foods', access: access.signedIn, before: [labelUpload], body: createLabelFoodInputSchema, bodyFormat: 'multipart',
+      status: 201, response: foodBody,
+      summary: 'Add a label food (JSON, or multipart with `data` = JSON and `photo` = JPEG/PNG/WebP ≤ 8 MB, re-encoded without EXIF).',
+      handler: async ({ body, user }, req, res) => {
+        const photo = req.file ? { buffer: req.file.buffer, storage: deps.storage, photos: deps.photos } : undefined;
+        res.status(201).json({ food: await createLabelFood(user.id, body, photo) });
+      },
+    }),
+    defineRoute({
+      method: 'delete', path: '/foods/:id', access: access.signedIn, params: idParamSchema, status: 204,
+      summary: 'Delete your label food (409 while a recipe uses it).',
+      handler: async ({ params, user }, _req, res) => {
+        await deleteLabelFood(params.id, user.id, deps.storage);
+        res.status(204).end();
+      },
+    }),
+  ];
 }

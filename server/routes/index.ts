@@ -1,35 +1,53 @@
 import { Router } from 'express';
-import type { Sequelize } from 'sequelize';
-import type { Config } from '../config';
-import { adminRouter } from './admin.routes';
-import { authRouter } from './auth.routes';
-import { foodsRouter } from './foods.routes';
-import { importsRouter } from './imports.routes';
-import { doseRouter } from './dose.routes';
-import { profilesRouter } from './profiles.routes';
-import { batchesRouter } from './batches.routes';
-import { containersRouter } from './containers.routes';
-import { portionsRouter } from './portions.routes';
-import { benchRouter } from './bench.routes';
-import { healthRouter } from './health.routes';
-import { photosRouter } from './photos.routes';
-import { recipesRouter } from './recipes.routes';
+import { buildOpenApiDocument } from '../openapi';
+import { adminRoutes } from './admin.routes';
+import { authRoutes } from './auth.routes';
+import { batchesRoutes } from './batches.routes';
+import { benchRoutes } from './bench.routes';
+import { containersRoutes } from './containers.routes';
+import { doseRoutes } from './dose.routes';
+import { foodsRoutes } from './foods.routes';
+import { healthRoutes } from './health.routes';
+import { importsRoutes } from './imports.routes';
+import { photosRoutes } from './photos.routes';
+import { portionsRoutes } from './portions.routes';
+import { profilesRoutes } from './profiles.routes';
+import { recipesRoutes } from './recipes.routes';
+import { access, defineRoute, enabledRoutes, mountRoutes, type AnyRoute, type AppDeps } from './registry';
 
-/** Every API router, mounted under /api by createApp. Add one line per new router file. */
-export function apiRouter(config: Config, sequelize: Sequelize) {
+/**
+ * The route registry: every API route, with its schemas and who may call it. It mounts the routes and feeds the
+ * OpenAPI document, so a route exists only if it is listed here. A new route file adds one line.
+ */
+export function apiRoutes(deps: AppDeps): AnyRoute[] {
+  const routes = [
+    ...healthRoutes(deps),
+    ...authRoutes(deps),
+    ...adminRoutes(),
+    ...foodsRoutes(deps),
+    ...importsRoutes(deps),
+    ...recipesRoutes(deps),
+    ...photosRoutes(deps),
+    ...profilesRoutes(),
+    ...doseRoutes(),
+    ...containersRoutes(),
+    ...batchesRoutes(deps),
+    ...portionsRoutes(),
+    ...benchRoutes(deps),
+  ];
+  let document: object | undefined;
+  routes.push(
+    defineRoute({
+      method: 'get', path: '/openapi.json', access: access.public, summary: 'This API as an OpenAPI 3.1 document, generated from the route registry.',
+      handler: (_ctx, _req, res) => res.json((document ??= buildOpenApiDocument(enabledRoutes(routes, deps.config)))),
+    }),
+  );
+  return routes;
+}
+
+/** Every API route mounted on one router (under /api by createApp). */
+export function apiRouter(deps: AppDeps) {
   const api = Router();
-  api.use(healthRouter(sequelize));
-  api.use(authRouter(config));
-  api.use(adminRouter(config));
-  api.use(foodsRouter(config));
-  api.use(importsRouter(config, sequelize));
-  api.use(recipesRouter(config));
-  api.use(photosRouter(config));
-  api.use(profilesRouter(config));
-  api.use(doseRouter(config));
-  api.use(containersRouter(config));
-  api.use(batchesRouter(config));
-  api.use(portionsRouter(config));
-  if (config.BENCH_ROUTES === '1') api.use(benchRouter(sequelize));
+  mountRoutes(api, apiRoutes(deps), deps.config);
   return api;
 }

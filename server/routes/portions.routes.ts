@@ -1,23 +1,22 @@
-import { Router } from 'express';
 import { z } from 'zod';
-import { portionCodeParamSchema } from '../../shared/schemas/portion';
-import type { Config } from '../config';
-import { requireAuth } from '../middleware/auth';
-import { validate } from '../middleware/validate';
+import { portionCodeParamSchema, portionDetailSchema } from '../../shared/schemas/portion';
 import { getPortion, setPortionStatus } from '../services/portions.service';
+import { access, defineRoute, type AnyRoute } from './registry';
 
 const statusBodySchema = z.object({ status: z.enum(['eaten', 'discarded'], { error: 'Choose eaten or discarded.' }) });
 
 /** A portion by its label code: its page, and marking it eaten or thrown away (once). */
-export function portionsRouter(config: Config) {
-  const router = Router();
-  const auth = requireAuth(config);
-
-  router.get('/portions/:code', auth, validate({ params: portionCodeParamSchema }), async (req, res) => {
-    res.json(await getPortion(String(req.params.code), req.auth!.user.id));
-  });
-  router.post('/portions/:code/status', auth, validate({ params: portionCodeParamSchema, body: statusBodySchema }), async (req, res) => {
-    res.json(await setPortionStatus(String(req.params.code), req.auth!.user.id, req.body.status));
-  });
-  return router;
+export function portionsRoutes(): AnyRoute[] {
+  return [
+    defineRoute({
+      method: 'get', path: '/portions/:code', access: access.signedIn, params: portionCodeParamSchema, response: portionDetailSchema,
+      summary: 'A portion by its label code (any case, with or without the dash); 404 without access to its profile.',
+      handler: async ({ params, user }, _req, res) => res.json(await getPortion(params.code, user.id)),
+    }),
+    defineRoute({
+      method: 'post', path: '/portions/:code/status', access: access.signedIn, params: portionCodeParamSchema, body: statusBodySchema,
+      response: portionDetailSchema, summary: 'Mark a portion eaten or discarded (once; 409 after). Clinicians may not.',
+      handler: async ({ params, user, body }, _req, res) => res.json(await setPortionStatus(params.code, user.id, body.status)),
+    }),
+  ];
 }

@@ -1,5 +1,4 @@
-import { Router } from 'express';
-import { z } from 'zod';
+import { profileIdParamSchema } from '../../shared/schemas/common';
 import {
   dayKindDayInputSchema,
   dayKindDayParamSchema,
@@ -8,61 +7,62 @@ import {
   dayKindInputSchema,
   profileSettingsInputSchema,
 } from '../../shared/schemas/profile-settings';
-import type { Config } from '../config';
-import { requireAuth, requireProfileAccess } from '../middleware/auth';
-import { validate } from '../middleware/validate';
 import { listDayKindDays, setDayKindDay } from '../services/day-kind-days.service';
-import {
-  createDayKind,
-  deleteDayKind,
-  getSettings,
-  listChanges,
-  listDayKinds,
-  updateDayKind,
-  updateSettings,
-} from '../services/profile-settings.service';
-
-const profileParams = z.object({ profileId: z.coerce.number().int().positive('Not a valid id.') });
+import { createDayKind, deleteDayKind, listDayKinds, updateDayKind } from '../services/day-kinds.service';
+import { getSettings, updateSettings } from '../services/profile-settings.service';
+import { listChanges } from '../services/settings-history.service';
+import { access, defineRoute, type AnyRoute } from './registry';
 
 /** Profile dose settings, day kinds with their ratio blocks, and the change history. */
-export function profilesRouter(config: Config) {
-  const router = Router();
-  const auth = requireAuth(config);
+export function profilesRoutes(): AnyRoute[] {
   // Owners, carers and clinicians with access may both read and edit (per the profile issue).
-  const access = requireProfileAccess(['owner', 'carer', 'clinician']);
+  const team = access.profile('owner', 'carer', 'clinician');
   const base = '/profiles/:profileId';
-
-  router.get(`${base}/settings`, auth, access, validate({ params: profileParams }), async (req, res) => {
-    res.json(await getSettings(Number(req.params.profileId)));
-  });
-  router.put(`${base}/settings`, auth, access, validate({ params: profileParams, body: profileSettingsInputSchema }), async (req, res) => {
-    res.json(await updateSettings(Number(req.params.profileId), req.auth!.user.id, req.body));
-  });
-  router.get(`${base}/settings/history`, auth, access, validate({ params: profileParams }), async (req, res) => {
-    res.json({ changes: await listChanges(Number(req.params.profileId)) });
-  });
-  router.get(`${base}/day-kinds`, auth, access, validate({ params: profileParams }), async (req, res) => {
-    res.json({ dayKinds: await listDayKinds(Number(req.params.profileId)) });
-  });
-  router.post(`${base}/day-kinds`, auth, access, validate({ params: profileParams, body: dayKindInputSchema }), async (req, res) => {
-    res.status(201).json(await createDayKind(Number(req.params.profileId), req.auth!.user.id, req.body));
-  });
-  router.put(`${base}/day-kinds/:dayKindId`, auth, access, validate({ params: dayKindIdParamSchema, body: dayKindInputSchema }), async (req, res) => {
-    const { profileId, dayKindId } = req.params as unknown as z.infer<typeof dayKindIdParamSchema>;
-    res.json(await updateDayKind(profileId, dayKindId, req.auth!.user.id, req.body));
-  });
-  router.delete(`${base}/day-kinds/:dayKindId`, auth, access, validate({ params: dayKindIdParamSchema }), async (req, res) => {
-    const { profileId, dayKindId } = req.params as unknown as z.infer<typeof dayKindIdParamSchema>;
-    await deleteDayKind(profileId, dayKindId, req.auth!.user.id);
-    res.status(204).end();
-  });
-  router.get(`${base}/days`, auth, access, validate({ params: profileParams, query: dayKindDaysQuerySchema }), async (req, res) => {
-    const { from, to } = req.query as unknown as z.infer<typeof dayKindDaysQuerySchema>;
-    res.json({ days: await listDayKindDays(Number(req.params.profileId), from, to) });
-  });
-  router.put(`${base}/days/:date`, auth, access, validate({ params: dayKindDayParamSchema, body: dayKindDayInputSchema }), async (req, res) => {
-    const { profileId, date } = req.params as unknown as z.infer<typeof dayKindDayParamSchema>;
-    res.json(await setDayKindDay(profileId, date, req.auth!.user.id, req.body));
-  });
-  return router;
+  const params = profileIdParamSchema;
+  return [
+    defineRoute({
+      method: 'get', path: `${base}/settings`, access: team, params, summary: 'Units and safety limits (`settings: null` until set up).',
+      handler: async ({ params: p }, _req, res) => res.json(await getSettings(p.profileId)),
+    }),
+    defineRoute({
+      method: 'put', path: `${base}/settings`, access: team, params, body: profileSettingsInputSchema,
+      summary: 'Save units and safety limits (glucose values in the body\'s `glucoseUnit`); the change is recorded.',
+      handler: async ({ params: p, user, body }, _req, res) => res.json(await updateSettings(p.profileId, user.id, body)),
+    }),
+    defineRoute({
+      method: 'get', path: `${base}/settings/history`, access: team, params, summary: 'Every change, newest first: who, when, field by field old → new.',
+      handler: async ({ params: p }, _req, res) => res.json({ changes: await listChanges(p.profileId) }),
+    }),
+    defineRoute({
+      method: 'get', path: `${base}/day-kinds`, access: team, params, summary: 'Day kinds with their time blocks, default first.',
+      handler: async ({ params: p }, _req, res) => res.json({ dayKinds: await listDayKinds(p.profileId) }),
+    }),
+    defineRoute({
+      method: 'post', path: `${base}/day-kinds`, access: team, params, body: dayKindInputSchema, status: 201,
+      summary: 'Create a day kind: blocks cover 00:00–24:00 without gaps or overlaps; the first becomes the default.',
+      handler: async ({ params: p, user, body }, _req, res) => res.status(201).json(await createDayKind(p.profileId, user.id, body)),
+    }),
+    defineRoute({
+      method: 'put', path: `${base}/day-kinds/:dayKindId`, access: team, params: dayKindIdParamSchema, body: dayKindInputSchema,
+      summary: 'Replace a day kind.',
+      handler: async ({ params: p, user, body }, _req, res) => res.json(await updateDayKind(p.profileId, p.dayKindId, user.id, body)),
+    }),
+    defineRoute({
+      method: 'delete', path: `${base}/day-kinds/:dayKindId`, access: team, params: dayKindIdParamSchema, status: 204,
+      summary: 'Delete a day kind (the default only when it is the last one).',
+      handler: async ({ params: p, user }, _req, res) => {
+        await deleteDayKind(p.profileId, p.dayKindId, user.id);
+        res.status(204).end();
+      },
+    }),
+    defineRoute({
+      method: 'get', path: `${base}/days`, access: team, params, query: dayKindDaysQuerySchema, summary: 'The day kind in force on each date (at most 62 days).',
+      handler: async ({ params: p, query }, _req, res) => res.json({ days: await listDayKindDays(p.profileId, query.from, query.to) }),
+    }),
+    defineRoute({
+      method: 'put', path: `${base}/days/:date`, access: team, params: dayKindDayParamSchema, body: dayKindDayInputSchema,
+      summary: 'Give a date another day kind (null: back to the default).',
+      handler: async ({ params: p, user, body }, _req, res) => res.json(await setDayKindDay(p.profileId, p.date, user.id, body)),
+    }),
+  ];
 }

@@ -1,73 +1,78 @@
-import { Router } from 'express';
 import multer from 'multer';
 import { idParamSchema } from '../../shared/schemas/common';
-import {
-  recipeInputSchema,
-  recipeListQuerySchema,
-  recipeShareParamsSchema,
-  recipeViewQuerySchema,
-  shareRecipeInputSchema,
-  type RecipeInputParsed,
-  type RecipeListQuery,
-  type RecipeViewQuery,
-} from '../../shared/schemas/recipe';
-import type { Config } from '../config';
-import { PhotoProcessor } from '../lib/photo-worker';
-import { localDiskStorage } from '../lib/storage';
-import { requireAuth } from '../middleware/auth';
-import { validate } from '../middleware/validate';
+import { recipeInputSchema, recipeListQuerySchema, recipeShareParamsSchema, recipeViewQuerySchema, shareRecipeInputSchema } from '../../shared/schemas/recipe';
 import { removeRecipePhoto, setRecipePhoto } from '../services/photos.service';
 import { copyRecipe, listShares, revokeShare, shareRecipe } from '../services/recipe-sharing.service';
 import { createRecipe, deleteRecipe, getRecipeForUser, listRecipes, updateRecipe } from '../services/recipes.service';
-
-/** Photos are decoded at most two at a time per server process, whatever the number of apps built. */
-const processor = new PhotoProcessor(2);
+import { access, defineRoute, type AnyRoute, type AppDeps } from './registry';
 
 /** Recipes: library shelves, the recipe page with its computed breakdown, editing, photos, sharing, copying. */
-export function recipesRouter(config: Config) {
-  const router = Router();
-  const auth = requireAuth(config);
-  const storage = localDiskStorage(config.UPLOADS_DIR);
+export function recipesRoutes({ storage, photos }: AppDeps): AnyRoute[] {
   const upload = multer({ storage: multer.memoryStorage(), limits: { fileSize: 10 * 1024 * 1024, files: 1, fields: 5 } });
-  const id = validate({ params: idParamSchema });
-  const userId = (req: { auth?: { user: { id: number } } }) => req.auth!.user.id;
-
-  router.get('/recipes', auth, validate({ query: recipeListQuerySchema }), async (req, res) => {
-    res.json({ items: await listRecipes(req.query as unknown as RecipeListQuery, userId(req)) });
-  });
-  router.post('/recipes', auth, validate({ body: recipeInputSchema }), async (req, res) => {
-    res.status(201).json(await createRecipe(req.body as RecipeInputParsed, userId(req)));
-  });
-  router.get('/recipes/:id', auth, validate({ params: idParamSchema, query: recipeViewQuerySchema }), async (req, res) => {
-    res.json(await getRecipeForUser(Number(req.params.id), userId(req), req.query as unknown as RecipeViewQuery));
-  });
-  router.put('/recipes/:id', auth, validate({ params: idParamSchema, body: recipeInputSchema }), async (req, res) => {
-    res.json(await updateRecipe(Number(req.params.id), req.body as RecipeInputParsed, userId(req)));
-  });
-  router.delete('/recipes/:id', auth, id, async (req, res) => {
-    const keys = await deleteRecipe(Number(req.params.id), userId(req));
-    await Promise.all(keys.map((k) => storage.remove(k)));
-    res.status(204).end();
-  });
-  router.post('/recipes/:id/copy', auth, id, async (req, res) => {
-    res.status(201).json(await copyRecipe(Number(req.params.id), userId(req), storage));
-  });
-  router.put('/recipes/:id/photo', auth, id, upload.single('photo'), async (req, res) => {
-    res.json(await setRecipePhoto(Number(req.params.id), userId(req), req.file?.buffer, { storage, processor }));
-  });
-  router.delete('/recipes/:id/photo', auth, id, async (req, res) => {
-    await removeRecipePhoto(Number(req.params.id), userId(req), storage);
-    res.status(204).end();
-  });
-  router.get('/recipes/:id/shares', auth, id, async (req, res) => {
-    res.json({ items: await listShares(Number(req.params.id), userId(req)) });
-  });
-  router.post('/recipes/:id/shares', auth, validate({ params: idParamSchema, body: shareRecipeInputSchema }), async (req, res) => {
-    res.status(201).json({ items: await shareRecipe(Number(req.params.id), userId(req), (req.body as { email: string }).email) });
-  });
-  router.delete('/recipes/:id/shares/:userId', auth, validate({ params: recipeShareParamsSchema }), async (req, res) => {
-    await revokeShare(Number(req.params.id), userId(req), Number(req.params.userId));
-    res.status(204).end();
-  });
-  return router;
+  const signedIn = access.signedIn;
+  const params = idParamSchema;
+  return [
+    defineRoute({
+      method: 'get', path: '/recipes', access: signedIn, query: recipeListQuerySchema,
+      summary: 'One library shelf (`scope=mine|shared|public`), searched by title, tag and ingredient, sorted.',
+      handler: async ({ query, user }, _req, res) => res.json({ items: await listRecipes(query, user.id) }),
+    }),
+    defineRoute({
+      method: 'post', path: '/recipes', access: signedIn, body: recipeInputSchema, status: 201,
+      summary: 'Create a recipe (ingredients in order; 400 with `ingredients.N.field` errors).',
+      handler: async ({ body, user }, _req, res) => res.status(201).json(await createRecipe(body, user.id)),
+    }),
+    defineRoute({
+      method: 'get', path: '/recipes/:id', access: signedIn, params, query: recipeViewQuerySchema,
+      summary: 'The recipe page with the computed breakdown in the profile\'s basis and unit, optionally scaled (who may see it).',
+      handler: async ({ params: p, query, user }, _req, res) => res.json(await getRecipeForUser(p.id, user.id, query)),
+    }),
+    defineRoute({
+      method: 'put', path: '/recipes/:id', access: signedIn, params, body: recipeInputSchema,
+      summary: 'Replace a recipe (owner; cooked batches keep their snapshot; saving as private withdraws every share).',
+      handler: async ({ params: p, body, user }, _req, res) => res.json(await updateRecipe(p.id, body, user.id)),
+    }),
+    defineRoute({
+      method: 'delete', path: '/recipes/:id', access: signedIn, params, status: 204, summary: 'Delete a recipe (owner).',
+      handler: async ({ params: p, user }, _req, res) => {
+        const keys = await deleteRecipe(p.id, user.id);
+        await Promise.all(keys.map((k) => storage.remove(k)));
+        res.status(204).end();
+      },
+    }),
+    defineRoute({
+      method: 'post', path: '/recipes/:id/copy', access: signedIn, params, status: 201,
+      summary: 'An independent private copy that remembers where it came from (who may see it).',
+      handler: async ({ params: p, user }, _req, res) => res.status(201).json(await copyRecipe(p.id, user.id, storage)),
+    }),
+    defineRoute({
+      method: 'put', path: '/recipes/:id/photo', access: signedIn, params, before: [upload.single('photo')], bodyFormat: 'multipart',
+      summary: 'Upload the photo (owner; multipart field `photo`, 10 MB; JPEG, PNG or WebP checked by its bytes; re-encoded).',
+      handler: async ({ params: p, user }, req, res) => res.json(await setRecipePhoto(p.id, user.id, req.file?.buffer, { storage, processor: photos })),
+    }),
+    defineRoute({
+      method: 'delete', path: '/recipes/:id/photo', access: signedIn, params, status: 204, summary: 'Remove the photo (owner).',
+      handler: async ({ params: p, user }, _req, res) => {
+        await removeRecipePhoto(p.id, user.id, storage);
+        res.status(204).end();
+      },
+    }),
+    defineRoute({
+      method: 'get', path: '/recipes/:id/shares', access: signedIn, params, summary: 'Who the owner shared the recipe with.',
+      handler: async ({ params: p, user }, _req, res) => res.json({ items: await listShares(p.id, user.id) }),
+    }),
+    defineRoute({
+      method: 'post', path: '/recipes/:id/shares', access: signedIn, params, body: shareRecipeInputSchema, status: 201,
+      summary: 'Share by `{ email }` (owner); 400 on `email` when no account uses it.',
+      handler: async ({ params: p, body, user }, _req, res) => res.status(201).json({ items: await shareRecipe(p.id, user.id, body.email) }),
+    }),
+    defineRoute({
+      method: 'delete', path: '/recipes/:id/shares/:userId', access: signedIn, params: recipeShareParamsSchema, status: 204,
+      summary: 'Withdraw one person\'s access (owner); their copies stay theirs.',
+      handler: async ({ params: p, user }, _req, res) => {
+        await revokeShare(p.id, user.id, p.userId);
+        res.status(204).end();
+      },
+    }),
+  ];
 }

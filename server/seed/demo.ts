@@ -14,7 +14,8 @@ import { signUp } from '../services/auth.service';
 import { createBatch } from '../services/batches.service';
 import { createContainer } from '../services/containers.service';
 import { createLabelFood } from '../services/label-foods.service';
-import { createDayKind, getSettings, listDayKinds, updateSettings } from '../services/profile-settings.service';
+import { createDayKind, listDayKinds } from '../services/day-kinds.service';
+import { getSettings, updateSettings } from '../services/profile-settings.service';
 import { createRecipe } from '../services/recipes.service';
 
 const ingredientSchema = z.object({
@@ -111,7 +112,7 @@ export async function seedDemo(config: Config, options: { password?: string; tod
     const input = createLabelFoodInputSchema.parse(Object.fromEntries(Object.entries(lf).filter(([k]) => k !== 'key')));
     let food = await FoodModel.findOne({ where: { source: 'label', ownerUserId: user.id, name: input.name } });
     if (!food) {
-      await createLabelFood(user.id, input, config.UPLOADS_DIR);
+      await createLabelFood(user.id, input);
       food = (await FoodModel.findOne({ where: { source: 'label', ownerUserId: user.id, name: input.name } }))!;
       created.push(`label food ${input.name}`);
     }

@@ -29,7 +29,9 @@ function issueToken(config: Config, user: UserModel): { token: string; expiresAt
 }
 
 /** The signed-in person and the profiles they may open. */
-export async function getMe(user: UserModel): Promise<Me> {
+export async function getMe(userId: number): Promise<Me> {
+  const user = await UserModel.findByPk(userId);
+  if (!user) throw AppError.unauthorized();
   const accesses = await ProfileAccessModel.findAll({
     where: { userId: user.id },
     include: [{ model: ProfileModel, as: 'profile' }],
@@ -54,7 +56,7 @@ export async function getMe(user: UserModel): Promise<Me> {
 
 async function sessionFor(config: Config, user: UserModel): Promise<Session> {
   const { token, expiresAt } = issueToken(config, user);
-  return { token, expiresAt: expiresAt.toISOString(), me: await getMe(user) };
+  return { token, expiresAt: expiresAt.toISOString(), me: await getMe(user.id) };
 }
 
 /** Creates an account; members also get their own profile. Throws 409 on a taken email. */
@@ -120,7 +122,9 @@ export async function signOut(jti: string, expiresAt: Date): Promise<void> {
 }
 
 /** Changes the password and invalidates every token issued before; returns a fresh session. */
-export async function changePassword(config: Config, user: UserModel, input: ChangePasswordInput): Promise<Session> {
+export async function changePassword(config: Config, userId: number, input: ChangePasswordInput): Promise<Session> {
+  const user = await UserModel.findByPk(userId);
+  if (!user) throw AppError.unauthorized();
   if (!(await bcrypt.compare(input.currentPassword, user.passwordHash))) {
     throw AppError.validation({ currentPassword: ['That is not your current password.'] });
   }

@@ -4,7 +4,7 @@ import type { DoseRequest, DoseSuggestion } from '../../shared/schemas/dose';
 import { timeToMinutes } from '../../shared/schemas/profile-settings';
 import { AppError } from '../errors';
 import { dayKindIdForDate } from './day-kind-days.service';
-import { loadDoseContext } from './profile-settings.service';
+import { loadDoseContext } from './dose-context.service';
 
 /** Plausible glucose readings, mmol/L; anything outside is a typing slip, not a reading. */
 const GLUCOSE_READING_MMOL = [1, 40] as const;

@@ -1,24 +1,45 @@
 import { randomUUID } from 'node:crypto';
-import fs from 'node:fs/promises';
-import path from 'node:path';
 import { ForeignKeyConstraintError } from 'sequelize';
 import type { Food } from '../../shared/schemas/food';
 import type { CreateLabelFoodValues } from '../../shared/schemas/food';
 import { emptyNutrients } from '../../shared/compute/nutrients';
 import { AppError } from '../errors';
 import { completeEnergy, deriveCarbs, roundTo } from '../importers/food-rows';
-import { readImageHeader, type ImageKind } from '../lib/photo-worker';
+import { isReasonableSize, readImageHeader, type PhotoProcessor } from '../lib/photo-worker';
+import { newStorageKey, type FileStorage } from '../lib/storage';
+import { logger } from '../logger';
 import { FoodModel, ProfileAccessModel } from '../models';
 import { getFood } from './foods.service';
 
 export const LABEL_ATTRIBUTION = 'Typed from a package label by a Carbwright member; not checked by anyone else.';
 export const LABEL_LICENCE = 'Private to the member who added it, and to the care team of a profile it is shared with.';
 
-const PHOTO_TYPES: Record<string, string> = { 'image/jpeg': 'jpg', 'image/png': 'png', 'image/webp': 'webp' };
-const IMAGE_EXTENSIONS: Record<ImageKind, string> = { jpeg: 'jpg', png: 'png', webp: 'webp' };
 export const LABEL_PHOTO_MAX_BYTES = 8 * 1024 * 1024;
 
-export type LabelPhoto = { buffer: Buffer; mimetype: string };
+/** An uploaded label photo with the one storage and photo processor of the app. */
+export type LabelPhoto = { buffer: Buffer; storage: FileStorage; photos: PhotoProcessor };
+
+/**
+ * Checks a label photo by its bytes (JPEG, PNG or WebP, whatever its name or declared type), re-encodes it off the
+ * request thread like recipe photos (so EXIF and location data are gone) and stores the large variant; returns its key.
+ */
+async function storeLabelPhoto(photo: LabelPhoto): Promise<string> {
+  const header = readImageHeader(photo.buffer);
+  if (!header) throw AppError.validation({ photo: ['The photo must be a JPEG, PNG or WebP image.'] });
+  if (!isReasonableSize(header)) {
+    throw AppError.validation({ photo: [`That image is ${header.width} × ${header.height} pixels, too large to open. Please send a smaller photo.`] });
+  }
+  let processed;
+  try {
+    processed = await photo.photos.process(photo.buffer);
+  } catch (err) {
+    logger.info({ err: (err as Error).message }, 'label photo could not be decoded');
+    throw AppError.validation({ photo: ['That image could not be read. It may be damaged or cut short.'] });
+  }
+  const key = newStorageKey('label-photos', 'jpg');
+  await photo.storage.put(key, processed.large.data);
+  return key;
+}
 
 /**
  * Per-100 g nutrients from a label as printed. Per serving → per 100 g multiplies by 100 / serving grams.
@@ -42,24 +63,15 @@ export function labelNutrients(v: CreateLabelFoodValues) {
   return { nutrients, derived, carbMeasured: measured as 'available' | 'total' };
 }
 
-/** Adds a food from a package label, private to the user (or shared with a profile's care team); stores the photo as uploaded. */
-export async function createLabelFood(userId: number, input: CreateLabelFoodValues, uploadsDir: string, photo?: LabelPhoto): Promise<Food> {
+/** Adds a food from a package label, private to the user (or shared with a profile's care team), with its re-encoded photo. */
+export async function createLabelFood(userId: number, input: CreateLabelFoodValues, photo?: LabelPhoto): Promise<Food> {
   if (input.sharedProfileId != null) {
     const access = await ProfileAccessModel.findOne({ where: { userId, profileId: input.sharedProfileId } });
     if (!access || access.role === 'clinician') {
       throw AppError.validation({ sharedProfileId: ['You can only share with a profile you own or care for.'] });
     }
   }
-  let photoPath: string | null = null;
-  if (photo) {
-    // The declared type is the browser's guess from the file name: the bytes decide what is stored and served.
-    const header = readImageHeader(photo.buffer);
-    const ext = PHOTO_TYPES[photo.mimetype] && header ? IMAGE_EXTENSIONS[header.kind] : undefined;
-    if (!ext) throw AppError.validation({ photo: ['The photo must be a JPEG, PNG or WebP image.'] });
-    photoPath = path.join('label-photos', `${randomUUID()}.${ext}`);
-    await fs.mkdir(path.join(uploadsDir, 'label-photos'), { recursive: true });
-    await fs.writeFile(path.join(uploadsDir, photoPath), photo.buffer);
-  }
+  const photoPath = photo ? await storeLabelPhoto(photo) : null;
   const { nutrients, derived, carbMeasured } = labelNutrients(input);
   const servingNote = input.basis === 'perServing' ? ` per ${input.servingGrams} g serving, converted to per 100 g` : ' per 100 g';
   try {
@@ -98,13 +110,13 @@ export async function createLabelFood(userId: number, input: CreateLabelFoodValu
     });
     return getFood(food.id, userId);
   } catch (err) {
-    if (photoPath) await fs.rm(path.join(uploadsDir, photoPath), { force: true });
+    if (photo && photoPath) await photo.storage.remove(photoPath);
     throw err;
   }
 }
 
 /** Deletes a label food the user owns (404 otherwise) with its photo; 409 while a recipe still uses it. */
-export async function deleteLabelFood(id: number, userId: number, uploadsDir: string): Promise<void> {
+export async function deleteLabelFood(id: number, userId: number, storage: FileStorage): Promise<void> {
   const food = await FoodModel.findOne({ where: { id, source: 'label', ownerUserId: userId } });
   if (!food) throw AppError.notFound('food');
   try {
@@ -113,5 +125,5 @@ export async function deleteLabelFood(id: number, userId: number, uploadsDir: st
     if (err instanceof ForeignKeyConstraintError) throw AppError.conflict('This food is used in a recipe; remove it there first.');
     throw err;
   }
-  if (food.photoPath) await fs.rm(path.join(uploadsDir, food.photoPath), { force: true });
+  if (food.photoPath) await storage.remove(food.photoPath).catch((err: unknown) => logger.warn({ err, key: food.photoPath }, 'could not remove a label photo'));
 }

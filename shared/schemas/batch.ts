@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { profileItemParamSchema } from './common';
 import { netGrams, splitExceedsBatch } from '../compute/batch';
 import type { Nutrients } from '../compute/nutrients';
 import type { CarbBasis, CarbUnit } from './units';
@@ -115,10 +116,7 @@ export const updateBatchInputSchema = z
   .refine((v) => v.storage !== undefined || v.useBy !== undefined, { message: 'Change the storage or the use-by date.', path: ['storage'] });
 export type UpdateBatchInput = z.input<typeof updateBatchInputSchema>;
 
-export const batchParamsSchema = z.object({
-  profileId: z.coerce.number().int().positive('Not a valid id.'),
-  id: z.coerce.number().int().positive('Not a valid id.'),
-});
+export const batchParamsSchema = profileItemParamSchema;
 
 export const batchListQuerySchema = z.object({ include: z.enum(['available', 'all']).default('available') });
 

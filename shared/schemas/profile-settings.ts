@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { positiveIdSchema, profileIdParamSchema } from './common';
 import { EXERCISE_INTENSITIES } from '../compute/exercise';
 import { formatGlucose, glucoseToMmol } from '../compute/units';
 import { carbBasisSchema, carbUnitSchema, glucoseUnitSchema, type GlucoseUnit } from './units';
@@ -183,10 +184,7 @@ export type DayKind = {
   updatedAt: string;
 };
 
-export const dayKindIdParamSchema = z.object({
-  profileId: z.coerce.number().int().positive('Not a valid id.'),
-  dayKindId: z.coerce.number().int().positive('Not a valid id.'),
-});
+export const dayKindIdParamSchema = profileIdParamSchema.extend({ dayKindId: positiveIdSchema });
 
 export type SettingsChange = {
   id: number;
@@ -205,10 +203,7 @@ export const localDateSchema = z
   .regex(/^\d{4}-\d{2}-\d{2}$/, 'Use a date such as 2026-03-01.')
   .refine((d) => !Number.isNaN(Date.parse(`${d}T00:00:00Z`)) && new Date(`${d}T00:00:00Z`).toISOString().startsWith(d), 'That date does not exist.');
 
-export const dayKindDayParamSchema = z.object({
-  profileId: z.coerce.number().int().positive('Not a valid id.'),
-  date: localDateSchema,
-});
+export const dayKindDayParamSchema = profileIdParamSchema.extend({ date: localDateSchema });
 
 /** Give a date a day kind; null puts it back to the default kind. */
 export const dayKindDayInputSchema = z.object({

@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { idParamSchema, positiveIdSchema } from './common';
 import type { RecipeNutrition } from '../compute/recipe';
 import type { Food } from './food';
 import { carbBasisSchema, carbUnitSchema } from './units';
@@ -84,10 +85,7 @@ export const shareRecipeInputSchema = z.object({
 });
 export type ShareRecipeInput = z.input<typeof shareRecipeInputSchema>;
 
-export const recipeShareParamsSchema = z.object({
-  id: z.coerce.number().int().positive('Not a valid id.'),
-  userId: z.coerce.number().int().positive('Not a valid id.'),
-});
+export const recipeShareParamsSchema = idParamSchema.extend({ userId: positiveIdSchema });
 
 export type RecipePerson = { id: number; displayName: string };
 export type RecipePhoto = { largeUrl: string; thumbUrl: string };

@@ -1,14 +1,18 @@
 import fs from 'node:fs';
 import path from 'node:path';
-import { PNG } from 'pngjs';
 import request from 'supertest';
 import { FoodModel, ProfileAccessModel } from '../../server/models';
+import { readImageHeader } from '../../server/lib/photo-worker';
 import { bearer, signUpUser, startTestApp, type TestContext } from '../helpers/api';
+import { makeImage, withExif } from '../fixtures/photos/make-images';
 
 let ctx: TestContext;
 let owner: Awaited<ReturnType<typeof signUpUser>>;
 let other: Awaited<ReturnType<typeof signUpUser>>;
 const uploads = fs.mkdtempSync(path.join(require('node:os').tmpdir(), 'cw-uploads-'));
+// Label photos are decoded in worker threads that load jimp afresh; on a busy 2-core machine that takes seconds.
+jest.setTimeout(120_000);
+
 beforeAll(async () => {
   ctx = await startTestApp({ UPLOADS_DIR: uploads });
   owner = await signUpUser(ctx.app, 'Labeller');
@@ -97,22 +101,25 @@ describe('POST /api/foods (label food)', () => {
     expect(res.body.error.fieldErrors.sharedProfileId).toBeDefined();
   });
 
-  it('stores the label photo as uploaded and serves it only to people who may see the food', async () => {
-    const png = new PNG({ width: 4, height: 4 });
-    png.data.fill(200);
-    const bytes = PNG.sync.write(png);
-
+  it('re-encodes the label photo without its EXIF and serves it by signed link only to people who may see the food', async () => {
     const res = await request(ctx.app)
       .post('/api/foods')
       .set(bearer(owner.token))
       .field('data', JSON.stringify({ ...euPer100, name: 'Photo crackers' }))
-      .attach('photo', bytes, { filename: 'label.png', contentType: 'image/png' });
+      .attach('photo', withExif(await makeImage(40, 30)), { filename: 'label.jpg', contentType: 'image/jpeg' });
 
     expect(res.status).toBe(201);
     expect(res.body.food.hasPhoto).toBe(true);
-    const photo = await request(ctx.app).get(`/api/foods/${res.body.food.id}/photo`).set(bearer(owner.token)).buffer(true);
+    const link = await request(ctx.app).get(`/api/foods/${res.body.food.id}/photo`).set(bearer(owner.token));
+    expect(link.status).toBe(302);
+    expect(link.headers.location).toMatch(/^\/api\/photos\/label-photos\/[a-f0-9]{32}\.jpg\?exp=\d+&sig=/);
+    const photo = await request(ctx.app).get(link.headers.location).buffer(true);
     expect(photo.status).toBe(200);
-    expect(Buffer.compare(photo.body as Buffer, bytes)).toBe(0);
+    expect(photo.headers['content-type']).toBe('image/jpeg');
+    expect(readImageHeader(photo.body as Buffer)).toEqual({ kind: 'jpeg', width: 40, height: 30 });
+    expect((photo.body as Buffer).includes('CARBWRIGHT-SECRET-LOCATION')).toBe(false);
+    const forged = link.headers.location.replace(/sig=[^&]+/, 'sig=forged');
+    expect((await request(ctx.app).get(forged)).status).toBe(404);
     expect((await request(ctx.app).get(`/api/foods/${res.body.food.id}/photo`).set(bearer(other.token))).status).toBe(404);
   });
 

@@ -197,7 +197,8 @@ describe('label food photos', () => {
       .attach('photo', PNG.sync.write(png), { filename: 'label.png', contentType: 'image/png' });
     fs.rmSync(path.join(uploads, 'label-photos'), { recursive: true, force: true });
 
-    const res = await request(ctx.app).get(`/api/foods/${created.body.food.id}/photo`).set(bearer(m.token));
+    const link = await request(ctx.app).get(`/api/foods/${created.body.food.id}/photo`).set(bearer(m.token));
+    const res = await request(ctx.app).get(link.headers.location);
 
     expect(created.status).toBe(201);
     expect(res.status).toBe(404);

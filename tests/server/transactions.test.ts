@@ -17,7 +17,8 @@ async function smallPoolApp(poolMax: number, acquireMs: number): Promise<{ app: 
 describe('every query inside a transaction runs on it (pool of 3 connections)', () => {
   let ctx: { app: Express; sequelize: Sequelize };
   beforeAll(async () => {
-    ctx = await smallPoolApp(3, 4000);
+    // A generous acquire timeout: only a deadlock (a query outside its transaction) can run it out.
+    ctx = await smallPoolApp(3, 30_000);
   });
   afterAll(async () => {
     await ctx.sequelize.close();

@@ -1,0 +1,120 @@
+import type { Transaction } from 'sequelize';
+import { glucoseToMmol } from '../../shared/compute/units';
+import { minutesToTime, timeToMinutes, type DayKind, type DayKindInput } from '../../shared/schemas/profile-settings';
+import type { GlucoseUnit } from '../../shared/schemas/units';
+import { AppError } from '../errors';
+import { DayKindModel, ProfileModel, RatioBlockModel } from '../models';
+import { loadProfile, show } from './profiles.service';
+import { recordChange } from './settings-history.service';
+
+function dayKindToView(kind: DayKindModel, unit: GlucoseUnit): DayKind {
+  const blocks = [...(kind.blocks ?? [])].sort((a, b) => a.startMinute - b.startMinute);
+  return {
+    id: kind.id,
+    name: kind.name,
+    isDefault: kind.isDefault,
+    longActingUnits: kind.longActingUnits,
+    glucoseUnit: unit,
+    blocks: blocks.map((b) => ({
+      from: minutesToTime(b.startMinute),
+      to: minutesToTime(b.endMinute),
+      carbRatio: b.carbRatio,
+      correctionFactor: show(b.correctionFactorMmol, unit),
+    })),
+    updatedAt: kind.updatedAt.toISOString(),
+  };
+}
+
+/** Loads a day kind's ratio blocks with it. */
+export const withBlocks = { include: [{ model: RatioBlockModel, as: 'blocks' }] };
+
+/** The profile's day kinds, default first, each with its blocks in the profile's glucose unit. */
+export async function listDayKinds(profileId: number): Promise<DayKind[]> {
+  const profile = await loadProfile(profileId);
+  const kinds = await DayKindModel.findAll({ where: { profileId }, ...withBlocks, order: [['isDefault', 'DESC'], ['name', 'ASC']] });
+  return kinds.map((k) => dayKindToView(k, profile.glucoseUnit));
+}
+
+async function findDayKind(profileId: number, dayKindId: number, transaction?: Transaction) {
+  const kind = await DayKindModel.findOne({ where: { id: dayKindId, profileId }, ...withBlocks, transaction });
+  if (!kind) throw AppError.notFound('day kind');
+  return kind;
+}
+
+async function assertNameFree(profileId: number, name: string, exceptId: number | null, transaction: Transaction) {
+  const kinds = await DayKindModel.findAll({ where: { profileId }, transaction });
+  if (kinds.some((k) => k.id !== exceptId && k.name.toLowerCase() === name.toLowerCase())) {
+    throw AppError.conflict('There is already a day kind with that name.', { name: ['Choose a name not used yet.'] });
+  }
+  return kinds;
+}
+
+async function writeBlocks(kind: DayKindModel, input: DayKindInput, transaction: Transaction) {
+  await RatioBlockModel.destroy({ where: { dayKindId: kind.id }, transaction });
+  await RatioBlockModel.bulkCreate(
+    input.blocks.map((b) => ({
+      dayKindId: kind.id,
+      startMinute: timeToMinutes(b.from),
+      endMinute: timeToMinutes(b.to),
+      carbRatio: b.carbRatio,
+      correctionFactorMmol: glucoseToMmol(b.correctionFactor, input.glucoseUnit),
+    })),
+    { transaction },
+  );
+}
+
+function stripTime(kind: DayKind | null) {
+  if (!kind) return null;
+  const { updatedAt: _ignored, id: _id, ...rest } = kind;
+  return rest;
+}
+
+/** Creates a day kind with its blocks; the first day kind of a profile becomes its default. */
+export async function createDayKind(profileId: number, userId: number, input: DayKindInput): Promise<DayKind> {
+  return ProfileModel.sequelize!.transaction(async (transaction) => {
+    const profile = await loadProfile(profileId, transaction);
+    const others = await assertNameFree(profileId, input.name, null, transaction);
+    const isDefault = input.isDefault || others.length === 0;
+    if (isDefault) await DayKindModel.update({ isDefault: false }, { where: { profileId }, transaction });
+    const kind = await DayKindModel.create({ profileId, name: input.name, isDefault, longActingUnits: input.longActingUnits }, { transaction });
+    await writeBlocks(kind, input, transaction);
+    const view = dayKindToView(await findDayKind(profileId, kind.id, transaction), profile.glucoseUnit);
+    await recordChange({ profileId, userId, subject: 'day_kind', subjectId: kind.id, subjectName: kind.name, action: 'created' }, null, stripTime(view), transaction);
+    return view;
+  });
+}
+
+/** Replaces a day kind's name, default flag, long-acting dose and blocks, and records the change. */
+export async function updateDayKind(profileId: number, dayKindId: number, userId: number, input: DayKindInput): Promise<DayKind> {
+  return ProfileModel.sequelize!.transaction(async (transaction) => {
+    const profile = await loadProfile(profileId, transaction);
+    const kind = await findDayKind(profileId, dayKindId, transaction);
+    const before = dayKindToView(kind, profile.glucoseUnit);
+    await assertNameFree(profileId, input.name, kind.id, transaction);
+    if (kind.isDefault && !input.isDefault) {
+      throw AppError.validation({ isDefault: ['Make another day kind the default instead.'] });
+    }
+    if (input.isDefault && !kind.isDefault) await DayKindModel.update({ isDefault: false }, { where: { profileId }, transaction });
+    await kind.update({ name: input.name, isDefault: input.isDefault, longActingUnits: input.longActingUnits }, { transaction });
+    kind.changed('updatedAt', true);
+    await kind.save({ transaction });
+    await writeBlocks(kind, input, transaction);
+    const after = dayKindToView(await findDayKind(profileId, kind.id, transaction), profile.glucoseUnit);
+    await recordChange({ profileId, userId, subject: 'day_kind', subjectId: kind.id, subjectName: input.name, action: 'updated' }, stripTime(before), stripTime(after), transaction);
+    return after;
+  });
+}
+
+/** Deletes a day kind; the default can only go when it is the last one. */
+export async function deleteDayKind(profileId: number, dayKindId: number, userId: number): Promise<void> {
+  await ProfileModel.sequelize!.transaction(async (transaction) => {
+    const profile = await loadProfile(profileId, transaction);
+    const kind = await findDayKind(profileId, dayKindId, transaction);
+    const count = await DayKindModel.count({ where: { profileId }, transaction });
+    if (kind.isDefault && count > 1) throw AppError.conflict('Make another day kind the default before deleting this one.');
+    const before = dayKindToView(kind, profile.glucoseUnit);
+    await kind.destroy({ transaction });
+    await recordChange({ profileId, userId, subject: 'day_kind', subjectId: kind.id, subjectName: kind.name, action: 'deleted' }, stripTime(before), null, transaction);
+  });
+}
+
