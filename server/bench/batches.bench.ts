@@ -1,5 +1,5 @@
 import request from 'supertest';
-import { FoodModel } from '../models';
+import { createFoods, withAvailable } from '../../tests/helpers/foods';
 import type { BenchContext, BenchModule, HttpScenario } from './types';
 
 // Invented per-100 g values for benchmark foods only (the numbers do not matter for speed).
@@ -15,28 +15,7 @@ const FOODS = [
 /** Batch endpoints: saving a weighed 8-jar split, the batch page, the inventory, the label sheet (8 QR codes), a portion. */
 export const scenarios: BenchModule['scenarios'] = async (ctx: BenchContext) => {
   const auth = { Authorization: `Bearer ${ctx.member.token}` };
-  const foods = await Promise.all(
-    FOODS.map((f, i) =>
-      FoodModel.create({
-        source: 'usda_sr28',
-        sourceCode: `BENCH-${Date.now()}-${i}`,
-        name: f.name,
-        foodGroup: null,
-        energyKcal: null,
-        energyKj: null,
-        carbAvailable: f.carbTotal - f.fibre,
-        carbTotal: f.carbTotal,
-        fibre: f.fibre,
-        sugars: null,
-        protein: null,
-        fat: null,
-        water: null,
-        carbMeasured: 'total',
-        attribution: 'Benchmark fixture',
-        licence: 'n/a',
-      }),
-    ),
-  );
+  const foods = await createFoods(FOODS.map((f) => withAvailable(f)));
   const recipe = await request(ctx.baseUrl)
     .post('/api/recipes')
     .set(auth)

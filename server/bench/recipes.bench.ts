@@ -1,6 +1,6 @@
 import { emptyNutrients } from '../../shared/compute/nutrients';
 import { computeRecipe } from '../../shared/compute/recipe';
-import { FoodModel } from '../models';
+import { createFood } from '../../tests/helpers/foods';
 import type { BenchContext, BenchModule } from './types';
 
 async function post(ctx: BenchContext, path: string, body: unknown): Promise<{ id: number }> {
@@ -18,11 +18,7 @@ export const scenarios: BenchModule['scenarios'] = async (ctx) => {
   const foodIds: number[] = [];
   for (let i = 0; i < 20; i++) {
     // Invented composition values for load only.
-    const food = await FoodModel.create({
-      source: 'label', sourceCode: `bench-recipe-${Date.now()}-${i}`, name: `Bench ingredient ${i}`, foodGroup: null,
-      energyKcal: 100 + i, energyKj: null, carbAvailable: null, carbTotal: 5 + i * 3, fibre: i % 4, sugars: null,
-      protein: 2, fat: 1, water: null, carbMeasured: 'total', attribution: 'benchmark', licence: 'benchmark', ownerUserId: ctx.member.userId,
-    });
+    const food = await createFood({ name: `Bench ingredient ${i}`, energyKcal: 100 + i, carbTotal: 5 + i * 3, fibre: i % 4, protein: 2, fat: 1, ownerUserId: ctx.member.userId });
     foodIds.push(food.id);
   }
   const recipe = (n: number, title: string) => ({

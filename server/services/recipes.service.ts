@@ -78,19 +78,10 @@ async function loadIngredients(recipeIds: number[], transaction?: Transaction) {
   return out;
 }
 
-let batchesTableSeen = false;
-
-/** When the user (or anyone on a profile they can open) last cooked each recipe; empty before the kitchen tables exist. */
+/** When the user (or anyone on a profile they can open) last cooked each recipe (migration 0350 made the batches table). */
 async function lastCooked(recipeIds: number[], userId: number): Promise<Map<number, string>> {
   if (!recipeIds.length) return new Map();
   const sequelize = RecipeModel.sequelize!;
-  if (!batchesTableSeen) {
-    const [{ exists }] = await sequelize.query<{ exists: boolean }>("SELECT to_regclass('public.batches') IS NOT NULL AS exists", {
-      type: QueryTypes.SELECT,
-    });
-    if (!exists) return new Map();
-    batchesTableSeen = true;
-  }
   const rows = await sequelize.query<{ recipe_id: number; at: Date }>(
     `SELECT recipe_id, max(created_at) AS at FROM batches
      WHERE recipe_id IN (:recipeIds)

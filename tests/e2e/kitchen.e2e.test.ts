@@ -1,6 +1,6 @@
 import request from 'supertest';
-import { FoodModel } from '../../server/models';
 import { PHONE, WIDE, startBrowserRig, type BrowserRig } from '../helpers/browser';
+import { createFoods, withAvailable } from '../helpers/foods';
 import type { Page } from 'playwright-core';
 
 let rig: BrowserRig;
@@ -31,29 +31,7 @@ async function setUpCook() {
   const password = 'a long kitchen passphrase';
   const signUp = await request(rig.baseUrl).post('/api/auth/sign-up').send({ email, displayName: 'Ada', password });
   const auth = { Authorization: `Bearer ${signUp.body.token}` };
-  const foods = [];
-  for (const [i, f] of FOODS.entries()) {
-    foods.push(
-      await FoodModel.create({
-        source: 'usda_sr28',
-        sourceCode: `E2E-${i}`,
-        name: f.name,
-        foodGroup: null,
-        energyKcal: null,
-        energyKj: null,
-        carbAvailable: f.carbTotal - f.fibre,
-        carbTotal: f.carbTotal,
-        fibre: f.fibre,
-        sugars: null,
-        protein: null,
-        fat: null,
-        water: null,
-        carbMeasured: 'total',
-        attribution: 'USDA SR Legacy values (test fixture)',
-        licence: 'Public domain',
-      }),
-    );
-  }
+  const foods = await createFoods(FOODS.map((f) => withAvailable({ name: f.name, carbTotal: f.carbTotal, fibre: f.fibre })));
   const recipe = await request(rig.baseUrl)
     .post('/api/recipes')
     .set(auth)

@@ -1,26 +1,18 @@
 import type { Page } from 'playwright-core';
-import { FoodModel } from '../../server/models';
-import { normaliseSearchText } from '../../server/importers/food-rows';
 import { PHONE, WIDE, startBrowserRig, type BrowserRig } from '../helpers/browser';
+import { createFoods, SR_LEGACY } from '../helpers/foods';
 
 let rig: BrowserRig;
 beforeAll(async () => {
   rig = await startBrowserRig('recipes');
   // Per-100 g values as in check-values §2.4 (USDA SR Legacy 08120, 01077, 01256, 09003, 09298).
-  const foods: [string, number, number][] = [
-    ['Oats, rolled, dry', 67.7, 10.1],
-    ['Milk, whole, 3.25%', 4.8, 0],
-    ['Yogurt, Greek, plain, nonfat', 3.6, 0],
-    ['Apples, raw, with skin', 13.81, 2.4],
-    ['Raisins, seedless', 79.18, 3.7],
-  ];
-  for (const [i, [name, carbTotal, fibre]] of foods.entries()) {
-    await FoodModel.create({
-      source: 'usda_sr28', sourceCode: `e2e-${i}`, name, foodGroup: null, energyKcal: null, energyKj: null, carbAvailable: null,
-      carbTotal, fibre, sugars: null, protein: null, fat: null, water: null, carbMeasured: 'total',
-      attribution: 'USDA SR Legacy (test copy)', licence: 'public domain', nameKey: normaliseSearchText(name), searchText: normaliseSearchText(name),
-    });
-  }
+  await createFoods([
+    SR_LEGACY.oats,
+    { ...SR_LEGACY.wholeMilk, name: 'Milk, whole, 3.25%' },
+    SR_LEGACY.greekYogurt,
+    { ...SR_LEGACY.apple, name: 'Apples, raw, with skin' },
+    SR_LEGACY.raisins,
+  ]);
 });
 afterAll(async () => {
   await rig?.close();

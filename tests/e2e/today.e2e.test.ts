@@ -1,9 +1,9 @@
 import type { Page } from 'playwright-core';
 import request from 'supertest';
-import { FoodModel } from '../../server/models';
 import { activeInsulin } from '../../shared/compute/active-insulin';
 import { formatCarb } from '../../shared/compute/units';
 import { PHONE, WIDE, startBrowserRig, type BrowserRig } from '../helpers/browser';
+import { createFood, SR_LEGACY, withAvailable } from '../helpers/foods';
 import { TEST_DOSE_SETTINGS } from '../helpers/dose-settings';
 
 let rig: BrowserRig;
@@ -47,24 +47,7 @@ async function setUpDoseSettings(profileId: number, auth: Record<string, string>
 /** One batch of three equal portions in the fridge; returns the portions as the API gives them. */
 async function cookBatch(profileId: number, auth: Record<string, string>) {
   // Per 100 g, USDA SR Legacy via check-values §11 ([C2]): rolled oats 67.7 g total carbohydrate, 10.1 g fibre.
-  const oats = await FoodModel.create({
-    source: 'usda_sr28',
-    sourceCode: 'E2E-TODAY-OATS',
-    name: 'Oats, rolled, dry',
-    foodGroup: null,
-    energyKcal: null,
-    energyKj: null,
-    carbAvailable: 67.7 - 10.1,
-    carbTotal: 67.7,
-    fibre: 10.1,
-    sugars: null,
-    protein: null,
-    fat: null,
-    water: null,
-    carbMeasured: 'total',
-    attribution: 'USDA SR Legacy values (test fixture)',
-    licence: 'Public domain',
-  });
+  const oats = await createFood(withAvailable(SR_LEGACY.oats));
   const recipe = await request(rig.baseUrl)
     .post('/api/recipes')
     .set(auth)

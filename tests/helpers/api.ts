@@ -1,3 +1,6 @@
+import fs from 'node:fs';
+import os from 'node:os';
+import path from 'node:path';
 import request from 'supertest';
 import type { Express } from 'express';
 import type { Sequelize } from 'sequelize';
@@ -13,6 +16,28 @@ export async function startTestApp(overrides: Record<string, string> = {}): Prom
   const config = testConfig(overrides);
   const sequelize = await openTestDatabase();
   return { app: createApp(config, sequelize), sequelize, config };
+}
+
+/**
+ * The one start-up for an API test file: the real app on this worker's freshly emptied database, started in
+ * beforeAll and closed in afterAll. The returned object is filled in before the first test runs.
+ */
+export function useTestApp(overrides: Record<string, string> = {}): TestContext {
+  const ctx = {} as TestContext;
+  beforeAll(async () => {
+    Object.assign(ctx, await startTestApp(overrides));
+  });
+  afterAll(async () => {
+    await ctx.sequelize?.close();
+  });
+  return ctx;
+}
+
+/** A throwaway uploads folder for this test file (removed in afterAll), for `useTestApp({ UPLOADS_DIR })`. */
+export function useUploadsDir(): string {
+  const dir = fs.mkdtempSync(path.join(os.tmpdir(), 'cw-uploads-'));
+  afterAll(() => fs.rmSync(dir, { recursive: true, force: true }));
+  return dir;
 }
 
 let counter = 0;

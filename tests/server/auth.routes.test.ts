@@ -1,15 +1,9 @@
 import jwt from 'jsonwebtoken';
 import request from 'supertest';
 import { ProfileAccessModel, ProfileModel, UserModel } from '../../server/models';
-import { bearer, signUpUser, startTestApp, type TestContext } from '../helpers/api';
+import { bearer, signUpUser, useTestApp } from '../helpers/api';
 
-let ctx: TestContext;
-beforeAll(async () => {
-  ctx = await startTestApp();
-});
-afterAll(async () => {
-  await ctx.sequelize.close();
-});
+const ctx = useTestApp();
 
 describe('POST /api/auth/sign-up', () => {
   it('creates a member with a normalised email, a hashed password and their own profile', async () => {

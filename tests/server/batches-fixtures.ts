@@ -1,34 +1,9 @@
 import request from 'supertest';
 import type { Express } from 'express';
-import { FoodModel, RecipeIngredientModel, RecipeModel } from '../../server/models';
+import { RecipeIngredientModel, RecipeModel } from '../../server/models';
 import type { CreateBatchInput } from '../../shared/schemas/batch';
 import { bearer } from '../helpers/api';
-
-type Per100 = { carbTotal: number; fibre: number; carbAvailable?: number };
-
-let counter = 0;
-/** A table food with the given carbohydrate and fibre per 100 g (available derived as total − fibre). */
-export async function makeFood(name: string, per100: Per100) {
-  counter += 1;
-  return FoodModel.create({
-    source: 'usda_sr28',
-    sourceCode: `T${process.pid}-${counter}`,
-    name,
-    foodGroup: null,
-    energyKcal: null,
-    energyKj: null,
-    carbAvailable: per100.carbAvailable ?? per100.carbTotal - per100.fibre,
-    carbTotal: per100.carbTotal,
-    fibre: per100.fibre,
-    sugars: null,
-    protein: null,
-    fat: null,
-    water: null,
-    carbMeasured: 'total',
-    attribution: 'USDA ARS, FoodData Central SR Legacy (test fixture)',
-    licence: 'Public domain (CC0)',
-  });
-}
+import { createFood, SR_LEGACY, withAvailable } from '../helpers/foods';
 
 /** A recipe owned by `ownerUserId` with the given (food, grams) lines, saved directly. */
 export async function makeRecipe(ownerUserId: number, title: string, lines: { foodId: number; grams: number }[], visibility: 'private' | 'public' = 'private') {
@@ -37,22 +12,13 @@ export async function makeRecipe(ownerUserId: number, title: string, lines: { fo
   return recipe;
 }
 
-// Per 100 g, USDA SR Legacy via check-values §11 ([C2]) and §2.4 ([D]).
-export const SR = {
-  oats: { carbTotal: 67.7, fibre: 10.1 }, // NDB 08120
-  wholeMilk: { carbTotal: 4.8, fibre: 0 }, // NDB 01077
-  greekYogurt: { carbTotal: 3.6, fibre: 0 }, // NDB 01256
-  apple: { carbTotal: 13.81, fibre: 2.4 }, // NDB 09003, from §2.4 (20.715 g carb, 3.60 g fibre in 150 g)
-  water: { carbTotal: 0, fibre: 0 },
-};
-
 /** The week of overnight oats: four foods, a recipe and the weighed batch input with five jars. */
 export async function overnightOats(ownerUserId: number) {
   const [oats, milk, yogurt, apple] = await Promise.all([
-    makeFood('Oats, rolled, dry', SR.oats),
-    makeFood('Milk, whole', SR.wholeMilk),
-    makeFood('Yogurt, Greek, plain, nonfat', SR.greekYogurt),
-    makeFood('Apple, raw, with skin', SR.apple),
+    createFood(withAvailable({ ...SR_LEGACY.oats, name: 'Oats, rolled, dry' })),
+    createFood(withAvailable({ ...SR_LEGACY.wholeMilk, name: 'Milk, whole' })),
+    createFood(withAvailable({ ...SR_LEGACY.greekYogurt, name: 'Yogurt, Greek, plain, nonfat' })),
+    createFood(withAvailable({ ...SR_LEGACY.apple, name: 'Apple, raw, with skin' })),
   ]);
   const recipe = await makeRecipe(ownerUserId, 'Overnight oats', [
     { foodId: oats.id, grams: 250 },

@@ -1,16 +1,11 @@
 import request from 'supertest';
 import { BatchIngredientModel, BatchModel, FoodModel, PortionModel, ProfileModel, RecipeModel } from '../../server/models';
 import { normalizePortionCode } from '../../shared/compute/portion-code';
-import { bearer, signUpMember, startTestApp, type TestContext } from '../helpers/api';
-import { makeFood, makeRecipe, overnightOats, postBatch, SR } from './batches-fixtures';
+import { bearer, signUpMember, useTestApp } from '../helpers/api';
+import { createFood, SR_LEGACY, withAvailable } from '../helpers/foods';
+import { makeRecipe, overnightOats, postBatch } from './batches-fixtures';
 
-let ctx: TestContext;
-beforeAll(async () => {
-  ctx = await startTestApp();
-});
-afterAll(async () => {
-  await ctx.sequelize.close();
-});
+const ctx = useTestApp();
 
 const member = (name = 'Cook') => signUpMember(ctx.app, name);
 
@@ -71,9 +66,9 @@ describe('equal split and the profile basis and unit', () => {
   // check-values §2.3 / T1: porridge of oats 500 g, whole milk 1000 g, water 1000 g cooked to 2200 g, 8 portions.
   async function porridge() {
     const cook = await member();
-    const oats = await makeFood('Oats, rolled', SR.oats);
-    const milk = await makeFood('Milk, whole', SR.wholeMilk);
-    const water = await makeFood('Water', SR.water);
+    const oats = await createFood(withAvailable({ ...SR_LEGACY.oats, name: 'Oats, rolled' }));
+    const milk = await createFood(withAvailable({ ...SR_LEGACY.wholeMilk, name: 'Milk, whole' }));
+    const water = await createFood(withAvailable({ ...SR_LEGACY.water, name: 'Water' }));
     const recipe = await makeRecipe(cook.userId, 'Porridge', [
       { foodId: oats.id, grams: 500 },
       { foodId: milk.id, grams: 1000 },
@@ -141,7 +136,7 @@ describe('swapped and omitted ingredients', () => {
   it('records the swap and leaves an omitted line out of the totals', async () => {
     const cook = await member();
     const { input, foods } = await overnightOats(cook.userId);
-    const skyr = await makeFood('Yogurt, strained, plain', { carbTotal: 4, fibre: 0 });
+    const skyr = await createFood(withAvailable({ name: 'Yogurt, strained, plain', carbTotal: 4, fibre: 0 }));
     const ingredients = [...input.ingredients];
     ingredients[2] = { foodId: skyr.id, plannedGrams: 250, actualGrams: 247, swappedFromFoodId: foods.yogurt.id };
     ingredients[3] = { foodId: foods.apple.id, plannedGrams: 150, omitted: true };
@@ -183,7 +178,7 @@ describe('bad input gets a 400 naming the field and saves nothing', () => {
     const cook = await member();
     const stranger = await member('Stranger');
     const { input } = await overnightOats(cook.userId);
-    const strangerFood = await makeFood('Stranger label food', { carbTotal: 10, fibre: 0 });
+    const strangerFood = await createFood(withAvailable({ name: 'Stranger label food', carbTotal: 10, fibre: 0 }));
     await strangerFood.update({ source: 'label', ownerUserId: stranger.userId });
     const before = { batches: await BatchModel.count(), lines: await BatchIngredientModel.count(), portions: await PortionModel.count() };
 
@@ -249,5 +244,91 @@ describe('PATCH /api/profiles/:profileId/batches/:id', () => {
 
     expect(res.status).toBe(200);
     expect(res.body).toMatchObject({ storage: 'freezer', useBy: '2026-06-10' });
+  });
+});
+
+describe('PATCH /api/profiles/:profileId/batches/:id', () => {
+  it('gives a rice batch moved from the freezer to the fridge the one-day rice use-by date', async () => {
+    const m = await member();
+    // USDA SR Legacy NDB 20045, rice, white, long-grain, cooked: 28.17 g total carbohydrate, 0.4 g fibre (check-values §11).
+    const rice = await createFood(withAvailable(SR_LEGACY.rice));
+    const recipe = await makeRecipe(m.userId, 'Plain rice', [{ foodId: rice.id, grams: 500 }]);
+    const created = await postBatch(ctx.app, m.token, m.profileId, {
+      recipeId: recipe.id,
+      cookedOn: '2026-03-10',
+      storage: 'freezer',
+      region: 'uk',
+      ingredients: [{ foodId: rice.id, plannedGrams: 500, actualGrams: 500 }],
+      cookedWeight: { grossGrams: 500, tareGrams: 0 },
+      split: { mode: 'equal', count: 2 },
+    });
+
+    const moved = await request(ctx.app)
+      .patch(`/api/profiles/${m.profileId}/batches/${created.body.id}`)
+      .set(bearer(m.token))
+      .send({ storage: 'fridge', region: 'uk' });
+
+    expect(created.status).toBe(201);
+    expect(moved.status).toBe(200);
+    // check-values T26: UK cooked rice in the fridge, D+1 (FSA); other leftovers D+2.
+    expect(moved.body).toMatchObject({ storage: 'fridge', useBy: '2026-03-11' });
+    expect(moved.body.useBySource).toMatch(/cooked rice/);
+  });
+
+  it('keeps the region the batch was saved with when it is moved without naming one', async () => {
+    const m = await member();
+    // Dal ingredient with invented values (only the use-by date is under test here).
+    const lentils = await createFood(withAvailable({ name: 'Lentils, red, dry (invented test values)', carbTotal: 60, fibre: 10 }));
+    const recipe = await makeRecipe(m.userId, 'Dal', [{ foodId: lentils.id, grams: 400 }]);
+    const created = await postBatch(ctx.app, m.token, m.profileId, {
+      recipeId: recipe.id,
+      cookedOn: '2026-03-10',
+      storage: 'freezer',
+      region: 'us',
+      ingredients: [{ foodId: lentils.id, plannedGrams: 400, actualGrams: 400 }],
+      cookedWeight: { grossGrams: 1000, tareGrams: 0 },
+      split: { mode: 'equal', count: 4 },
+    });
+
+    const moved = await request(ctx.app).patch(`/api/profiles/${m.profileId}/batches/${created.body.id}`).set(bearer(m.token)).send({ storage: 'fridge' });
+
+    expect(created.status).toBe(201);
+    // check-values T26: USDA FSIS leftovers 3–4 days in the fridge → D+3 (the UK rule would give D+2).
+    expect(moved.body).toMatchObject({ storage: 'fridge', useBy: '2026-03-13' });
+  });
+});
+
+describe('a batch with an ingredient of unknown carbohydrate', () => {
+  it('shows the portions’ carbohydrate as unknown instead of a partial sum that understates it', async () => {
+    const m = await member();
+    // USDA SR Legacy NDB 08120 rolled oats: 67.7 g total carbohydrate, 10.1 g fibre per 100 g (check-values §11).
+    const oats = await createFood(withAvailable({ name: 'Oats, rolled, dry', carbTotal: 67.7, fibre: 10.1 }));
+    const sauce = await createFood({ name: 'Sauce with no carbohydrate value', carbTotal: null, fibre: null });
+    const recipe = await makeRecipe(m.userId, 'Oats with sauce', [
+      { foodId: oats.id, grams: 100 },
+      { foodId: sauce.id, grams: 100 },
+    ]);
+    const batch = await postBatch(ctx.app, m.token, m.profileId, {
+      recipeId: recipe.id,
+      cookedOn: '2026-03-10',
+      storage: 'fridge',
+      ingredients: [
+        { foodId: oats.id, plannedGrams: 100, actualGrams: 100 },
+        { foodId: sauce.id, plannedGrams: 100, actualGrams: 100 },
+      ],
+      cookedWeight: { grossGrams: 200, tareGrams: 0 },
+      split: { mode: 'equal', count: 2 },
+    });
+
+    const portion = await request(ctx.app).get(`/api/portions/${batch.body.portions[0].code}`).set(bearer(m.token));
+    const labels = await request(ctx.app).get(`/api/profiles/${m.profileId}/batches/${batch.body.id}/labels`).set(bearer(m.token));
+
+    expect(batch.status).toBe(201);
+    expect(batch.body.incomplete).toContain('carbAvailable');
+    expect(batch.body.portions.map((p: { carb: { grams: number | null } }) => p.carb.grams)).toEqual([null, null]);
+    expect(batch.body.carbTotal.grams).toBeNull();
+    expect(portion.body.carb.grams).toBeNull();
+    expect(portion.body.carbPer100g.grams).toBeNull();
+    expect(labels.body.labels[0].text.carb).toBe('unknown');
   });
 });

@@ -1,14 +1,8 @@
 import request from 'supertest';
 import { ContainerModel, ProfileAccessModel } from '../../server/models';
-import { bearer, signUpMember, startTestApp, type TestContext } from '../helpers/api';
+import { bearer, signUpMember, useTestApp } from '../helpers/api';
 
-let ctx: TestContext;
-beforeAll(async () => {
-  ctx = await startTestApp();
-});
-afterAll(async () => {
-  await ctx.sequelize.close();
-});
+const ctx = useTestApp();
 
 const member = (name = 'Cook') => signUpMember(ctx.app, name);
 
@@ -71,5 +65,20 @@ describe('/api/profiles/:profileId/containers', () => {
 
     expect([strangerList.status, strangerEdit.status, clinicianList.status, clinicianPost.status, viaOwnProfile.status]).toEqual([404, 404, 200, 403, 404]);
     expect((await ContainerModel.findByPk(jar.body.id))!.tareGrams).toBe(212);
+  });
+});
+
+describe('PATCH /api/profiles/:profileId/containers/:id', () => {
+  it('keeps a pot a pot when only its name is changed', async () => {
+    const m = await member();
+    const base = `/api/profiles/${m.profileId}/containers`;
+    const pot = await request(ctx.app).post(base).set(bearer(m.token)).send({ name: 'Big pot', kind: 'pot', tareGrams: 1450 });
+
+    const renamed = await request(ctx.app).patch(`${base}/${pot.body.id}`).set(bearer(m.token)).send({ name: 'Big blue pot' });
+    const list = await request(ctx.app).get(base).set(bearer(m.token));
+
+    expect(renamed.status).toBe(200);
+    expect(renamed.body).toMatchObject({ name: 'Big blue pot', kind: 'pot', tareGrams: 1450 });
+    expect(list.body.items).toEqual([expect.objectContaining({ id: pot.body.id, kind: 'pot' })]);
   });
 });

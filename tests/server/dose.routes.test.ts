@@ -1,15 +1,9 @@
 import request from 'supertest';
 import { ProfileAccessModel } from '../../server/models';
-import { bearer, signUpUser, startTestApp, type TestContext } from '../helpers/api';
+import { bearer, signUpUser, useTestApp } from '../helpers/api';
 import { TEST_DOSE_SETTINGS } from '../helpers/dose-settings';
 
-let ctx: TestContext;
-beforeAll(async () => {
-  ctx = await startTestApp();
-});
-afterAll(async () => {
-  await ctx.sequelize.close();
-});
+const ctx = useTestApp();
 
 const SETTINGS = TEST_DOSE_SETTINGS;
 const kind = (name: string, carbRatio: number, isDefault: boolean) => ({

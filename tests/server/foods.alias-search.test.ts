@@ -3,17 +3,13 @@ import { QueryTypes } from 'sequelize';
 import { normaliseSearchText } from '../../server/importers/food-rows';
 import { FoodModel } from '../../server/models';
 import { runImport } from '../../server/services/imports.service';
-import { bearer, signUpUser, startTestApp, type TestContext } from '../helpers/api';
+import { bearer, signUpUser, useTestApp } from '../helpers/api';
 
-let ctx: TestContext;
 let token: string;
+const ctx = useTestApp();
 beforeAll(async () => {
-  ctx = await startTestApp();
   await runImport(ctx.sequelize, 'ifct');
   token = (await signUpUser(ctx.app, 'Alias searcher')).token;
-});
-afterAll(async () => {
-  await ctx.sequelize.close();
 });
 
 type Item = { name: string; sourceCode: string; altNames: string[] };

@@ -1,27 +1,25 @@
 import fs from 'node:fs';
 import path from 'node:path';
+import { PNG } from 'pngjs';
 import request from 'supertest';
 import { FoodModel, ProfileAccessModel } from '../../server/models';
 import { readImageHeader } from '../../server/lib/photo-worker';
-import { bearer, signUpUser, startTestApp, type TestContext } from '../helpers/api';
+import { bearer, signUpMember, signUpUser, useTestApp, useUploadsDir } from '../helpers/api';
 import { makeImage, withExif } from '../fixtures/photos/make-images';
 
-let ctx: TestContext;
-let owner: Awaited<ReturnType<typeof signUpUser>>;
-let other: Awaited<ReturnType<typeof signUpUser>>;
-const uploads = fs.mkdtempSync(path.join(require('node:os').tmpdir(), 'cw-uploads-'));
 // Label photos are decoded in worker threads that load jimp afresh; on a busy 2-core machine that takes seconds.
 jest.setTimeout(120_000);
 
+const uploads = useUploadsDir();
+const ctx = useTestApp({ UPLOADS_DIR: uploads });
+let owner: Awaited<ReturnType<typeof signUpUser>>;
+let other: Awaited<ReturnType<typeof signUpUser>>;
 beforeAll(async () => {
-  ctx = await startTestApp({ UPLOADS_DIR: uploads });
   owner = await signUpUser(ctx.app, 'Labeller');
   other = await signUpUser(ctx.app, 'Other');
 });
-afterAll(async () => {
-  await ctx.sequelize.close();
-  fs.rmSync(uploads, { recursive: true, force: true });
-});
+
+const member = (name = 'Member') => signUpMember(ctx.app, name);
 
 const post = (token: string, body: unknown) => request(ctx.app).post('/api/foods').set(bearer(token)).send(body as object);
 const euPer100 = { name: 'Oat crackers', basis: 'per100g', convention: 'eu', carbohydrate: 60, fibre: 10, sugars: 2, protein: 12, fat: 7, energyKcal: 371 };
@@ -144,5 +142,47 @@ describe('POST /api/foods (label food)', () => {
     expect((await request(ctx.app).delete(`/api/foods/${id}`).set(bearer(other.token))).status).toBe(404);
     expect((await request(ctx.app).delete(`/api/foods/${id}`).set(bearer(owner.token))).status).toBe(204);
     expect(await FoodModel.findByPk(id)).toBeNull();
+  });
+});
+
+describe('label food photos', () => {
+  const values = { name: 'Photo crackers', basis: 'per100g', convention: 'eu', carbohydrate: 60, fibre: 10 };
+
+  it('refuses a "photo" whose bytes are not an image, whatever type it claims, and saves no food', async () => {
+    const m = await member();
+    const page = Buffer.from('<html><script>alert(1)</script></html>');
+    const photosDir = path.join(uploads, 'label-photos');
+    const stored = () => (fs.existsSync(photosDir) ? fs.readdirSync(photosDir) : []);
+    const before = stored();
+
+    const res = await request(ctx.app)
+      .post('/api/foods')
+      .set(bearer(m.token))
+      .field('data', JSON.stringify(values))
+      .attach('photo', page, { filename: 'label.png', contentType: 'image/png' });
+
+    expect(res.status).toBe(400);
+    expect(res.body.error.fieldErrors.photo).toBeDefined();
+    expect(stored()).toEqual(before);
+    expect(await FoodModel.count({ where: { ownerUserId: m.userId } })).toBe(0);
+  });
+
+  it('answers 404, not 500, when a label photo file has gone from the disk', async () => {
+    const m = await member();
+    const png = new PNG({ width: 4, height: 4 });
+    png.data.fill(200);
+    const created = await request(ctx.app)
+      .post('/api/foods')
+      .set(bearer(m.token))
+      .field('data', JSON.stringify(values))
+      .attach('photo', PNG.sync.write(png), { filename: 'label.png', contentType: 'image/png' });
+    fs.rmSync(path.join(uploads, 'label-photos'), { recursive: true, force: true });
+
+    const link = await request(ctx.app).get(`/api/foods/${created.body.food.id}/photo`).set(bearer(m.token));
+    const res = await request(ctx.app).get(link.headers.location);
+
+    expect(created.status).toBe(201);
+    expect(res.status).toBe(404);
+    expect(res.body.error.code).toBe('not_found');
   });
 });

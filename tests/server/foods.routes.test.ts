@@ -1,12 +1,11 @@
 import request from 'supertest';
 import { FoodModel } from '../../server/models';
 import { runImport } from '../../server/services/imports.service';
-import { bearer, signUpUser, startTestApp, type TestContext } from '../helpers/api';
+import { bearer, signUpUser, useTestApp } from '../helpers/api';
 
-let ctx: TestContext;
 let token: string;
+const ctx = useTestApp();
 beforeAll(async () => {
-  ctx = await startTestApp();
   await runImport(ctx.sequelize, 'ifct');
   // Invented foods that exercise ranking: the raw food must come before its processed variants.
   const base = { energyKcal: null, energyKj: null, carbAvailable: 10, carbTotal: null, fibre: null, sugars: null, protein: null, fat: null, water: null, carbMeasured: 'available' as const, attribution: 'Invented for a test', licence: 'none', foodGroup: 'Test' };
@@ -14,9 +13,6 @@ beforeAll(async () => {
     await FoodModel.create({ ...base, source: 'usda_sr28', sourceCode: code, name });
   }
   token = (await signUpUser(ctx.app, 'Searcher')).token;
-});
-afterAll(async () => {
-  await ctx.sequelize.close();
 });
 
 const search = (query: Record<string, string | number>) => request(ctx.app).get('/api/foods').query(query).set(bearer(token));

@@ -1,14 +1,8 @@
 import { FoodModel, ProfileAccessModel } from '../../server/models';
 import { getUsableFoods } from '../../server/services/foods.service';
-import { signUpUser, startTestApp, type TestContext } from '../helpers/api';
+import { signUpUser, useTestApp } from '../helpers/api';
 
-let ctx: TestContext;
-beforeAll(async () => {
-  ctx = await startTestApp();
-});
-afterAll(async () => {
-  await ctx.sequelize.close();
-});
+const ctx = useTestApp();
 
 // Invented values: these rows only exercise who may use which food.
 const base = {

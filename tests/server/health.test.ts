@@ -1,16 +1,10 @@
 import request from 'supertest';
 import { createApp } from '../../server/app';
 import { createSequelize } from '../../server/db';
-import { startTestApp, type TestContext } from '../helpers/api';
+import { useTestApp } from '../helpers/api';
 import { testConfig } from '../helpers/db';
 
-let ctx: TestContext;
-beforeAll(async () => {
-  ctx = await startTestApp();
-});
-afterAll(async () => {
-  await ctx.sequelize.close();
-});
+const ctx = useTestApp();
 
 describe('GET /api/health', () => {
   it('answers ok when the database answers', async () => {

@@ -4,17 +4,11 @@ import path from 'node:path';
 import { ImportFileError } from '../../server/importers/import-error';
 import { DatasetImportModel, FoodMeasureModel, FoodModel } from '../../server/models';
 import { runImport, type ImportKind } from '../../server/services/imports.service';
-import { startTestApp, type TestContext } from '../helpers/api';
+import { useTestApp } from '../helpers/api';
 
 const FIXTURES = path.resolve(__dirname, '../fixtures/foods');
 
-let ctx: TestContext;
-beforeAll(async () => {
-  ctx = await startTestApp();
-});
-afterAll(async () => {
-  await ctx.sequelize.close();
-});
+const ctx = useTestApp();
 
 /** A private copy of a fixture folder, with `change` applied to it. */
 function brokenCopy(folder: string, change: (dir: string) => void): string {

@@ -3,15 +3,9 @@ import { parse } from 'csv-parse/sync';
 import { ifctPackage, localNames } from '../../server/importers/ifct';
 import { DatasetImportModel, FoodModel } from '../../server/models';
 import { ensureDefaultDataset, runImport } from '../../server/services/imports.service';
-import { startTestApp, type TestContext } from '../helpers/api';
+import { useTestApp } from '../helpers/api';
 
-let ctx: TestContext;
-beforeAll(async () => {
-  ctx = await startTestApp();
-});
-afterAll(async () => {
-  await ctx.sequelize.close();
-});
+const ctx = useTestApp();
 
 // The package's own CSV is the oracle: header cells read "Label; code".
 let cached: Record<string, Record<string, string>> | null = null;

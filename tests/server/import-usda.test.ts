@@ -2,7 +2,7 @@ import fs from 'node:fs';
 import path from 'node:path';
 import { FoodMeasureModel, FoodModel } from '../../server/models';
 import { runImport } from '../../server/services/imports.service';
-import { startTestApp, type TestContext } from '../helpers/api';
+import { useTestApp } from '../helpers/api';
 
 const dataDir = process.env.CARBWRIGHT_SAMPLE_DATA ?? path.resolve(__dirname, '../../../shared/data');
 const sr28Dir = path.join(dataDir, 'sr28-sample');
@@ -10,13 +10,7 @@ const fdcDir = path.join(dataDir, 'fdc-csv-sample');
 const present = fs.existsSync(path.join(sr28Dir, 'FOOD_DES.txt')) && fs.existsSync(path.join(fdcDir, 'food.csv'));
 if (!present) console.warn(`USDA sample tests skipped: ${sr28Dir} and ${fdcDir} not found (set CARBWRIGHT_SAMPLE_DATA).`);
 
-let ctx: TestContext;
-beforeAll(async () => {
-  ctx = await startTestApp();
-});
-afterAll(async () => {
-  await ctx.sequelize.close();
-});
+const ctx = useTestApp();
 
 const food = (source: 'usda_sr28' | 'usda_fdc', sourceCode: string) =>
   FoodModel.findOne({ where: { source, sourceCode }, include: [{ model: FoodMeasureModel, as: 'measures' }] });

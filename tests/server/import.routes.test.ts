@@ -2,22 +2,18 @@ import fs from 'node:fs';
 import path from 'node:path';
 import request from 'supertest';
 import { FoodModel, UserModel } from '../../server/models';
-import { bearer, signUpUser, startTestApp, type TestContext } from '../helpers/api';
+import { bearer, signUpUser, useTestApp } from '../helpers/api';
 
 const FDC_MINI = path.resolve(__dirname, '../fixtures/foods/fdc-mini');
 
-let ctx: TestContext;
 let adminToken: string;
 let memberToken: string;
+const ctx = useTestApp();
 beforeAll(async () => {
-  ctx = await startTestApp();
   const admin = await signUpUser(ctx.app, 'Admin');
   await UserModel.update({ role: 'admin' }, { where: { id: admin.me.user.id } });
   adminToken = admin.token;
   memberToken = (await signUpUser(ctx.app, 'Member')).token;
-});
-afterAll(async () => {
-  await ctx.sequelize.close();
 });
 
 async function waitForImport(id: number) {

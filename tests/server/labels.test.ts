@@ -2,16 +2,10 @@ import jsQR from 'jsqr';
 import { PNG } from 'pngjs';
 import request from 'supertest';
 import { ProfileModel } from '../../server/models';
-import { bearer, signUpUser, startTestApp, type TestContext } from '../helpers/api';
+import { bearer, signUpUser, useTestApp } from '../helpers/api';
 import { overnightOats, postBatch } from './batches-fixtures';
 
-let ctx: TestContext;
-beforeAll(async () => {
-  ctx = await startTestApp({ PUBLIC_URL: 'https://carbwright.example' });
-});
-afterAll(async () => {
-  await ctx.sequelize.close();
-});
+const ctx = useTestApp({ PUBLIC_URL: 'https://carbwright.example' });
 
 function decodeQr(dataUrl: string): string | null {
   const png = PNG.sync.read(Buffer.from(dataUrl.replace(/^data:image\/png;base64,/, ''), 'base64'));

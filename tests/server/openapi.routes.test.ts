@@ -5,17 +5,13 @@ import { PhotoProcessor } from '../../server/lib/photo-worker';
 import { openApiPath } from '../../server/openapi';
 import { apiRoutes } from '../../server/routes';
 import { enabledRoutes, type AnyRoute } from '../../server/routes/registry';
-import { startTestApp, type TestContext } from '../helpers/api';
+import { useTestApp } from '../helpers/api';
 
-let ctx: TestContext;
 let registered: AnyRoute[];
+const ctx = useTestApp({ BENCH_ROUTES: '1' });
 beforeAll(async () => {
-  ctx = await startTestApp({ BENCH_ROUTES: '1' });
   const deps = { config: ctx.config, sequelize: ctx.sequelize, storage: localDiskStorage(ctx.config.UPLOADS_DIR), photos: new PhotoProcessor(1) };
   registered = enabledRoutes(apiRoutes(deps), ctx.config);
-});
-afterAll(async () => {
-  await ctx.sequelize.close();
 });
 
 type Layer = { rawPath?: string; route?: { path: string; methods: Record<string, boolean> }; handle?: { stack?: Layer[] } };

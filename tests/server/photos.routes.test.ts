@@ -1,28 +1,21 @@
 import fs from 'node:fs';
-import os from 'node:os';
 import path from 'node:path';
 import { JimpMime } from 'jimp';
 import request from 'supertest';
 import { readImageHeader } from '../../server/lib/photo-worker';
 import { RecipeModel } from '../../server/models';
-import { bearer, signUpUser, startTestApp, type TestContext } from '../helpers/api';
+import { bearer, signUpUser, useTestApp, useUploadsDir } from '../helpers/api';
 import { hugeDimensionPng, makeImage, withExif } from '../fixtures/photos/make-images';
 import { createRecipeAs, insertOatsFoods, oatsRecipe } from './recipes-helpers';
 
 // Decoding runs in worker threads that load jimp afresh; on a busy 2-core machine that takes seconds.
 jest.setTimeout(120_000);
 
-let ctx: TestContext;
-let uploads: string;
+const uploads = useUploadsDir();
+const ctx = useTestApp({ UPLOADS_DIR: uploads });
 let foods: Awaited<ReturnType<typeof insertOatsFoods>>;
 beforeAll(async () => {
-  uploads = fs.mkdtempSync(path.join(os.tmpdir(), 'cw-photos-'));
-  ctx = await startTestApp({ UPLOADS_DIR: uploads });
   foods = await insertOatsFoods();
-});
-afterAll(async () => {
-  await ctx.sequelize.close();
-  fs.rmSync(uploads, { recursive: true, force: true });
 });
 
 const upload = (id: number, token: string, data: Buffer, filename: string) =>

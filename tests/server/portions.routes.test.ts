@@ -1,16 +1,10 @@
 import request from 'supertest';
 import { PortionModel, ProfileAccessModel } from '../../server/models';
 import { formatPortionCode } from '../../shared/compute/portion-code';
-import { bearer, signUpMember, startTestApp, type TestContext } from '../helpers/api';
+import { bearer, signUpMember, useTestApp } from '../helpers/api';
 import { overnightOats, postBatch } from './batches-fixtures';
 
-let ctx: TestContext;
-beforeAll(async () => {
-  ctx = await startTestApp();
-});
-afterAll(async () => {
-  await ctx.sequelize.close();
-});
+const ctx = useTestApp();
 
 const member = (name = 'Cook') => signUpMember(ctx.app, name);
 

@@ -3,12 +3,11 @@ import request from 'supertest';
 import { errorHandler } from '../../server/middleware/error-handler';
 import { requireAuth, requireProfileAccess } from '../../server/middleware/auth';
 import { ProfileAccessModel } from '../../server/models';
-import { bearer, signUpUser, startTestApp, type TestContext } from '../helpers/api';
+import { bearer, signUpUser, useTestApp } from '../helpers/api';
 
-let ctx: TestContext;
 let probe: express.Express;
+const ctx = useTestApp();
 beforeAll(async () => {
-  ctx = await startTestApp();
   probe = express();
   probe.get('/p/:profileId', requireAuth(ctx.config), requireProfileAccess(), (req, res) => {
     res.json({ role: req.profileAccess!.role });
@@ -17,9 +16,6 @@ beforeAll(async () => {
     res.json({ ok: true });
   });
   probe.use(errorHandler);
-});
-afterAll(async () => {
-  await ctx.sequelize.close();
 });
 
 describe('requireProfileAccess', () => {

@@ -1,15 +1,11 @@
 import request from 'supertest';
 import { DayKindModel, ProfileAccessModel, ProfileSettingsModel, RatioBlockModel, SettingsChangeModel } from '../../server/models';
-import { bearer, signUpUser, startTestApp, type TestContext } from '../helpers/api';
+import { bearer, signUpMember, signUpUser, useTestApp } from '../helpers/api';
 import { TEST_DOSE_SETTINGS } from '../helpers/dose-settings';
 
-let ctx: TestContext;
-beforeAll(async () => {
-  ctx = await startTestApp();
-});
-afterAll(async () => {
-  await ctx.sequelize.close();
-});
+const ctx = useTestApp();
+
+const member = (name = 'Member') => signUpMember(ctx.app, name);
 
 const SETTINGS = TEST_DOSE_SETTINGS;
 const REST = {
@@ -309,5 +305,31 @@ describe('days given a day kind', () => {
     const res = await request(ctx.app).get(`/api/profiles/${o.profileId}/days?from=2026-03-01&to=2026-03-07`).set(bearer(stranger.token));
 
     expect(res.status).toBe(404);
+  });
+});
+
+describe('PUT /api/profiles/:profileId/days/:date', () => {
+  it('answers every one of several simultaneous requests for the same date, and keeps one of them', async () => {
+    const m = await member();
+    const kinds: number[] = [];
+    for (const name of ['Rest', 'Ride']) {
+      const res = await request(ctx.app)
+        .post(`/api/profiles/${m.profileId}/day-kinds`)
+        .set(bearer(m.token))
+        .send({ name, isDefault: name === 'Rest', longActingUnits: 18, glucoseUnit: 'mmol_l', blocks: [{ from: '00:00', to: '24:00', carbRatio: 10, correctionFactor: 2 }] });
+      kinds.push(res.body.id);
+    }
+
+    const answers = await Promise.all(
+      Array.from({ length: 8 }, (_, i) =>
+        request(ctx.app).put(`/api/profiles/${m.profileId}/days/2026-03-03`).set(bearer(m.token)).send({ dayKindId: kinds[i % 2] }),
+      ),
+    );
+    const day = await request(ctx.app).get(`/api/profiles/${m.profileId}/days?from=2026-03-03&to=2026-03-03`).set(bearer(m.token));
+
+    expect(answers.map((a) => a.status)).toEqual(Array(8).fill(200));
+    expect(day.body.days).toHaveLength(1);
+    expect(kinds).toContain(day.body.days[0].dayKindId);
+    expect(day.body.days[0].isSet).toBe(true);
   });
 });

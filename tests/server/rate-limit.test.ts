@@ -1,13 +1,7 @@
 import request from 'supertest';
-import { startTestApp, type TestContext } from '../helpers/api';
+import { useTestApp } from '../helpers/api';
 
-let ctx: TestContext;
-beforeAll(async () => {
-  ctx = await startTestApp({ AUTH_RATE_LIMIT: '3' });
-});
-afterAll(async () => {
-  await ctx.sequelize.close();
-});
+const ctx = useTestApp({ AUTH_RATE_LIMIT: '3' });
 
 describe('sign-in rate limit', () => {
   it('answers 429 once the limit of attempts is used up', async () => {

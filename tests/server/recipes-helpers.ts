@@ -1,45 +1,22 @@
 import request from 'supertest';
 import type { Express } from 'express';
-import { FoodModel } from '../../server/models';
 import type { RecipeInput } from '../../shared/schemas/recipe';
 import { bearer } from '../helpers/api';
+import { createFood, SR_LEGACY, type FoodFixture } from '../helpers/foods';
 
-type FoodValues = { name: string; carbTotal: number | null; fibre: number | null; carbAvailable?: number | null; ownerUserId?: number | null };
-
-let code = 0;
-/** Inserts a table food directly (the values passed in say where they come from). */
-export async function insertFood(v: FoodValues): Promise<number> {
-  code += 1;
-  const row = await FoodModel.create({
-    source: v.ownerUserId ? 'label' : 'usda_sr28',
-    sourceCode: `test-${process.pid}-${code}`,
-    name: v.name,
-    foodGroup: null,
-    energyKcal: null,
-    energyKj: null,
-    carbAvailable: v.carbAvailable ?? null,
-    carbTotal: v.carbTotal,
-    fibre: v.fibre,
-    sugars: null,
-    protein: null,
-    fat: null,
-    water: null,
-    carbMeasured: 'total',
-    attribution: 'test data',
-    licence: 'test data',
-    ownerUserId: v.ownerUserId ?? null,
-  });
-  return row.id;
+/** Inserts a table food (or a member's label food) and returns its id; the values passed in say where they come from. */
+export async function insertFood(f: FoodFixture): Promise<number> {
+  return (await createFood(f)).id;
 }
 
 /** Four foods with USDA SR Legacy values as in check-values §2.4 (overnight oats, example B). */
 export async function insertOatsFoods() {
   return {
-    oats: await insertFood({ name: 'Oats, rolled, dry', carbTotal: 67.7, fibre: 10.1 }),
-    milk: await insertFood({ name: 'Milk, whole, 3.25%', carbTotal: 4.8, fibre: 0 }),
-    yogurt: await insertFood({ name: 'Yogurt, Greek, plain, nonfat', carbTotal: 3.6, fibre: 0 }),
-    apple: await insertFood({ name: 'Apples, raw, with skin', carbTotal: 13.81, fibre: 2.4 }),
-    raisins: await insertFood({ name: 'Raisins, seedless', carbTotal: 79.18, fibre: 3.7 }),
+    oats: await insertFood(SR_LEGACY.oats),
+    milk: await insertFood({ ...SR_LEGACY.wholeMilk, name: 'Milk, whole, 3.25%' }),
+    yogurt: await insertFood(SR_LEGACY.greekYogurt),
+    apple: await insertFood({ ...SR_LEGACY.apple, name: 'Apples, raw, with skin' }),
+    raisins: await insertFood(SR_LEGACY.raisins),
   };
 }
 

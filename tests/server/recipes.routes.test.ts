@@ -1,16 +1,12 @@
 import request from 'supertest';
 import { ProfileModel, RecipeIngredientModel, RecipeModel } from '../../server/models';
-import { bearer, signUpUser, startTestApp, type TestContext } from '../helpers/api';
+import { bearer, signUpUser, useTestApp } from '../helpers/api';
 import { createRecipeAs, insertFood, insertOatsFoods, oatsRecipe } from './recipes-helpers';
 
-let ctx: TestContext;
 let foods: Awaited<ReturnType<typeof insertOatsFoods>>;
+const ctx = useTestApp();
 beforeAll(async () => {
-  ctx = await startTestApp();
   foods = await insertOatsFoods();
-});
-afterAll(async () => {
-  await ctx.sequelize.close();
 });
 
 describe('POST /api/recipes', () => {

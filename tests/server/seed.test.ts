@@ -2,15 +2,9 @@ import request from 'supertest';
 import { BatchIngredientModel, BatchModel, FoodModel, PortionModel, RecipeModel, UserModel } from '../../server/models';
 import { loadScenario, runDemoStep, seedDemo } from '../../server/seed/demo';
 import { ensureDefaultDataset } from '../../server/services/imports.service';
-import { startTestApp, type TestContext } from '../helpers/api';
+import { useTestApp } from '../helpers/api';
 
-let ctx: TestContext;
-beforeAll(async () => {
-  ctx = await startTestApp();
-});
-afterAll(async () => {
-  await ctx.sequelize.close();
-});
+const ctx = useTestApp();
 
 describe('seedDemo', () => {
   it('does nothing until the IFCT table is imported', async () => {

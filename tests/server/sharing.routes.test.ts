@@ -1,17 +1,17 @@
 import request from 'supertest';
 import { RecipeModel, RecipeShareModel } from '../../server/models';
-import { bearer, signUpUser, startTestApp, type TestContext } from '../helpers/api';
+import { bearer, signUpMember, signUpUser, useTestApp } from '../helpers/api';
 import { createRecipeAs, insertOatsFoods, oatsRecipe } from './recipes-helpers';
+import { createFood, SR_LEGACY, withAvailable } from '../helpers/foods';
+import { makeRecipe, postBatch } from './batches-fixtures';
 
-let ctx: TestContext;
 let foods: Awaited<ReturnType<typeof insertOatsFoods>>;
+const ctx = useTestApp();
 beforeAll(async () => {
-  ctx = await startTestApp();
   foods = await insertOatsFoods();
 });
-afterAll(async () => {
-  await ctx.sequelize.close();
-});
+
+const member = (name = 'Member') => signUpMember(ctx.app, name);
 
 type Who = 'owner' | 'sharedWith' | 'stranger';
 
@@ -135,5 +135,61 @@ describe('revoking and copying', () => {
 
     expect(await RecipeShareModel.count({ where: { recipeId: id } })).toBe(0);
     expect((await request(ctx.app).get(`/api/recipes/${id}`).set(bearer(people.sharedWith.token))).status).toBe(404);
+  });
+});
+
+describe('POST /api/profiles/:profileId/batches (a recipe shared with me)', () => {
+  it('lets the person a recipe was shared with cook it when it uses the owner’s label food', async () => {
+    const owner = await member('Owner');
+    const friend = await signUpUser(ctx.app, 'Friend');
+    // check-values.md §1.2 worked example label: 60 g available carbohydrate and 10 g fibre per 100 g.
+    const crackers = await request(ctx.app)
+      .post('/api/foods')
+      .set(bearer(owner.token))
+      .send({ name: 'Oat crackers', basis: 'per100g', convention: 'eu', carbohydrate: 60, fibre: 10, protein: 12, fat: 7 });
+    const recipe = await request(ctx.app)
+      .post('/api/recipes')
+      .set(bearer(owner.token))
+      .send({ title: 'Cracker snack', defaultPortions: 2, visibility: 'private', ingredients: [{ foodId: crackers.body.food.id, grams: 100 }] });
+    const share = await request(ctx.app).post(`/api/recipes/${recipe.body.id}/shares`).set(bearer(owner.token)).send({ email: friend.email });
+
+    const cooked = await postBatch(ctx.app, friend.token, friend.me.profiles[0].id, {
+      recipeId: recipe.body.id,
+      cookedOn: '2026-03-10',
+      storage: 'fridge',
+      ingredients: [{ foodId: crackers.body.food.id, plannedGrams: 100, actualGrams: 100 }],
+      cookedWeight: { grossGrams: 100, tareGrams: 0 },
+      split: { mode: 'equal', count: 2 },
+    });
+
+    expect([crackers.status, recipe.status, share.status]).toEqual([201, 201, 201]);
+    expect(cooked.status).toBe(201);
+    // 100 g at 60 g available per 100 g, split in two: 30 g each.
+    expect(cooked.body.carbTotal.grams).toBeCloseTo(60, 6);
+    expect(cooked.body.portions.map((p: { carb: { grams: number } }) => p.carb.grams)).toEqual([30, 30]);
+  });
+
+  it('still refuses another member’s private label food that is not in the recipe', async () => {
+    const owner = await member('Owner');
+    const stranger = await member('Stranger');
+    const hidden = await request(ctx.app)
+      .post('/api/foods')
+      .set(bearer(stranger.token))
+      .send({ name: 'Secret crackers', basis: 'per100g', convention: 'eu', carbohydrate: 60, fibre: 10 });
+    // USDA SR Legacy NDB 20045 cooked rice, 28.17 g total carbohydrate, 0.4 g fibre (check-values §11).
+    const rice = await createFood(withAvailable(SR_LEGACY.rice));
+    const recipe = await makeRecipe(owner.userId, 'Rice', [{ foodId: rice.id, grams: 100 }]);
+
+    const res = await postBatch(ctx.app, owner.token, owner.profileId, {
+      recipeId: recipe.id,
+      cookedOn: '2026-03-10',
+      storage: 'fridge',
+      ingredients: [{ foodId: hidden.body.food.id, plannedGrams: 100, actualGrams: 100 }],
+      cookedWeight: { grossGrams: 100, tareGrams: 0 },
+      split: { mode: 'equal', count: 1 },
+    });
+
+    expect(res.status).toBe(400);
+    expect(res.body.error.fieldErrors['ingredients.0.foodId']).toBeDefined();
   });
 });

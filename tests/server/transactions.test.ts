@@ -7,6 +7,9 @@ import { bearer, signUpMember } from '../helpers/api';
 import { resetDatabase, testConfig, workerDatabaseUrl } from '../helpers/db';
 import { overnightOats, postBatch } from './batches-fixtures';
 
+// Sixty saves through a pool of three take a while on a busy machine; the time is not what is tested.
+jest.setTimeout(120_000);
+
 /** The app on this worker's database with a deliberately small pool, so a query outside its transaction deadlocks. */
 async function smallPoolApp(poolMax: number, acquireMs: number): Promise<{ app: Express; sequelize: Sequelize }> {
   const sequelize = createSequelize(workerDatabaseUrl(), { poolMax, acquireTimeoutMs: acquireMs });
