@@ -8,7 +8,7 @@ import { Text } from '../ui/text';
 import { TextField } from '../ui/text-field';
 import { ChoiceGroup } from '../ui/choice-group';
 import { gramsText } from './kitchen-format';
-import { useContainers, useCreateContainer, useDeleteContainer } from './kitchen-queries';
+import { useContainers, useCreateContainer, useDeleteContainer } from '../api/containers';
 
 /** Saved pots and containers with their empty weights, so weighing needs only the gross reading. */
 export function ContainersPanel({ profileId }: { profileId: number }) {

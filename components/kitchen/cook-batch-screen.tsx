@@ -13,7 +13,9 @@ import { TextField } from '../ui/text-field';
 import { CookedWeightStep } from './cooked-weight-step';
 import { num, previewBatch, stepOfField, toCreateInput, type CookState } from './cook-state';
 import { localToday } from './kitchen-format';
-import { useContainers, useCreateBatch, useRecipeToCook } from './kitchen-queries';
+import { useCreateBatch } from '../api/batches';
+import { useContainers } from '../api/containers';
+import { useRecipe } from '../api/recipes';
 import { SplitStep } from './split-step';
 import { StorageStep } from './storage-step';
 import { WeighingStep } from './weighing-step';
@@ -53,7 +55,7 @@ function initialState(recipe: RecipeDetail, factor: number): CookState {
 /** Cooking a batch from a recipe: weighing checklist, cooked pot, split, storage; saved in one go. */
 export function CookBatchScreen({ recipeId }: { recipeId: number }) {
   const { profile } = useActiveProfile();
-  const recipe = useRecipeToCook(recipeId, profile?.id);
+  const recipe = useRecipe(recipeId, { profileId: profile?.id }, !!profile);
   const containers = useContainers(profile?.id);
   const create = useCreateBatch(profile?.id);
   const [factorText, setFactorText] = useState('1');
@@ -87,7 +89,7 @@ export function CookBatchScreen({ recipeId }: { recipeId: number }) {
     setFormError(undefined);
     setErrors({});
     create.mutate(toCreateInput(recipeId, factor ?? 1, state), {
-      onSuccess: (saved) => router.replace(`/kitchen/batches/${saved.id}` as never),
+      onSuccess: (saved) => router.replace(`/kitchen/batches/${saved.id}`),
       onError: (error) => {
         if (error instanceof ApiError && error.fieldErrors) {
           const flat = Object.fromEntries(Object.entries(error.fieldErrors).map(([k, v]) => [k, v[0]]));
@@ -118,7 +120,7 @@ export function CookBatchScreen({ recipeId }: { recipeId: number }) {
       {step === 'weigh' && !started ? (
         <View style={styles.scale}>
           <TextField label="Scale the recipe" unit="×" keyboardType="decimal-pad" value={factorText} onChangeText={setFactorText} hint="1 = as written; 2 = double. Set this before weighing." />
-          <Button variant="quiet" label="Kitchen" onPress={() => router.replace('/kitchen' as never)} />
+          <Button variant="quiet" label="Kitchen" onPress={() => router.replace('/kitchen')} />
         </View>
       ) : null}
       {step === 'weigh' ? (

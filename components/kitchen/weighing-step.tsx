@@ -9,7 +9,7 @@ import { Text } from '../ui/text';
 import { TextField } from '../ui/text-field';
 import { num, type CookLine } from './cook-state';
 import { gramsText } from './kitchen-format';
-import { useFoodSearch } from './kitchen-queries';
+import { FoodSearchField } from '../foods/food-search-field';
 
 type Props = {
   lines: CookLine[];
@@ -83,7 +83,10 @@ export function WeighingStep({ lines, index, onIndex, onChange, onDone, error }:
           <Button variant="secondary" label={swapping ? 'Cancel swap' : 'Swap for another food'} onPress={() => setSwapping(!swapping)} />
         </View>
         {swapping ? (
-          <SwapSearch
+          <FoodSearchField
+            label="Search foods"
+            verb="Use"
+            placeholder="Type at least 2 letters"
             onPick={(food) => {
               onChange(index, {
                 ...line,
@@ -120,20 +123,6 @@ export function WeighingStep({ lines, index, onIndex, onChange, onDone, error }:
           );
         })}
       </View>
-    </View>
-  );
-}
-
-function SwapSearch({ onPick }: { onPick: (food: { id: number; name: string; per100g: CookLine['per100g'] }) => void }) {
-  const [q, setQ] = useState('');
-  const search = useFoodSearch(q);
-  return (
-    <View style={styles.stack}>
-      <TextField label="Search foods" value={q} onChangeText={setQ} placeholder="Type at least 2 letters" />
-      {search.isError ? <Text color="danger">The food search did not answer. Try again.</Text> : null}
-      {(search.data?.items ?? []).slice(0, 8).map((f) => (
-        <Button key={f.id} variant="secondary" label={f.name} onPress={() => onPick(f)} />
-      ))}
     </View>
   );
 }

@@ -16,7 +16,7 @@ import { Text } from '../ui/text';
 import { TextField } from '../ui/text-field';
 import { FoodSearch, type PickedFood } from './food-search';
 import { VISIBILITY_WORDS, showCarb, showGrams } from './recipe-format';
-import { useCreateRecipe, useRecipe, useUpdateRecipe } from './recipe-queries';
+import { useCreateRecipe, useRecipe, useUpdateRecipe } from '../api/recipes';
 
 type Line = { key: number; food: PickedFood; grams: string; measureLabel: string; note: string; measures: FoodMeasure[] };
 type Draft = { title: string; description: string; portions: string; tags: string; steps: string; visibility: RecipeVisibility; lines: Line[] };
@@ -108,7 +108,7 @@ function RecipeEditor({ id, initial }: { id?: number; initial: Draft }) {
       }
       setFormError(err instanceof ApiError ? err.message : 'Not saved. Please try again.');
     };
-    const onSuccess = (saved: RecipeDetail) => router.replace(`/recipes/${saved.id}` as never);
+    const onSuccess = (saved: RecipeDetail) => router.replace(`/recipes/${saved.id}`);
     if (id === undefined) create.mutate(input, { onSuccess, onError });
     else update.mutate(input, { onSuccess, onError });
   };

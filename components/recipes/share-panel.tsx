@@ -7,7 +7,7 @@ import { Button } from '../ui/button';
 import { Card } from '../ui/card';
 import { Text } from '../ui/text';
 import { TextField } from '../ui/text-field';
-import { useRevokeShare, useShareRecipe } from './recipe-queries';
+import { useRevokeShare, useShareRecipe } from '../api/recipes';
 
 /** The owner's sharing panel: give the recipe to someone by email, see who has it, take it back. */
 export function SharePanel({ recipeId, shares }: { recipeId: number; shares: RecipeShare[] }) {
