@@ -1,6 +1,6 @@
-import { z } from 'zod';
-import { doseRequestSchema, type DoseRequest } from '../../shared/schemas/dose';
+import { doseRequestSchema } from '../../shared/schemas/dose';
 import type { GlucoseUnit } from '../../shared/schemas/units';
+import { requestFormSchema } from '../ui/request-form-schema';
 import { earlierDoseField, earlierDosesRequest, type EarlierDoseRow } from './earlier-doses-fields';
 
 /** The dose check as typed: text exactly as entered, minutes relative to the moment of asking. */
@@ -100,17 +100,6 @@ export function toDoseRequest(v: DoseFormValues, { now, glucoseUnit, date }: Dos
   return { request, errors, fieldOf };
 }
 
-/**
- * The form's schema for zodResolver: the shared doseRequestSchema, applied to the request built from the typed
- * values, with each problem put back under the field it came from. `context` is read at validation time.
- */
-export function doseFormSchema(context: () => DoseRequestContext) {
-  return z.custom<DoseFormValues>().transform((values, ctx): DoseRequest => {
-    const { request, errors, fieldOf } = toDoseRequest(values, context());
-    const parsed = doseRequestSchema.safeParse(request);
-    const issues = Object.entries(errors).map(([path, [message]]) => ({ path, message }));
-    if (!parsed.success) for (const i of parsed.error.issues) issues.push({ path: i.path.join('.'), message: i.message });
-    for (const { path, message } of issues) ctx.addIssue({ code: 'custom', path: (fieldOf(path) ?? 'root').split('.'), message });
-    return issues.length || !parsed.success ? z.NEVER : parsed.data;
-  });
-}
+/** The form's schema for zodResolver: the shared doseRequestSchema on the built request; `context` is read at validation time. */
+export const doseFormSchema = (context: () => DoseRequestContext) =>
+  requestFormSchema(doseRequestSchema, (values: DoseFormValues) => toDoseRequest(values, context()));

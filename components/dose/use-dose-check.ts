@@ -50,7 +50,7 @@ export function useDoseCheck({ carbs, portion, label }: DoseCheckParams) {
       onSuccess: () => requestAnimationFrame(() => scrollIntoView(resultRef)),
       onError: (error) => {
         const { fieldOf } = toDoseRequest(form.getValues(), { ...contextRef.current, now: Date.now() });
-        setFormError(applyServerErrors(error, form.setError, (path) => fieldOf(path) as keyof DoseFormValues | undefined));
+        setFormError(applyServerErrors(error, form.setError, fieldOf));
       },
     });
   });

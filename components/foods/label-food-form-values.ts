@@ -1,5 +1,5 @@
-import { z } from 'zod';
 import { createLabelFoodInputSchema } from '../../shared/schemas/food';
+import { requestFormSchema } from '../ui/request-form-schema';
 
 /** What the form holds: text exactly as typed; turned into numbers only for validation and sending. */
 export type LabelFoodFormValues = {
@@ -65,4 +65,4 @@ export function toLabelFoodRequest(v: LabelFoodFormValues): Record<string, unkno
 }
 
 /** The form's schema: the shared create schema, read from the typed values (for zodResolver). */
-export const labelFoodFormSchema = z.custom<LabelFoodFormValues>().transform(toLabelFoodRequest).pipe(createLabelFoodInputSchema);
+export const labelFoodFormSchema = requestFormSchema(createLabelFoodInputSchema, (v: LabelFoodFormValues) => ({ request: toLabelFoodRequest(v), fieldOf: labelFoodFieldOf }));

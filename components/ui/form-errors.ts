@@ -9,14 +9,14 @@ import { ApiError } from '../api/client';
 export function applyServerErrors<T extends FieldValues>(
   error: unknown,
   setError: UseFormSetError<T>,
-  fields: readonly FieldPath<T>[] | ((path: string) => FieldPath<T> | undefined),
+  fields: readonly FieldPath<T>[] | ((path: string) => string | undefined),
 ): string | undefined {
   if (!(error instanceof ApiError)) return 'Something went wrong. Please try again.';
-  const fieldOf = typeof fields === 'function' ? fields : (path: string) => ((fields as readonly string[]).includes(path) ? (path as FieldPath<T>) : undefined);
+  const fieldOf = typeof fields === 'function' ? fields : (path: string) => ((fields as readonly string[]).includes(path) ? path : undefined);
   let placedAll = !!error.fieldErrors;
   for (const [path, messages] of Object.entries(error.fieldErrors ?? {})) {
     const field = fieldOf(path);
-    if (field) setError(field, { message: messages[0] }, { shouldFocus: false });
+    if (field) setError(field as FieldPath<T>, { message: messages[0] });
     else placedAll = false;
   }
   return placedAll ? undefined : error.message;
