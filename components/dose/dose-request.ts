@@ -66,8 +66,8 @@ const FIELD_OF: Record<string, keyof DoseFormValues> = {
 };
 
 /**
- * The request body from the typed values at `now` (minutes ago become times), plus the errors of fields that cannot
- * become a request at all, and the form field each request path belongs to.
+ * The request body from the typed values at `now` (minutes ago become times), plus the errors (by request path) of
+ * values that cannot become a request at all, and the form field each request path belongs to.
  */
 export function toDoseRequest(v: DoseFormValues, { now, glucoseUnit, date }: DoseRequestContext) {
   const errors: Record<string, string[]> = {};
@@ -75,7 +75,7 @@ export function toDoseRequest(v: DoseFormValues, { now, glucoseUnit, date }: Dos
   if (!blank(v.glucose)) {
     const minutes = Number(v.glucoseMinutesAgo.trim().replace(',', '.'));
     if (blank(v.glucoseMinutesAgo) || !Number.isFinite(minutes) || minutes < 0) {
-      errors.glucoseMinutesAgo = ['Enter how many minutes ago the reading was taken (0 or more).'];
+      errors.glucoseTakenAt = ['Enter how many minutes ago the reading was taken (0 or more).'];
     } else glucoseTakenAt = new Date(now - minutes * 60_000).toISOString();
   }
   const earlier = earlierDosesRequest(v.earlierDoses, now);
