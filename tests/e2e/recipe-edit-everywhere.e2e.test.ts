@@ -1,6 +1,6 @@
 import type { Page } from 'playwright-core';
 import request from 'supertest';
-import { PHONE, startBrowserRig, type BrowserRig } from '../helpers/browser';
+import { PHONE, WIDE, startBrowserRig, type BrowserRig } from '../helpers/browser';
 
 let rig: BrowserRig;
 beforeAll(async () => {
@@ -76,5 +76,15 @@ describe('a recipe edit reaches every screen without a reload', () => {
     await expect(library.getByRole('listitem', { name: 'Lentil soup', exact: true }).count()).resolves.toBe(0);
     await rig.shot(page, 'phone-library-after-edit');
     await expect(page.evaluate(() => (window as unknown as { loadedOnce?: boolean }).loadedOnce)).resolves.toBe(true);
+
+    // The same two forms at a wide width, for the screenshots.
+    const wide = await rig.newPage(WIDE);
+    await wide.addInitScript((t) => window.localStorage.setItem('carbwright.session', t), token);
+    await wide.goto(`${rig.baseUrl}/recipes/${recipeId}/edit`);
+    await wide.getByLabel('Grams of Red lentils, dry', { exact: true }).waitFor();
+    await rig.shot(wide, 'wide-recipe-editor');
+    await wide.goto(`${rig.baseUrl}/kitchen/cook/${recipeId}`);
+    await wide.getByLabel('Weighing checklist').getByText('300 g', { exact: true }).waitFor();
+    await rig.shot(wide, 'wide-cook-weighing');
   });
 });
