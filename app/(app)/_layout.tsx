@@ -23,7 +23,7 @@ export default function AppLayout() {
   if (status === 'loading') return <LoadingState />;
   if (status === 'signed-out') {
     const next = requested.current;
-    return <Redirect href={(next === '/' ? '/sign-in' : `/sign-in?next=${encodeURIComponent(next)}`) as never} />;
+    return <Redirect href={(next === '/' ? '/sign-in' : `/sign-in?next=${encodeURIComponent(next)}`)} />;
   }
   requested.current = pathname;
   return <Stack screenOptions={{ headerShown: false }} />;

@@ -5,6 +5,6 @@ export default function AuthLayout() {
   const { status } = useSession();
   const { next } = useLocalSearchParams<{ next?: string }>();
   if (status === 'loading') return null;
-  if (status === 'signed-in') return <Redirect href={safeNext(next) as never} />;
+  if (status === 'signed-in') return <Redirect href={safeNext(next)} />;
   return <Slot />;
 }

@@ -25,8 +25,28 @@ export const API_BASE = process.env.EXPO_PUBLIC_API_URL ?? '';
 
 type Init = Omit<RequestInit, 'body'> & { body?: unknown };
 
+/** "?a=1&b=x" from the defined, non-empty values ('' when none). */
+export function queryString(params: Record<string, string | number | undefined | null>): string {
+  const parts = Object.entries(params)
+    .filter(([, v]) => v != null && v !== '')
+    .map(([k, v]) => `${k}=${encodeURIComponent(String(v))}`);
+  return parts.length ? `?${parts.join('&')}` : '';
+}
+
 /** The one fetch wrapper: JSON in and out, bearer token, errors as ApiError. */
 export async function apiFetch<T>(path: string, init: Init = {}): Promise<T> {
+  const res = await send(path, init);
+  if (res.status === 204) return undefined as T;
+  const text = await res.text();
+  return (text ? safeJson(text) : undefined) as T;
+}
+
+/** The same call for a binary answer (a photo behind the bearer token). */
+export async function apiFetchBlob(path: string, init: Init = {}): Promise<Blob> {
+  return (await send(path, init)).blob();
+}
+
+async function send(path: string, init: Init): Promise<Response> {
   const token = tokenStore.get();
   const headers = new Headers(init.headers);
   headers.set('Accept', 'application/json');
@@ -44,19 +64,15 @@ export async function apiFetch<T>(path: string, init: Init = {}): Promise<T> {
     if ((err as Error)?.name === 'AbortError') throw err;
     throw new ApiError(0, 'network', 'We could not reach Carbwright. Check your connection and try again.');
   }
-  if (res.status === 204) return undefined as T;
+  if (res.ok) return res;
   const text = await res.text();
-  const data: unknown = text ? safeJson(text) : undefined;
-  if (!res.ok) {
-    if (res.status === 401 && token) onUnauthorized?.();
-    const parsed = apiErrorSchema.safeParse(data);
-    if (parsed.success) {
-      const { code, message, fieldErrors } = parsed.data.error;
-      throw new ApiError(res.status, code, message, fieldErrors);
-    }
-    throw new ApiError(res.status, 'internal', 'Something went wrong on our side. Please try again.');
+  if (res.status === 401 && token) onUnauthorized?.();
+  const parsed = apiErrorSchema.safeParse(text ? safeJson(text) : undefined);
+  if (parsed.success) {
+    const { code, message, fieldErrors } = parsed.data.error;
+    throw new ApiError(res.status, code, message, fieldErrors);
   }
-  return data as T;
+  throw new ApiError(res.status, 'internal', 'Something went wrong on our side. Please try again.');
 }
 
 function safeJson(text: string): unknown {

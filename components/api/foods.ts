@@ -1,7 +1,6 @@
 import { keepPreviousData, queryOptions, useInfiniteQuery, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 import type { CreateLabelFoodValues, DatasetImport, Food, FoodSearchPage, FoodSource } from '../../shared/schemas/food';
-import { tokenStore } from '../auth/token-store';
-import { API_BASE, apiFetch } from './client';
+import { apiFetch, apiFetchBlob } from './client';
 
 export type FoodFilters = { q: string; source?: FoodSource; group?: string; limit?: number };
 
@@ -23,16 +22,12 @@ export function fetchFoods(filters: FoodFilters, signal?: AbortSignal, cursor?: 
 }
 export const fetchFood = (id: number) => apiFetch<{ food: Food }>(`/foods/${id}`).then((r) => r.food);
 export const foodQueryOptions = (id: number) => queryOptions({ queryKey: foodKeys.detail(id), queryFn: () => fetchFood(id) });
+export const foodSearchQueryOptions = (filters: FoodFilters) =>
+  queryOptions({ queryKey: foodKeys.list(filters), queryFn: ({ signal }) => fetchFoods(filters, signal), staleTime: 5 * 60_000 });
 
 /** Search results for already-debounced filters; keeps the previous hits on screen while the next ones load. */
 export function useFoodSearch(filters: FoodFilters, enabled = true) {
-  return useQuery({
-    queryKey: foodKeys.list(filters),
-    queryFn: ({ signal }) => fetchFoods(filters, signal),
-    placeholderData: keepPreviousData,
-    enabled,
-    staleTime: 5 * 60_000,
-  });
+  return useQuery({ ...foodSearchQueryOptions(filters), placeholderData: keepPreviousData, enabled });
 }
 
 /** Search results page by page ("Show more"), cancelling requests the user has typed past. */
@@ -79,11 +74,7 @@ export function useFoodPhoto(id: number, enabled: boolean) {
     queryKey: [...foodKeys.detail(id), 'photo'],
     enabled,
     staleTime: Infinity,
-    queryFn: async () => {
-      const res = await fetch(`${API_BASE}/api/foods/${id}/photo`, { headers: { Authorization: `Bearer ${tokenStore.get() ?? ''}` } });
-      if (!res.ok) throw new Error('The photo did not load.');
-      return URL.createObjectURL(await res.blob());
-    },
+    queryFn: async () => URL.createObjectURL(await apiFetchBlob(`/foods/${id}/photo`)),
   });
 }
 

@@ -1,5 +1,5 @@
 import { queryOptions, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
-import type { DayKind, DayKindDay, DayKindInput, ProfileSettingsInput, ProfileSettingsView, SettingsChange } from '../../shared/schemas/profile-settings';
+import type { DayKind, DayKindInput, ProfileSettingsInput, ProfileSettingsView, SettingsChange } from '../../shared/schemas/profile-settings';
 import { authKeys } from './auth';
 import { apiFetch } from './client';
 
@@ -66,14 +66,5 @@ export function useDeleteDayKind(profileId: number) {
   return useMutation({
     mutationFn: (dayKindId: number) => apiFetch<void>(`/profiles/${profileId}/day-kinds/${dayKindId}`, { method: 'DELETE' }),
     onSuccess: invalidate,
-  });
-}
-
-/** The day kind in force on each date from..to ("YYYY-MM-DD", inclusive). */
-export function useDayKindDays(profileId: number | undefined, from: string, to: string) {
-  return useQuery({
-    queryKey: settingsKeys.days(profileId ?? 0, from, to),
-    queryFn: () => apiFetch<{ days: DayKindDay[] }>(`/profiles/${profileId}/days?from=${from}&to=${to}`).then((r) => r.days),
-    enabled: !!profileId,
   });
 }

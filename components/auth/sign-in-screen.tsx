@@ -21,7 +21,7 @@ export function SignInScreen() {
   const onSubmit = form.handleSubmit((values) => {
     setFormError(undefined);
     signIn.mutate(values, {
-      onSuccess: () => router.replace(safeNext(next) as never),
+      onSuccess: () => router.replace(safeNext(next)),
       onError: (error) => setFormError(applyServerErrors(error, form.setError, ['email', 'password'])),
     });
   });

@@ -24,7 +24,7 @@ export function SignUpScreen() {
   const onSubmit = form.handleSubmit((values) => {
     setFormError(undefined);
     signUp.mutate(values, {
-      onSuccess: () => router.replace(safeNext(next) as never),
+      onSuccess: () => router.replace(safeNext(next)),
       onError: (error) => setFormError(applyServerErrors(error, form.setError, ['email', 'displayName', 'password'])),
     });
   });

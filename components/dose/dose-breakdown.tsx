@@ -9,8 +9,8 @@ import { Button } from '../ui/button';
 import { Callout } from '../ui/callout';
 import { Card } from '../ui/card';
 import { Text } from '../ui/text';
+import { formatDoseUnits, formatInsulinUnits as unitsText } from './insulin-format';
 
-const u = (n: number) => `${(Math.round(n * 100) / 100).toFixed(2)} u`;
 
 function Line({ label, detail, amount }: { label: string; detail?: string; amount?: string }) {
   const t = useTheme();
@@ -41,7 +41,7 @@ export function DoseWarnings({ warnings }: { warnings: DoseWarning[] }) {
   );
 }
 
-/** A dose suggestion as a readable sum: every part, then the total, the split and the warnings. */
+/** A dose suggestion as a readable sum: the warnings first, then the dose, every part of the sum and the two-part dose. */
 export function DoseBreakdownView({ result }: { result: DoseSuggestion }) {
   if (result.status === 'no_settings') {
     return (
@@ -73,7 +73,7 @@ export function DoseBreakdownView({ result }: { result: DoseSuggestion }) {
   const blockText = `${minutesToTime(result.block.startMinute)}–${minutesToTime(result.block.endMinute)}`;
   const correction =
     b.correctionReason === 'above_range' || b.correctionReason === 'below_range_negative'
-      ? { detail: `(${g(b.glucoseMmol!)} − ${g(b.correctionTargetMmol)}) ÷ ${cfText} per unit`, amount: `${b.correctionUnits >= 0 ? '+' : '−'} ${u(Math.abs(b.correctionUnits))}` }
+      ? { detail: `(${g(b.glucoseMmol!)} − ${g(b.correctionTargetMmol)}) ÷ ${cfText} per unit`, amount: `${b.correctionUnits >= 0 ? '+' : '−'} ${unitsText(Math.abs(b.correctionUnits))}` }
       : {
           detail: {
             in_range: `${g(b.glucoseMmol ?? 0)} is within your target range: no correction.`,
@@ -81,20 +81,21 @@ export function DoseBreakdownView({ result }: { result: DoseSuggestion }) {
             no_glucose: 'Left out: no glucose reading.',
             stale_glucose: 'Left out: the reading is more than 15 minutes from the meal time.',
           }[b.correctionReason as 'in_range' | 'below_range_none' | 'no_glucose' | 'stale_glucose'],
-          amount: '+ 0.00 u',
+          amount: `+ ${unitsText(0)}`,
         };
   return (
     <View style={styles.stack}>
+      <DoseWarnings warnings={result.warnings} />
       <Card aria-label="Suggested dose">
         <Text variant="label" color="textMuted">
           Suggested dose · {result.dayKind.name}, {blockText}
         </Text>
-        <Text variant="number" aria-label={`${b.doseUnits} units`}>
-          {b.doseUnits} units
+        <Text variant="number" aria-label={formatDoseUnits(b.doseUnits)}>
+          {formatDoseUnits(b.doseUnits)}
         </Text>
         {result.split ? (
           <Text variant="lead">
-            Take {result.split.nowUnits} units now and {result.split.laterUnits} units in {result.split.laterMinutes} minutes.
+            Take {formatDoseUnits(result.split.nowUnits)} now and {formatDoseUnits(result.split.laterUnits)} in {result.split.laterMinutes} minutes.
           </Text>
         ) : null}
       </Card>
@@ -104,22 +105,22 @@ export function DoseBreakdownView({ result }: { result: DoseSuggestion }) {
           <Line
             label="Meal"
             detail={`${formatCarb(b.carbsGrams)} ÷ ${b.carbRatio} g per unit (ratio for ${result.dayKind.name}, ${blockText})`}
-            amount={u(b.mealUnits)}
+            amount={unitsText(b.mealUnits)}
           />
           {b.exercisePercent > 0 ? (
-            <Line label="Exercise after the meal" detail={`− ${b.exercisePercent} % of the meal part`} amount={`− ${u(b.exerciseUnits)}`} />
+            <Line label="Exercise after the meal" detail={`− ${b.exercisePercent} % of the meal part`} amount={`− ${unitsText(b.exerciseUnits)}`} />
           ) : null}
           <Line label="Correction" detail={correction.detail} amount={correction.amount} />
           {b.activeInsulinUnits > 0 ? (
             <Line
               label="Insulin still active"
-              detail={`${u(b.activeInsulinUnits)} from earlier doses; ${b.activeInsulinSubtracted > 0 ? 'taken off' : 'nothing to take off the correction'}`}
-              amount={`− ${u(b.activeInsulinSubtracted)}`}
+              detail={`${unitsText(b.activeInsulinUnits)} from earlier doses; ${b.activeInsulinSubtracted > 0 ? 'taken off' : 'nothing to take off the correction'}`}
+              amount={`− ${unitsText(b.activeInsulinSubtracted)}`}
             />
           ) : null}
-          <Line label="Total before rounding" amount={u(b.totalBeforeRounding)} />
-          <Line label="Rounded to your pen step" amount={`${b.roundedUnits} u`} />
-          {b.capped ? <Line label="Capped at your largest single dose" amount={`${b.doseUnits} u`} /> : null}
+          <Line label="Total before rounding" amount={unitsText(b.totalBeforeRounding)} />
+          <Line label="Rounded to your pen step" amount={formatDoseUnits(b.roundedUnits)} />
+          {b.capped ? <Line label="Capped at your largest single dose" amount={formatDoseUnits(b.doseUnits)} /> : null}
         </View>
         {result.fatProteinUnits != null ? (
           <Text color="textMuted">
@@ -128,7 +129,6 @@ export function DoseBreakdownView({ result }: { result: DoseSuggestion }) {
           </Text>
         ) : null}
       </Card>
-      <DoseWarnings warnings={result.warnings} />
     </View>
   );
 }

@@ -47,7 +47,7 @@ export function earlierDoseField(path: string, rowOfDose: number[]): string | un
 }
 
 /** Add and remove earlier rapid-acting doses; each row is units and minutes ago. */
-export function EarlierDosesFields<T extends Form>({ control }: { control: Control<T> }) {
+export function EarlierDosesFields<T extends Form, TOut extends FieldValues = T>({ control }: { control: Control<T, unknown, TOut> }) {
   const t = useTheme();
   const c = control as unknown as Control<Form>;
   const { fields, append, remove } = useFieldArray({ control: c, name: 'earlierDoses' });

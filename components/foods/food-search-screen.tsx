@@ -20,7 +20,7 @@ export function FoodSearchScreen() {
   const { isWide } = useLayout();
   const { profile } = useActiveProfile();
   const [chosen, setChosen] = useState<Food | null>(null);
-  const onPick = (food: Food) => (isWide ? setChosen(food) : router.push(`/foods/${food.id}` as never));
+  const onPick = (food: Food) => (isWide ? setChosen(food) : router.push(`/foods/${food.id}`));
   const addLabel = (
     <Link href="/foods/new" asChild>
       <Button variant="secondary" label="Add a label food" />
@@ -51,7 +51,7 @@ export function FoodSearchScreen() {
             <>
               <Card>
                 <Text variant="title">{chosen.name}</Text>
-                <Link href={`/foods/${chosen.id}` as never} asChild>
+                <Link href={`/foods/${chosen.id}`} asChild>
                   <Button variant="quiet" label="Open on its own page" />
                 </Link>
               </Card>

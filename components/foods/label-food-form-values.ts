@@ -1,5 +1,5 @@
-import type { FieldErrors, Resolver } from 'react-hook-form';
-import { createLabelFoodInputSchema, type CreateLabelFoodValues } from '../../shared/schemas/food';
+import { createLabelFoodInputSchema } from '../../shared/schemas/food';
+import { requestFormSchema } from '../ui/request-form-schema';
 
 /** What the form holds: text exactly as typed; turned into numbers only for validation and sending. */
 export type LabelFoodFormValues = {
@@ -14,9 +14,15 @@ export type LabelFoodFormValues = {
   protein: string;
   fat: string;
   energyKcal: string;
+  /** "private", or the id of the profile the food is shared with. */
+  share: string;
 };
 
 export const LABEL_FOOD_FIELDS = ['name', 'brand', 'basis', 'servingGrams', 'convention', 'carbohydrate', 'fibre', 'sugars', 'protein', 'fat', 'energyKcal'] as const;
+
+/** Where a request field's error lands in the form. */
+export const labelFoodFieldOf = (path: string) =>
+  path === 'sharedProfileId' ? ('share' as const) : (LABEL_FOOD_FIELDS as readonly string[]).includes(path) ? (path as (typeof LABEL_FOOD_FIELDS)[number]) : undefined;
 
 export const emptyLabelFood: LabelFoodFormValues = {
   name: '',
@@ -30,6 +36,7 @@ export const emptyLabelFood: LabelFoodFormValues = {
   protein: '',
   fat: '',
   energyKcal: '',
+  share: 'private',
 };
 
 // "12,5" (decimal comma, as many labels print it) reads as 12.5; blank is "not printed"; anything else stays text so the schema names it.
@@ -39,8 +46,8 @@ const num = (s: string): number | null | string => {
   return /^-?\d*\.?\d+$/.test(t) ? Number(t) : s;
 };
 
-/** The API input from the typed values (unparsable numbers are passed on for the shared schema to reject). */
-export function toLabelFoodInput(v: LabelFoodFormValues): Record<string, unknown> {
+/** The request body from the typed values (unparsable numbers are passed on for the shared schema to reject). */
+export function toLabelFoodRequest(v: LabelFoodFormValues): Record<string, unknown> {
   return {
     name: v.name,
     brand: v.brand.trim() || null,
@@ -53,22 +60,9 @@ export function toLabelFoodInput(v: LabelFoodFormValues): Record<string, unknown
     protein: num(v.protein),
     fat: num(v.fat),
     energyKcal: num(v.energyKcal),
+    sharedProfileId: v.share === 'private' ? null : Number(v.share),
   };
 }
 
-/** Validates the typed values with the same zod schema the server uses. */
-export const labelFoodResolver: Resolver<LabelFoodFormValues> = async (values) => {
-  const parsed = createLabelFoodInputSchema.safeParse(toLabelFoodInput(values));
-  if (parsed.success) return { values, errors: {} };
-  const errors: FieldErrors<LabelFoodFormValues> = {};
-  for (const issue of parsed.error.issues) {
-    const key = String(issue.path[0] ?? 'name') as keyof LabelFoodFormValues;
-    if (!errors[key]) errors[key] = { type: 'validation', message: issue.message };
-  }
-  return { values: {}, errors };
-};
-
-/** Parsed values, for submit (call only after the resolver passed). */
-export function parseLabelFood(v: LabelFoodFormValues): CreateLabelFoodValues {
-  return createLabelFoodInputSchema.parse(toLabelFoodInput(v));
-}
+/** The form's schema: the shared create schema, read from the typed values (for zodResolver). */
+export const labelFoodFormSchema = requestFormSchema(createLabelFoodInputSchema, (v: LabelFoodFormValues) => ({ request: toLabelFoodRequest(v), fieldOf: labelFoodFieldOf }));

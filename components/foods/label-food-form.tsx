@@ -1,5 +1,6 @@
+import { zodResolver } from '@hookform/resolvers/zod';
 import { useEffect, useState } from 'react';
-import { Controller, useForm, useWatch } from 'react-hook-form';
+import { useForm, useWatch } from 'react-hook-form';
 import { StyleSheet, View } from 'react-native';
 import type { CreateLabelFoodValues } from '../../shared/schemas/food';
 import type { LabelPhotoFile } from '../api/foods';
@@ -9,8 +10,8 @@ import { Callout } from '../ui/callout';
 import { Card } from '../ui/card';
 import { FormTextField } from '../ui/form-text-field';
 import { Text } from '../ui/text';
-import { ChoiceGroup } from '../ui/choice-group';
-import { emptyLabelFood, LABEL_FOOD_FIELDS, labelFoodResolver, parseLabelFood, type LabelFoodFormValues } from './label-food-form-values';
+import { FormChoiceGroup } from '../ui/form-choice-group';
+import { emptyLabelFood, labelFoodFieldOf, labelFoodFormSchema, type LabelFoodFormValues } from './label-food-form-values';
 import { PhotoInput } from './photo-input';
 
 export type ShareOption = { profileId: number | null; label: string };
@@ -26,23 +27,20 @@ type Props = {
 
 /** The add-a-label-food form: values as printed, per 100 g or per serving, with the label's carbohydrate convention. */
 export function LabelFoodForm({ onSubmit, submitting, submitError, shareOptions, defaultValues = emptyLabelFood }: Props) {
-  const form = useForm<LabelFoodFormValues>({ resolver: labelFoodResolver, defaultValues, mode: 'onSubmit' });
+  const form = useForm<LabelFoodFormValues, unknown, CreateLabelFoodValues>({ resolver: zodResolver(labelFoodFormSchema), defaultValues, mode: 'onSubmit' });
   const [photo, setPhoto] = useState<LabelPhotoFile | null>(null);
-  const [share, setShare] = useState<string>('private');
   const [formError, setFormError] = useState<string | undefined>();
   const basis = useWatch({ control: form.control, name: 'basis' });
   const convention = useWatch({ control: form.control, name: 'convention' });
   const per = basis === 'perServing' ? 'per serving' : 'per 100 g';
 
   useEffect(() => {
-    if (submitError) setFormError(applyServerErrors(submitError, form.setError, LABEL_FOOD_FIELDS));
+    if (submitError) setFormError(applyServerErrors(submitError, form.setError, labelFoodFieldOf));
   }, [submitError, form.setError]);
 
   const submit = form.handleSubmit((values) => {
     setFormError(undefined);
-    const parsed = parseLabelFood(values);
-    const chosen = shareOptions.find((o) => String(o.profileId ?? 'private') === share);
-    onSubmit({ ...parsed, sharedProfileId: chosen?.profileId ?? null }, photo);
+    onSubmit(values, photo);
   });
 
   return (
@@ -52,36 +50,24 @@ export function LabelFoodForm({ onSubmit, submitting, submitError, shareOptions,
         <FormTextField control={form.control} name="brand" label="Brand (optional)" />
       </Card>
       <Card>
-        <Controller
+        <FormChoiceGroup
           control={form.control}
           name="basis"
-          render={({ field }) => (
-            <ChoiceGroup
-              label="The label's values are"
-              value={field.value}
-              onChange={field.onChange}
-              choices={[
-                { value: 'per100g', label: 'Per 100 g' },
-                { value: 'perServing', label: 'Per serving', hint: 'We convert to per 100 g from the serving weight.' },
-              ]}
-            />
-          )}
+          label="The label's values are"
+          choices={[
+            { value: 'per100g', label: 'Per 100 g' },
+            { value: 'perServing', label: 'Per serving', hint: 'We convert to per 100 g from the serving weight.' },
+          ]}
         />
         {basis === 'perServing' ? <FormTextField control={form.control} name="servingGrams" label="Serving weight" unit="g" keyboardType="decimal-pad" /> : null}
-        <Controller
+        <FormChoiceGroup
           control={form.control}
           name="convention"
-          render={({ field }) => (
-            <ChoiceGroup
-              label="Kind of label"
-              value={field.value}
-              onChange={field.onChange}
-              choices={[
-                { value: 'eu', label: 'EU / UK “Carbohydrate”', hint: 'Available carbohydrate: fibre is listed separately, not included.' },
-                { value: 'us', label: 'US “Total carbohydrate”', hint: 'Fibre is included in the total.' },
-              ]}
-            />
-          )}
+          label="Kind of label"
+          choices={[
+            { value: 'eu', label: 'EU / UK “Carbohydrate”', hint: 'Available carbohydrate: fibre is listed separately, not included.' },
+            { value: 'us', label: 'US “Total carbohydrate”', hint: 'Fibre is included in the total.' },
+          ]}
         />
       </Card>
       <Card>
@@ -103,10 +89,10 @@ export function LabelFoodForm({ onSubmit, submitting, submitError, shareOptions,
         <Text variant="heading">Photo of the label</Text>
         <PhotoInput value={photo} onChange={setPhoto} />
         {shareOptions.length > 1 ? (
-          <ChoiceGroup
+          <FormChoiceGroup
+            control={form.control}
+            name="share"
             label="Who can use this food"
-            value={share}
-            onChange={setShare}
             choices={shareOptions.map((o) => ({ value: String(o.profileId ?? 'private'), label: o.label }))}
           />
         ) : null}

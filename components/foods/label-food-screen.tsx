@@ -24,7 +24,7 @@ export function LabelFoodScreen() {
         submitting={create.isPending}
         submitError={create.error}
         onSubmit={(values, photo) =>
-          create.mutate({ values, photo }, { onSuccess: ({ food }) => router.replace(`/foods/${food.id}` as never) })
+          create.mutate({ values, photo }, { onSuccess: ({ food }) => router.replace(`/foods/${food.id}`) })
         }
       />
     </Screen>

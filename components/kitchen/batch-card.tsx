@@ -47,7 +47,7 @@ export function BatchCard({ batch, today }: { batch: BatchSummary; today: string
           ))}
         </View>
       ) : null}
-      <Button variant="secondary" label="Open batch" onPress={() => router.push(`/kitchen/batches/${batch.id}` as never)} />
+      <Button variant="secondary" label="Open batch" onPress={() => router.push(`/kitchen/batches/${batch.id}`)} />
     </Card>
   );
 }

@@ -10,7 +10,8 @@ import { ErrorState, LoadingState } from '../ui/states';
 import { Text } from '../ui/text';
 import { Figure } from './cooked-weight-step';
 import { carbText, gramsText, localToday, shortDate, shelfStatus } from './kitchen-format';
-import { useBatch, useSetPortionStatus, useUpdateBatch } from './kitchen-queries';
+import { useBatch, useUpdateBatch } from '../api/batches';
+import { useSetPortionStatus } from '../api/portions';
 
 const STATUS_WORD = { available: 'available', eaten: 'eaten', discarded: 'thrown away' } as const;
 
@@ -31,7 +32,7 @@ export function BatchDetailScreen({ id }: { id: number }) {
       title={b.recipeTitle}
       subtitle={`Cooked ${shortDate(b.cookedOn)}${b.cookedBy ? ` by ${b.cookedBy.displayName}` : ''} · ${b.storage === 'freezer' ? 'freezer' : 'fridge'}`}
       backHref="/kitchen"
-      actions={<Button label="Print labels" onPress={() => router.push(`/batches/${b.id}/labels` as never)} />}
+      actions={<Button label="Print labels" onPress={() => router.push(`/batches/${b.id}/labels`)} />}
     >
       <Card>
         <View style={styles.numbers}>
@@ -81,7 +82,7 @@ export function BatchDetailScreen({ id }: { id: number }) {
           </View>
           {p.containerName ? <Text color="textMuted">{p.containerName}</Text> : null}
           <View style={styles.row}>
-            <Button variant="quiet" label="Open" onPress={() => router.push(`/portions/${p.code}` as never)} />
+            <Button variant="quiet" label="Open" onPress={() => router.push(`/portions/${p.code}`)} />
             {p.status === 'available' && canEdit ? (
               <>
                 <Button variant="secondary" label="Eaten" onPress={() => mark.mutate({ code: p.code, status: 'eaten' })} />

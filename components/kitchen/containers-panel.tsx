@@ -1,40 +1,46 @@
+import { zodResolver } from '@hookform/resolvers/zod';
 import { useState } from 'react';
+import { useForm } from 'react-hook-form';
 import { StyleSheet, View } from 'react-native';
 import { createContainerInputSchema, type ContainerKind } from '../../shared/schemas/container';
-import { ApiError } from '../api/client';
+import { useContainers, useCreateContainer, useDeleteContainer } from '../api/containers';
 import { Button } from '../ui/button';
+import { Callout } from '../ui/callout';
 import { Card } from '../ui/card';
+import { applyServerErrors } from '../ui/form-errors';
+import { FormChoiceGroup } from '../ui/form-choice-group';
+import { FormTextField } from '../ui/form-text-field';
+import { requestFormSchema } from '../ui/request-form-schema';
 import { Text } from '../ui/text';
-import { TextField } from '../ui/text-field';
-import { ChoiceGroup } from '../ui/choice-group';
 import { gramsText } from './kitchen-format';
-import { useContainers, useCreateContainer, useDeleteContainer } from './kitchen-queries';
+
+export type ContainerFormValues = { name: string; kind: ContainerKind; tareGrams: string };
+const FIELDS = ['name', 'kind', 'tareGrams'] as const;
+const EMPTY: ContainerFormValues = { name: '', kind: 'container', tareGrams: '' };
+
+/** The request body: an empty weight left blank is missing (not 0 g), so the schema asks for it. */
+export const toContainerRequest = (v: ContainerFormValues) => ({ ...v, tareGrams: v.tareGrams.trim() === '' ? undefined : v.tareGrams });
+
+const containerFormSchema = requestFormSchema(createContainerInputSchema, (v: ContainerFormValues) => ({
+  request: toContainerRequest(v),
+  fieldOf: (path) => FIELDS.find((f) => f === path),
+}));
 
 /** Saved pots and containers with their empty weights, so weighing needs only the gross reading. */
 export function ContainersPanel({ profileId }: { profileId: number }) {
   const containers = useContainers(profileId);
   const create = useCreateContainer(profileId);
   const remove = useDeleteContainer(profileId);
-  const [name, setName] = useState('');
-  const [tare, setTare] = useState('');
-  const [kind, setKind] = useState<ContainerKind>('container');
-  const [errors, setErrors] = useState<Record<string, string>>({});
+  const form = useForm({ resolver: zodResolver(containerFormSchema), defaultValues: EMPTY });
+  const [formError, setFormError] = useState<string>();
 
-  const save = () => {
-    const parsed = createContainerInputSchema.safeParse({ name, kind, tareGrams: tare.trim() === '' ? undefined : tare });
-    if (!parsed.success) {
-      setErrors(Object.fromEntries(parsed.error.issues.map((i) => [String(i.path[0]), i.message])));
-      return;
-    }
-    setErrors({});
-    create.mutate(parsed.data, {
-      onSuccess: () => {
-        setName('');
-        setTare('');
-      },
-      onError: (e) => setErrors(e instanceof ApiError ? Object.fromEntries(Object.entries(e.fieldErrors ?? { name: [e.message] }).map(([k, v]) => [k, v[0]])) : {}),
+  const save = form.handleSubmit((input) => {
+    setFormError(undefined);
+    create.mutate(input, {
+      onSuccess: () => form.reset(EMPTY),
+      onError: (e) => setFormError(applyServerErrors(e, form.setError, FIELDS)),
     });
-  };
+  });
 
   return (
     <Card>
@@ -48,18 +54,19 @@ export function ContainersPanel({ profileId }: { profileId: number }) {
           <Button variant="quiet" label={`Remove ${c.name}`} onPress={() => remove.mutate(c.id)} />
         </View>
       ))}
-      <ChoiceGroup
+      <FormChoiceGroup
+        control={form.control}
+        name="kind"
         label="Kind"
-        value={kind}
-        onChange={setKind}
         choices={[
           { value: 'container', label: 'Container or jar' },
           { value: 'pot', label: 'Cooking pot' },
         ]}
       />
-      <TextField label="Name" value={name} onChangeText={setName} error={errors.name} placeholder="e.g. Glass jar with blue lid" />
-      <TextField label="Empty weight" unit="g" keyboardType="decimal-pad" value={tare} onChangeText={setTare} error={errors.tareGrams} />
-      <Button variant="secondary" label="Save container" loading={create.isPending} onPress={save} />
+      <FormTextField control={form.control} name="name" label="Name" placeholder="e.g. Glass jar with blue lid" />
+      <FormTextField control={form.control} name="tareGrams" label="Empty weight" unit="g" keyboardType="decimal-pad" />
+      {formError ? <Callout tone="danger">{formError}</Callout> : null}
+      <Button variant="secondary" label="Save container" loading={create.isPending} onPress={() => void save()} />
     </Card>
   );
 }

@@ -1,112 +1,114 @@
+import { zodResolver } from '@hookform/resolvers/zod';
 import { router } from 'expo-router';
 import { useEffect, useMemo, useState } from 'react';
+import { useForm, useWatch, type FieldErrors } from 'react-hook-form';
 import { StyleSheet, View } from 'react-native';
 import { defaultUseBy, regionForLocale } from '../../shared/compute/use-by';
+import type { CreateBatchParsed } from '../../shared/schemas/batch';
 import type { RecipeDetail } from '../../shared/schemas/recipe';
 import { useActiveProfile } from '../api/auth';
+import { useCreateBatch } from '../api/batches';
 import { ApiError } from '../api/client';
+import { useContainers } from '../api/containers';
+import { useRecipe } from '../api/recipes';
 import { Button } from '../ui/button';
+import { applyServerErrors } from '../ui/form-errors';
+import { FormTextField } from '../ui/form-text-field';
 import { Screen } from '../ui/screen';
 import { ErrorState, LoadingState } from '../ui/states';
 import { Text } from '../ui/text';
-import { TextField } from '../ui/text-field';
+import { cookFieldOf, cookFormSchema, stepOfField, type CookStep } from './batch-request';
 import { CookedWeightStep } from './cooked-weight-step';
-import { num, previewBatch, stepOfField, toCreateInput, type CookState } from './cook-state';
+import { cookFormDefaults, cookStarted, hasRice, num, plannedLines, previewBatch, type CookFormValues, type CookLine } from './cook-state';
 import { localToday } from './kitchen-format';
-import { useContainers, useCreateBatch, useRecipeToCook } from './kitchen-queries';
 import { SplitStep } from './split-step';
 import { StorageStep } from './storage-step';
 import { WeighingStep } from './weighing-step';
 
-type Step = 'weigh' | 'cooked' | 'split' | 'store';
-const STEPS: { key: Step; label: string }[] = [
+export type CookForm = ReturnType<typeof useForm<CookFormValues, unknown, CreateBatchParsed>>;
+
+const STEPS: { key: CookStep; label: string }[] = [
   { key: 'weigh', label: '1 Weigh' },
   { key: 'cooked', label: '2 Pot' },
   { key: 'split', label: '3 Split' },
   { key: 'store', label: '4 Store' },
 ];
 
-function initialState(recipe: RecipeDetail, factor: number): CookState {
-  const today = localToday();
-  const region = regionForLocale(typeof navigator === 'undefined' ? undefined : navigator.language);
-  return {
-    lines: recipe.ingredients.map((i) => ({
-      foodId: i.foodId,
-      foodName: i.food.name,
-      per100g: i.food.per100g,
-      plannedGrams: i.grams * factor,
-      reading: '',
-      omitted: false,
-      swappedFrom: null,
-    })),
-    pot: { containerId: null, tare: '', gross: '' },
-    splitMode: 'weighed',
-    count: String(recipe.defaultPortions),
-    jars: [{ containerId: null, tare: '', gross: '' }],
-    storage: 'fridge',
-    region,
-    cookedOn: today,
-    useBy: defaultUseBy(today, 'fridge', region).useBy,
-  };
+/** The first field with an error, as a dotted path ("lines.2.reading"). */
+function firstError(errors: FieldErrors, prefix = ''): string | undefined {
+  for (const [key, value] of Object.entries(errors)) {
+    if (!value) continue;
+    const path = prefix ? `${prefix}.${key}` : key;
+    if (typeof value === 'object' && 'message' in value && value.message) return path;
+    const inner = typeof value === 'object' ? firstError(value as FieldErrors, path) : undefined;
+    if (inner) return inner;
+  }
+  return undefined;
 }
 
-/** Cooking a batch from a recipe: weighing checklist, cooked pot, split, storage; saved in one go. */
+/** Cooking a batch from a recipe: weighing checklist, cooked pot, split, storage; one form, saved in one go. */
 export function CookBatchScreen({ recipeId }: { recipeId: number }) {
   const { profile } = useActiveProfile();
-  const recipe = useRecipeToCook(recipeId, profile?.id);
-  const containers = useContainers(profile?.id);
-  const create = useCreateBatch(profile?.id);
-  const [factorText, setFactorText] = useState('1');
-  const [state, setState] = useState<CookState | null>(null);
-  const [step, setStep] = useState<Step>('weigh');
-  const [index, setIndex] = useState(0);
-  const [errors, setErrors] = useState<Record<string, string>>({});
-  const [formError, setFormError] = useState<string>();
-  const factor = num(factorText);
-  const started = state != null && state.lines.some((l) => l.reading !== '' || l.omitted);
-
-  useEffect(() => {
-    if (recipe.data && !started && factor != null && factor > 0) setState(initialState(recipe.data, factor));
-    // Re-plan only while nothing has been weighed yet.
-    // eslint-disable-next-line react-hooks/exhaustive-deps
-  }, [recipe.data, factor]);
-
-  const basis = profile?.carbBasis ?? 'available';
-  const unit = profile?.carbUnit ?? 'g';
-  const batch = useMemo(() => (state ? previewBatch(state, basis) : null), [state, basis]);
-
+  const recipe = useRecipe(recipeId, { profileId: profile?.id }, !!profile);
   if (recipe.isPending || !profile) return <LoadingState />;
   if (recipe.isError) return <ErrorState error={recipe.error} onRetry={recipe.refetch} />;
-  if (!state) return <LoadingState />;
+  return <CookBatch recipe={recipe.data} profileId={profile.id} basis={profile.carbBasis} unit={profile.carbUnit} />;
+}
 
-  const patch = (p: Partial<CookState>) => setState({ ...state, ...p });
-  const all = containers.data ?? [];
-  const containsRice = state.lines.some((l) => !l.omitted && /\brice\b/i.test(l.foodName));
+type Props = { recipe: RecipeDetail; profileId: number; basis: 'available' | 'total'; unit: Parameters<typeof SplitStep>[0]['unit'] };
 
-  const save = () => {
-    setFormError(undefined);
-    setErrors({});
-    create.mutate(toCreateInput(recipeId, factor ?? 1, state), {
-      onSuccess: (saved) => router.replace(`/kitchen/batches/${saved.id}` as never),
-      onError: (error) => {
-        if (error instanceof ApiError && error.fieldErrors) {
-          const flat = Object.fromEntries(Object.entries(error.fieldErrors).map(([k, v]) => [k, v[0]]));
-          setErrors(flat);
-          const first = Object.keys(flat)[0];
-          setFormError(Object.values(flat).join(' '));
-          if (first) {
-            setStep(stepOfField(first));
-            const line = /^ingredients\.(\d+)/.exec(first);
-            if (line) setIndex(Number(line[1]));
-          }
-        } else setFormError(error instanceof Error ? error.message : 'Saving failed. Please try again.');
-      },
+function CookBatch({ recipe, profileId, basis, unit }: Props) {
+  const containers = useContainers(profileId);
+  const create = useCreateBatch(profileId);
+  const [defaults] = useState(() => cookFormDefaults(recipe, localToday(), regionForLocale(typeof navigator === 'undefined' ? undefined : navigator.language)));
+  const form: CookForm = useForm<CookFormValues, unknown, CreateBatchParsed>({ resolver: zodResolver(cookFormSchema), defaultValues: defaults });
+  const [step, setStep] = useState<CookStep>('weigh');
+  const [index, setIndex] = useState(0);
+  const [formError, setFormError] = useState<string>();
+  const [factorText, lines, pot] = useWatch({ control: form.control, name: ['factor', 'lines', 'pot'] });
+  const factor = num(factorText);
+  const started = cookStarted(lines);
+
+  // Re-plan from the recipe (also after it was edited elsewhere) and the scale factor, only while nothing is weighed.
+  useEffect(() => {
+    if (!cookStarted(form.getValues('lines')) && factor != null && factor > 0) form.setValue('lines', plannedLines(recipe, factor));
+  }, [recipe, factor, form]);
+  // A new cooking date, storage or advice region puts the use-by date back to the advice's default.
+  useEffect(() => {
+    const sub = form.watch((v, { name }) => {
+      if ((name === 'cookedOn' || name === 'storage' || name === 'region') && /^\d{4}-\d{2}-\d{2}$/.test(v.cookedOn ?? '')) {
+        form.setValue('useBy', defaultUseBy(v.cookedOn!, v.storage ?? 'fridge', v.region ?? 'uk', hasRice((v.lines ?? []) as CookLine[])).useBy);
+      }
     });
-  };
+    return () => sub.unsubscribe();
+  }, [form]);
 
-  const lineError = errors[`ingredients.${index}.actualGrams`] ?? errors[`ingredients.${index}.foodId`];
+  const batch = useMemo(() => previewBatch({ lines, pot }, basis), [lines, pot, basis]);
+  const all = containers.data ?? [];
+  const containsRice = hasRice(lines);
+
+  const showError = (field: string | undefined) => {
+    if (!field) return;
+    setStep(stepOfField(field));
+    const line = /^lines\.(\d+)/.exec(field);
+    if (line) setIndex(Number(line[1]));
+  };
+  const save = form.handleSubmit(
+    (input) => {
+      setFormError(undefined);
+      create.mutate(input, {
+        onSuccess: (saved) => router.replace(`/kitchen/batches/${saved.id}`),
+        onError: (error) => {
+          setFormError(applyServerErrors(error, form.setError, cookFieldOf));
+          if (error instanceof ApiError) showError(cookFieldOf(Object.keys(error.fieldErrors ?? {})[0] ?? ''));
+        },
+      });
+    },
+    (errors) => showError(firstError(errors)),
+  );
+
   return (
-    <Screen title={`Cook: ${recipe.data.title}`} subtitle="Weigh as you go; the numbers come from what you weighed." backHref="/kitchen">
+    <Screen title={`Cook: ${recipe.title}`} subtitle="Weigh as you go; the numbers come from what you weighed." backHref="/kitchen">
       <View style={styles.steps} role="tablist" aria-label="Steps">
         {STEPS.map((s) => (
           <Text key={s.key} role="tab" aria-selected={s.key === step} variant="label" color={s.key === step ? 'primary' : 'textMuted'} weight={s.key === step ? 'bold' : 'regular'}>
@@ -117,55 +119,19 @@ export function CookBatchScreen({ recipeId }: { recipeId: number }) {
       </View>
       {step === 'weigh' && !started ? (
         <View style={styles.scale}>
-          <TextField label="Scale the recipe" unit="×" keyboardType="decimal-pad" value={factorText} onChangeText={setFactorText} hint="1 = as written; 2 = double. Set this before weighing." />
-          <Button variant="quiet" label="Kitchen" onPress={() => router.replace('/kitchen' as never)} />
+          <FormTextField control={form.control} name="factor" label="Scale the recipe" unit="×" keyboardType="decimal-pad" hint="1 = as written; 2 = double. Set this before weighing." />
+          <Button variant="quiet" label="Kitchen" onPress={() => router.replace('/kitchen')} />
         </View>
       ) : null}
-      {step === 'weigh' ? (
-        <WeighingStep
-          lines={state.lines}
-          index={index}
-          onIndex={setIndex}
-          onChange={(i, line) => patch({ lines: state.lines.map((l, k) => (k === i ? line : l)) })}
-          onDone={() => setStep('cooked')}
-          error={lineError}
-        />
-      ) : null}
+      {step === 'weigh' ? <WeighingStep form={form} index={index} onIndex={setIndex} onDone={() => setStep('cooked')} /> : null}
       {step === 'cooked' ? (
-        <CookedWeightStep
-          pot={state.pot}
-          pots={all.filter((c) => c.kind === 'pot')}
-          onChange={(pot) => patch({ pot })}
-          batch={batch}
-          unit={unit}
-          errors={errors}
-          onBack={() => setStep('weigh')}
-          onDone={() => setStep('split')}
-        />
+        <CookedWeightStep form={form} pots={all.filter((c) => c.kind === 'pot')} batch={batch} unit={unit} onBack={() => setStep('weigh')} onDone={() => setStep('split')} />
       ) : null}
       {step === 'split' && batch ? (
-        <SplitStep
-          state={state}
-          containers={all.filter((c) => c.kind === 'container')}
-          batch={batch}
-          unit={unit}
-          errors={errors}
-          onChange={patch}
-          onBack={() => setStep('cooked')}
-          onDone={() => setStep('store')}
-        />
+        <SplitStep form={form} containers={all.filter((c) => c.kind === 'container')} batch={batch} unit={unit} onBack={() => setStep('cooked')} onDone={() => setStep('store')} />
       ) : null}
       {step === 'store' ? (
-        <StorageStep
-          state={state}
-          containsRice={containsRice}
-          errors={errors}
-          formError={formError}
-          saving={create.isPending}
-          onChange={patch}
-          onBack={() => setStep('split')}
-          onSave={save}
-        />
+        <StorageStep form={form} containsRice={containsRice} formError={formError} saving={create.isPending} onBack={() => setStep('split')} onSave={() => void save()} />
       ) : null}
     </Screen>
   );

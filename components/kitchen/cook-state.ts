@@ -1,6 +1,7 @@
 import { computeBatch, gramsLeftToSplit, weighedPortionCarb, type BatchComputation } from '../../shared/compute/batch';
 import type { Nutrients } from '../../shared/compute/nutrients';
-import type { CreateBatchInput } from '../../shared/schemas/batch';
+import { defaultUseBy } from '../../shared/compute/use-by';
+import type { RecipeDetail } from '../../shared/schemas/recipe';
 import type { CarbBasis } from '../../shared/schemas/units';
 
 /** One line of the weighing checklist while cooking. */
@@ -14,20 +15,26 @@ export type CookLine = {
   swappedFrom: { foodId: number; foodName: string } | null;
 };
 
-/** A scale reading of something in a container, as typed. */
-export type Weighing = { containerId: number | null; tare: string; gross: string };
+/** A scale reading of something in a container, as typed; containerId is a saved container's id, '' for another. */
+export type Weighing = { containerId: string; tare: string; gross: string };
 
-export type CookState = {
+/** The whole cook as one form: the weighing checklist, the pot, the portions, storage. */
+export type CookFormValues = {
+  recipeId: number;
+  factor: string;
   lines: CookLine[];
   pot: Weighing;
   splitMode: 'equal' | 'weighed';
   count: string;
-  jars: Weighing[];
+  /** Weighed portions, one container each. */
+  portions: Weighing[];
   storage: 'fridge' | 'freezer';
   region: 'uk' | 'us';
   cookedOn: string;
   useBy: string;
 };
+
+export const EMPTY_WEIGHING: Weighing = { containerId: '', tare: '', gross: '' };
 
 /** A typed number, or null when it is empty or not a number. */
 export function num(text: string): number | null {
@@ -37,6 +44,42 @@ export function num(text: string): number | null {
   return Number.isFinite(n) ? n : null;
 }
 
+/** The checklist of a recipe at a scale factor (nothing weighed yet). */
+export function plannedLines(recipe: RecipeDetail, factor: number): CookLine[] {
+  return recipe.ingredients.map((i) => ({
+    foodId: i.foodId,
+    foodName: i.food.name,
+    per100g: i.food.per100g,
+    plannedGrams: i.grams * factor,
+    reading: '',
+    omitted: false,
+    swappedFrom: null,
+  }));
+}
+
+/** The starting values of a cook of `recipe` on `today` (YYYY-MM-DD), with the food-safety advice of `region`. */
+export function cookFormDefaults(recipe: RecipeDetail, today: string, region: 'uk' | 'us'): CookFormValues {
+  return {
+    recipeId: recipe.id,
+    factor: '1',
+    lines: plannedLines(recipe, 1),
+    pot: EMPTY_WEIGHING,
+    splitMode: 'weighed',
+    count: String(recipe.defaultPortions),
+    portions: [EMPTY_WEIGHING],
+    storage: 'fridge',
+    region,
+    cookedOn: today,
+    useBy: defaultUseBy(today, 'fridge', region).useBy,
+  };
+}
+
+/** Whether a rice ingredient is in the pot (the use-by advice is shorter for cooked rice). */
+export const hasRice = (lines: Partial<CookLine>[]) => lines.some((l) => l && !l.omitted && /\brice\b/i.test(l.foodName ?? ''));
+
+/** True once anything has been weighed or left out (the plan is then fixed). */
+export const cookStarted = (lines: CookLine[]) => lines.some((l) => l.reading !== '' || l.omitted);
+
 /** Net grams of a weighing, or null until both numbers are sensible. */
 export function netOf(w: Weighing): number | null {
   const gross = num(w.gross);
@@ -45,9 +88,9 @@ export function netOf(w: Weighing): number | null {
 }
 
 /** The batch arithmetic for what is typed so far (same shared functions as the server), or null. */
-export function previewBatch(state: CookState, basis: CarbBasis): BatchComputation | null {
-  const cooked = netOf(state.pot);
-  const lines = state.lines.map((l) => ({ per100g: l.per100g, actualGrams: num(l.reading) ?? 0, omitted: l.omitted }));
+export function previewBatch(v: Pick<CookFormValues, 'lines' | 'pot'>, basis: CarbBasis): BatchComputation | null {
+  const cooked = netOf(v.pot);
+  const lines = v.lines.map((l) => ({ per100g: l.per100g, actualGrams: num(l.reading) ?? 0, omitted: l.omitted }));
   if (cooked == null) return null;
   try {
     return computeBatch(lines, cooked, basis);
@@ -56,39 +99,9 @@ export function previewBatch(state: CookState, basis: CarbBasis): BatchComputati
   }
 }
 
-/** Grams not yet put into jars, and each jar's carbohydrate (g) so far. */
-export function previewJars(state: CookState, batch: BatchComputation | null) {
-  const nets = state.jars.map(netOf);
+/** Grams not yet put into containers, and each weighed portion's carbohydrate (g) so far. */
+export function previewPortions(portions: Weighing[], batch: BatchComputation | null) {
+  const nets = portions.map(netOf);
   const left = batch ? gramsLeftToSplit(batch.cookedGrams, nets.map((n) => n ?? 0)) : null;
   return { nets, left, carbs: nets.map((n) => (n == null || !batch ? null : weighedPortionCarb(batch.carbPer100g, n))) };
-}
-
-/** The request body the server validates (it re-checks everything and computes the numbers it stores). */
-export function toCreateInput(recipeId: number, scaleFactor: number, s: CookState): CreateBatchInput {
-  const weighing = (w: Weighing) => ({ containerId: w.containerId, grossGrams: num(w.gross) ?? 0, tareGrams: num(w.tare) ?? 0 });
-  return {
-    recipeId,
-    scaleFactor,
-    cookedOn: s.cookedOn,
-    storage: s.storage,
-    region: s.region,
-    useBy: s.useBy || null,
-    ingredients: s.lines.map((l) => ({
-      foodId: l.foodId,
-      plannedGrams: l.plannedGrams,
-      actualGrams: l.omitted ? null : num(l.reading),
-      omitted: l.omitted,
-      swappedFromFoodId: l.swappedFrom?.foodId ?? null,
-    })),
-    cookedWeight: weighing(s.pot),
-    split: s.splitMode === 'equal' ? { mode: 'equal', count: num(s.count) ?? 0 } : { mode: 'weighed', portions: s.jars.map(weighing) },
-  };
-}
-
-/** Which step a server field error belongs to. */
-export function stepOfField(field: string): 'weigh' | 'cooked' | 'split' | 'store' {
-  if (field.startsWith('ingredients') || field === 'recipeId') return 'weigh';
-  if (field.startsWith('cookedWeight')) return 'cooked';
-  if (field.startsWith('split')) return 'split';
-  return 'store';
 }

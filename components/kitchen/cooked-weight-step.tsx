@@ -1,3 +1,4 @@
+import { useWatch } from 'react-hook-form';
 import { StyleSheet, View } from 'react-native';
 import type { BatchComputation } from '../../shared/compute/batch';
 import type { Container } from '../../shared/schemas/container';
@@ -5,43 +6,48 @@ import type { CarbUnit } from '../../shared/schemas/units';
 import { Button } from '../ui/button';
 import { Callout } from '../ui/callout';
 import { Card } from '../ui/card';
+import { FormChoiceGroup } from '../ui/form-choice-group';
+import { FormTextField } from '../ui/form-text-field';
 import { Text } from '../ui/text';
-import { TextField } from '../ui/text-field';
-import { ChoiceGroup } from '../ui/choice-group';
-import { netOf, type Weighing } from './cook-state';
+import type { CookForm } from './cook-batch-screen';
+import { netOf } from './cook-state';
 import { carbText, gramsText } from './kitchen-format';
 
 type Props = {
-  pot: Weighing;
+  form: CookForm;
   pots: Container[];
-  onChange: (pot: Weighing) => void;
   batch: BatchComputation | null;
   unit: CarbUnit;
-  errors: Record<string, string>;
   onBack: () => void;
   onDone: () => void;
 };
 
+/** Choices of saved containers ("Big pot (1450 g)") plus "another"; choosing one fills in its tare. */
+export function containerChoices(containers: Container[], other: string) {
+  return [...containers.map((c) => ({ value: String(c.id), label: `${c.name} (${gramsText(c.tareGrams)})` })), { value: '', label: other }];
+}
+
 /** The cooked weight: the pot's gross weight on the scale minus the pot's tare. */
-export function CookedWeightStep({ pot, pots, onChange, batch, unit, errors, onBack, onDone }: Props) {
-  const net = netOf(pot);
+export function CookedWeightStep({ form, pots, batch, unit, onBack, onDone }: Props) {
+  const net = netOf(useWatch({ control: form.control, name: 'pot' }));
   return (
     <Card aria-label="Cooked weight">
       <Text variant="heading">Weigh the cooked pot</Text>
       <Text color="textMuted">Put the whole pot on the scale (without the lid unless you weighed the lid too).</Text>
       {pots.length ? (
-        <ChoiceGroup
+        <FormChoiceGroup
+          control={form.control}
+          name="pot.containerId"
           label="Which pot"
-          value={String(pot.containerId ?? 'other')}
-          onChange={(v) => {
-            const chosen = pots.find((p) => String(p.id) === v);
-            onChange({ ...pot, containerId: chosen?.id ?? null, tare: chosen ? String(chosen.tareGrams) : pot.tare });
+          choices={containerChoices(pots, 'Another pot')}
+          onChosen={(id) => {
+            const chosen = pots.find((p) => String(p.id) === id);
+            if (chosen) form.setValue('pot.tare', String(chosen.tareGrams));
           }}
-          choices={[...pots.map((p) => ({ value: String(p.id), label: `${p.name} (${gramsText(p.tareGrams)})` })), { value: 'other', label: 'Another pot' }]}
         />
       ) : null}
-      <TextField label="Empty pot (tare)" unit="g" keyboardType="decimal-pad" value={pot.tare} onChangeText={(tare) => onChange({ ...pot, tare })} error={errors['cookedWeight.tareGrams']} />
-      <TextField label="Pot with the food (gross)" unit="g" keyboardType="decimal-pad" value={pot.gross} onChangeText={(gross) => onChange({ ...pot, gross })} error={errors['cookedWeight.grossGrams']} />
+      <FormTextField control={form.control} name="pot.tare" label="Empty pot (tare)" unit="g" keyboardType="decimal-pad" />
+      <FormTextField control={form.control} name="pot.gross" label="Pot with the food (gross)" unit="g" keyboardType="decimal-pad" />
       {net == null ? (
         <Callout tone="caution" title="Not yet">
           Enter the gross weight; the empty pot must weigh less than the full one.

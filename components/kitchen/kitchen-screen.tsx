@@ -13,7 +13,7 @@ import { TextField } from '../ui/text-field';
 import { BatchCard } from './batch-card';
 import { ContainersPanel } from './containers-panel';
 import { localToday } from './kitchen-format';
-import { useBatches } from './kitchen-queries';
+import { useBatches } from '../api/batches';
 
 /** The kitchen: what is in the fridge and freezer by batch, cooking a new batch, and the saved containers. */
 export function KitchenScreen() {
@@ -29,7 +29,7 @@ export function KitchenScreen() {
     const normal = normalizePortionCode(code);
     if (!normal) return setCodeError('A portion code has 6 letters and digits, like K7M-Q4P.');
     setCodeError(undefined);
-    router.push(`/portions/${normal}` as never);
+    router.push(`/portions/${normal}`);
   };
 
   const shown = (batches.data ?? []).filter((b) => show === 'all' || b.counts.available > 0);
@@ -50,7 +50,7 @@ export function KitchenScreen() {
     <Screen
       title="Kitchen"
       subtitle="Cook a batch by weight and split it into labelled portions."
-      actions={<Button label="Cook a batch" size="lg" onPress={() => router.push('/kitchen/batches/new' as never)} />}
+      actions={<Button label="Cook a batch" size="lg" onPress={() => router.push('/kitchen/batches/new')} />}
     >
       <View style={isWide ? styles.columns : styles.stack}>
         <View style={[styles.stack, isWide && styles.main]}>

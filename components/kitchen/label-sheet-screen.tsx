@@ -9,7 +9,7 @@ import { Screen } from '../ui/screen';
 import { ErrorState, LoadingState } from '../ui/states';
 import { Text } from '../ui/text';
 import { shortDate } from './kitchen-format';
-import { useLabelSheet } from './kitchen-queries';
+import { useLabelSheet } from '../api/batches';
 import { canPrint, printPage, usePrintStyles } from './print';
 
 const hideInPrint = { dataSet: { print: 'hide' } } as object;
@@ -27,7 +27,7 @@ export function LabelSheetScreen({ id }: { id: number }) {
   return (
     <Screen>
       <View style={styles.head} {...hideInPrint}>
-        <Button variant="quiet" label="‹ Back to the batch" onPress={() => (router.canGoBack() ? router.back() : router.replace(`/kitchen/batches/${id}` as never))} />
+        <Button variant="quiet" label="‹ Back to the batch" onPress={() => (router.canGoBack() ? router.back() : router.replace(`/kitchen/batches/${id}`))} />
         <Text variant="title" aria-level={1}>
           Labels: {s.recipeTitle}
         </Text>

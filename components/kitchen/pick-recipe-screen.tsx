@@ -7,12 +7,12 @@ import { Screen } from '../ui/screen';
 import { EmptyState, ErrorState, LoadingState } from '../ui/states';
 import { Text } from '../ui/text';
 import { TextField } from '../ui/text-field';
-import { useRecipesToCook } from './kitchen-queries';
+import { useCookableRecipes } from '../api/recipes';
 
 /** Choose the recipe to cook: your own, shared with you, or public. */
 export function PickRecipeScreen() {
   const { profile } = useActiveProfile();
-  const recipes = useRecipesToCook(profile?.id);
+  const recipes = useCookableRecipes(profile?.id);
   const [q, setQ] = useState('');
   const needle = q.trim().toLowerCase();
   const list = (recipes.data ?? []).filter((r) => !needle || r.title.toLowerCase().includes(needle));
@@ -24,7 +24,7 @@ export function PickRecipeScreen() {
       ) : recipes.isError ? (
         <ErrorState error={recipes.error} onRetry={recipes.refetch} />
       ) : list.length === 0 ? (
-        <EmptyState title="No recipe to cook" action={<Button label="Go to recipes" onPress={() => router.push('/recipes' as never)} />}>
+        <EmptyState title="No recipe to cook" action={<Button label="Go to recipes" onPress={() => router.push('/recipes')} />}>
           Write a recipe with weighed ingredients first, or copy one from the public library.
         </EmptyState>
       ) : (
@@ -34,7 +34,7 @@ export function PickRecipeScreen() {
             <Text color="textMuted">
               {r.isOwner ? 'Yours' : `From ${r.owner.displayName}`} · {r.defaultPortions} portions
             </Text>
-            <Button label={`Cook ${r.title}`} onPress={() => router.push(`/kitchen/cook/${r.id}` as never)} />
+            <Button label={`Cook ${r.title}`} onPress={() => router.push(`/kitchen/cook/${r.id}`)} />
           </Card>
         ))
       )}

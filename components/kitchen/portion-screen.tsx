@@ -9,7 +9,7 @@ import { ErrorState, LoadingState } from '../ui/states';
 import { Text } from '../ui/text';
 import { Figure } from './cooked-weight-step';
 import { carbText, gramsText, localToday, shelfStatus, shortDate } from './kitchen-format';
-import { usePortion, useSetPortionStatus } from './kitchen-queries';
+import { usePortion, useSetPortionStatus } from '../api/portions';
 import { doseCheckHref } from '../dose/dose-href';
 
 /** The page a label's QR code opens: the portion's numbers, its dates, and what to do with it. */
@@ -58,7 +58,7 @@ export function PortionScreen({ code }: { code: string }) {
       )}
       {p.status === 'available' ? (
         <Card>
-          <Button size="lg" label="Check a dose for this" onPress={() => router.push(doseHref as never)} />
+          <Button size="lg" label="Check a dose for this" onPress={() => router.push(doseHref)} />
           <Text variant="caption" color="textMuted">
             A dose check is a calculation from your own settings, not medical advice; your diabetes team sets the ratios.
           </Text>
@@ -69,7 +69,7 @@ export function PortionScreen({ code }: { code: string }) {
           </View>
         </Card>
       ) : null}
-      {p.recipeId ? <Button variant="quiet" label="Open the batch" onPress={() => router.push(`/kitchen/batches/${p.batchId}` as never)} /> : null}
+      {p.recipeId ? <Button variant="quiet" label="Open the batch" onPress={() => router.push(`/kitchen/batches/${p.batchId}`)} /> : null}
     </Screen>
   );
 }

@@ -1,60 +1,54 @@
+import { useWatch } from 'react-hook-form';
 import { StyleSheet, View } from 'react-native';
 import { defaultUseBy } from '../../shared/compute/use-by';
 import { Button } from '../ui/button';
 import { Callout } from '../ui/callout';
 import { Card } from '../ui/card';
+import { FormChoiceGroup } from '../ui/form-choice-group';
+import { FormTextField } from '../ui/form-text-field';
 import { Text } from '../ui/text';
-import { TextField } from '../ui/text-field';
-import { ChoiceGroup } from '../ui/choice-group';
-import type { CookState } from './cook-state';
+import type { CookForm } from './cook-batch-screen';
 
 type Props = {
-  state: CookState;
+  form: CookForm;
   containsRice: boolean;
-  errors: Record<string, string>;
   formError?: string;
   saving: boolean;
-  onChange: (patch: Partial<CookState>) => void;
   onBack: () => void;
   onSave: () => void;
 };
 
 /** Fridge or freezer, the cooking date, and a use-by date defaulted from food-safety advice (editable, source shown). */
-export function StorageStep({ state, containsRice, errors, formError, saving, onChange, onBack, onSave }: Props) {
-  const validDate = /^\d{4}-\d{2}-\d{2}$/.test(state.cookedOn);
-  const rule = validDate ? defaultUseBy(state.cookedOn, state.storage, state.region, containsRice) : null;
-  const reset = (patch: Partial<CookState>) => {
-    const next = { ...state, ...patch };
-    const r = /^\d{4}-\d{2}-\d{2}$/.test(next.cookedOn) ? defaultUseBy(next.cookedOn, next.storage, next.region, containsRice) : null;
-    onChange({ ...patch, useBy: r?.useBy ?? next.useBy });
-  };
+export function StorageStep({ form, containsRice, formError, saving, onBack, onSave }: Props) {
+  const { control } = form;
+  const [cookedOn, storage, region] = useWatch({ control, name: ['cookedOn', 'storage', 'region'] });
+  const rule = /^\d{4}-\d{2}-\d{2}$/.test(cookedOn) ? defaultUseBy(cookedOn, storage, region, containsRice) : null;
   return (
     <Card aria-label="Storage">
       <Text variant="heading">Storage and use-by</Text>
-      <ChoiceGroup
+      <FormChoiceGroup
+        control={control}
+        name="storage"
         label="Where it goes"
-        value={state.storage}
-        onChange={(storage) => reset({ storage })}
         choices={[
           { value: 'fridge', label: 'Fridge' },
           { value: 'freezer', label: 'Freezer' },
         ]}
       />
-      <ChoiceGroup
+      <FormChoiceGroup
+        control={control}
+        name="region"
         label="Food-safety advice to follow"
-        value={state.region}
-        onChange={(region) => reset({ region })}
         choices={[
           { value: 'uk', label: 'UK (Food Standards Agency)' },
           { value: 'us', label: 'US (USDA)' },
         ]}
       />
-      <TextField label="Cooked on" value={state.cookedOn} onChangeText={(cookedOn) => reset({ cookedOn })} error={errors.cookedOn} placeholder="YYYY-MM-DD" />
-      <TextField
+      <FormTextField control={control} name="cookedOn" label="Cooked on" placeholder="YYYY-MM-DD" />
+      <FormTextField
+        control={control}
+        name="useBy"
         label="Use by"
-        value={state.useBy}
-        onChangeText={(useBy) => onChange({ useBy })}
-        error={errors.useBy}
         placeholder="YYYY-MM-DD"
         hint={rule ? `Default ${rule.useBy} — ${rule.source}. ${rule.note}` : undefined}
       />

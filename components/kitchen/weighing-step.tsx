@@ -6,25 +6,28 @@ import { Button } from '../ui/button';
 import { Callout } from '../ui/callout';
 import { Card } from '../ui/card';
 import { Text } from '../ui/text';
-import { TextField } from '../ui/text-field';
-import { num, type CookLine } from './cook-state';
+import { useFormState, useWatch } from 'react-hook-form';
+import { FormTextField } from '../ui/form-text-field';
+import type { CookForm } from './cook-batch-screen';
+import { num } from './cook-state';
 import { gramsText } from './kitchen-format';
-import { useFoodSearch } from './kitchen-queries';
+import { FoodSearchField } from '../foods/food-search-field';
 
 type Props = {
-  lines: CookLine[];
+  form: CookForm;
   index: number;
   onIndex: (i: number) => void;
-  onChange: (i: number, line: CookLine) => void;
   onDone: () => void;
-  error?: string;
 };
 
 /** The weighing checklist: one ingredient at a time, planned grams, the scale reading, the difference. */
-export function WeighingStep({ lines, index, onIndex, onChange, onDone, error }: Props) {
+export function WeighingStep({ form, index, onIndex, onDone }: Props) {
   const t = useTheme();
   const [swapping, setSwapping] = useState(false);
+  const lines = useWatch({ control: form.control, name: 'lines' });
   const line = lines[index];
+  const { errors } = useFormState({ control: form.control, name: 'lines' });
+  const linesError = errors.lines?.message ?? errors.lines?.root?.message;
   const reading = num(line.reading);
   const diff = reading == null ? null : weighingDifference(line.plannedGrams, reading);
   const last = index === lines.length - 1;
@@ -57,19 +60,20 @@ export function WeighingStep({ lines, index, onIndex, onChange, onDone, error }:
             </View>
           ) : null}
         </View>
+        {linesError ? <Callout tone="danger">{linesError}</Callout> : null}
         {line.omitted ? (
           <Callout tone="info" title="Left out">
             This ingredient counts for nothing in the batch.
           </Callout>
         ) : (
-          <TextField
+          <FormTextField
+            key={index}
+            control={form.control}
+            name={`lines.${index}.reading`}
             label="Scale reading"
             unit="g"
             keyboardType="decimal-pad"
-            value={line.reading}
-            onChangeText={(reading) => onChange(index, { ...line, reading })}
             hint="Tare note: put the bowl on the scale and press tare first, so the scale shows only this ingredient."
-            error={error}
             style={styles.big}
             autoFocus
           />
@@ -78,14 +82,17 @@ export function WeighingStep({ lines, index, onIndex, onChange, onDone, error }:
           <Button
             variant="secondary"
             label={line.omitted ? 'Put it back in' : 'Leave it out'}
-            onPress={() => onChange(index, { ...line, omitted: !line.omitted })}
+            onPress={() => form.setValue(`lines.${index}.omitted`, !line.omitted, { shouldDirty: true })}
           />
           <Button variant="secondary" label={swapping ? 'Cancel swap' : 'Swap for another food'} onPress={() => setSwapping(!swapping)} />
         </View>
         {swapping ? (
-          <SwapSearch
+          <FoodSearchField
+            label="Search foods"
+            verb="Use"
+            placeholder="Type at least 2 letters"
             onPick={(food) => {
-              onChange(index, {
+              form.setValue(`lines.${index}`, {
                 ...line,
                 foodId: food.id,
                 foodName: food.name,
@@ -120,20 +127,6 @@ export function WeighingStep({ lines, index, onIndex, onChange, onDone, error }:
           );
         })}
       </View>
-    </View>
-  );
-}
-
-function SwapSearch({ onPick }: { onPick: (food: { id: number; name: string; per100g: CookLine['per100g'] }) => void }) {
-  const [q, setQ] = useState('');
-  const search = useFoodSearch(q);
-  return (
-    <View style={styles.stack}>
-      <TextField label="Search foods" value={q} onChangeText={setQ} placeholder="Type at least 2 letters" />
-      {search.isError ? <Text color="danger">The food search did not answer. Try again.</Text> : null}
-      {(search.data?.items ?? []).slice(0, 8).map((f) => (
-        <Button key={f.id} variant="secondary" label={f.name} onPress={() => onPick(f)} />
-      ))}
     </View>
   );
 }

@@ -44,7 +44,7 @@ export function MoreScreen() {
         description="Search carbohydrate per 100 g and per household measure, or add a food from a package label."
         links={[
           { href: '/foods', label: 'Food table' },
-          ...(user.role === 'admin' ? [{ href: '/admin/imports', label: 'Imports' }] : []),
+          ...(user.role === 'admin' ? [{ href: '/admin/imports' as const, label: 'Imports' }] : []),
         ]}
       />
       <LinkCard

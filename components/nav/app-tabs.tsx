@@ -1,4 +1,4 @@
-import { router, usePathname } from 'expo-router';
+import { router, usePathname, type Href } from 'expo-router';
 import { TabList, TabSlot, TabTrigger, Tabs, type TabTriggerSlotProps } from 'expo-router/ui';
 import { forwardRef } from 'react';
 import { Pressable, StyleSheet, View } from 'react-native';
@@ -7,7 +7,7 @@ import { Icon, type IconName } from '../ui/icon';
 import { Text } from '../ui/text';
 import { useLayout, useTheme } from '../theme/use-theme';
 
-export const TABS: { name: string; href: string; label: string; icon: IconName }[] = [
+export const TABS: { name: string; href: Extract<Href, string>; label: string; icon: IconName }[] = [
   { name: 'index', href: '/', label: 'Today', icon: 'today' },
   { name: 'recipes', href: '/recipes', label: 'Recipes', icon: 'recipes' },
   { name: 'kitchen', href: '/kitchen', label: 'Kitchen', icon: 'kitchen' },
@@ -69,13 +69,13 @@ export function AppTabs() {
           <TabTrigger
             key={tab.name}
             name={tab.name}
-            href={tab.href as never}
+            href={tab.href}
             asChild
             onPress={(e) => {
               // Tapping the tab you are in goes to its first page, also when the page was opened from another tab.
               if (tab.href === '/' || !pathname.startsWith(`${tab.href}/`)) return;
               e.preventDefault();
-              router.navigate(tab.href as never);
+              router.navigate(tab.href);
             }}
           >
             <TabButton label={tab.label} icon={tab.icon} wide={isWide} />

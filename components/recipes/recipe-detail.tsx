@@ -13,7 +13,7 @@ import { Text } from '../ui/text';
 import { PhotoPicker } from './photo-picker';
 import { BASIS_WORDS, VISIBILITY_WORDS, showCarb, showGrams } from './recipe-format';
 import { RecipePhoto } from './recipe-photo';
-import { useCopyRecipe, useDeleteRecipe, useRecipe, useUploadRecipePhoto, type RecipeView } from './recipe-queries';
+import { useCopyRecipe, useDeleteRecipe, useRecipe, useUploadRecipePhoto, type RecipeView } from '../api/recipes';
 import { SharePanel } from './share-panel';
 
 const SCALES = [
@@ -141,21 +141,21 @@ function RecipeBody({ recipe, factor, onScale }: { recipe: Detail; factor: numbe
       <View style={styles.row}>
         {recipe.isOwner ? (
           <>
-            <Button label="Edit" onPress={() => router.push(`/recipes/${recipe.id}/edit` as never)} />
+            <Button label="Edit" onPress={() => router.push(`/recipes/${recipe.id}/edit`)} />
             <PhotoPicker label={recipe.photo ? 'Change photo' : 'Add photo'} onPick={(file) => photo.mutate(file)} loading={photo.isPending} />
           </>
         ) : null}
-        <Button variant="secondary" label="Cook a batch" onPress={() => router.push(`/kitchen/cook/${recipe.id}` as never)} />
+        <Button variant="secondary" label="Cook a batch" onPress={() => router.push(`/kitchen/cook/${recipe.id}`)} />
         <Button
           variant="secondary"
           label={recipe.isOwner ? 'Duplicate' : 'Copy to my recipes'}
           loading={copy.isPending}
-          onPress={() => copy.mutate(recipe.id, { onSuccess: (made) => router.push(`/recipes/${made.id}` as never) })}
+          onPress={() => copy.mutate(recipe.id, { onSuccess: (made) => router.push(`/recipes/${made.id}`) })}
         />
         {recipe.isOwner ? (
           <Button variant="danger" label={confirmDelete ? 'Yes, delete it' : 'Delete'} onPress={() => {
             if (!confirmDelete) return setConfirmDelete(true);
-            remove.mutate(recipe.id, { onSuccess: () => router.replace('/recipes' as never) });
+            remove.mutate(recipe.id, { onSuccess: () => router.replace('/recipes') });
           }} />
         ) : null}
       </View>

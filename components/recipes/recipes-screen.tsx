@@ -14,7 +14,7 @@ import { TextField } from '../ui/text-field';
 import { RecipeDetailView } from './recipe-detail';
 import { showCarb } from './recipe-format';
 import { RecipePhoto } from './recipe-photo';
-import { useRecipes } from './recipe-queries';
+import { useRecipes } from '../api/recipes';
 
 const SCOPES: { value: RecipeScope; label: string }[] = [
   { value: 'mine', label: 'Mine' },
@@ -47,7 +47,7 @@ export function RecipesScreen() {
     if (!needle || !recipes.data) return recipes.data ?? [];
     return fuse.search(needle).map((r) => r.item).sort((a, b) => (recipes.data!.indexOf(a) - recipes.data!.indexOf(b)));
   }, [fuse, recipes.data, text]);
-  const open = (id: number) => (isWide ? setSelected(id) : router.push(`/recipes/${id}` as never));
+  const open = (id: number) => (isWide ? setSelected(id) : router.push(`/recipes/${id}`));
   const current = isWide ? (selected ?? shown[0]?.id) : undefined;
 
   const list = (
@@ -103,7 +103,7 @@ export function RecipesScreen() {
     <Screen
       title="Recipes"
       subtitle="Your library, recipes shared with you, and the public shelf."
-      actions={<Button label="New recipe" onPress={() => router.push('/recipes/new' as never)} />}
+      actions={<Button label="New recipe" onPress={() => router.push('/recipes/new')} />}
     >
       {isWide ? (
         <View style={styles.panes}>

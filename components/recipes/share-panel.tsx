@@ -1,46 +1,45 @@
-import { useState } from 'react';
+import { zodResolver } from '@hookform/resolvers/zod';
+import { useForm } from 'react-hook-form';
 import { StyleSheet, View } from 'react-native';
-import type { RecipeShare } from '../../shared/schemas/recipe';
-import { shareRecipeInputSchema } from '../../shared/schemas/recipe';
-import { ApiError } from '../api/client';
+import { shareRecipeInputSchema, type RecipeShare } from '../../shared/schemas/recipe';
 import { Button } from '../ui/button';
 import { Card } from '../ui/card';
+import { applyServerErrors } from '../ui/form-errors';
+import { FormTextField } from '../ui/form-text-field';
 import { Text } from '../ui/text';
-import { TextField } from '../ui/text-field';
-import { useRevokeShare, useShareRecipe } from './recipe-queries';
+import { useRevokeShare, useShareRecipe } from '../api/recipes';
 
 /** The owner's sharing panel: give the recipe to someone by email, see who has it, take it back. */
 export function SharePanel({ recipeId, shares }: { recipeId: number; shares: RecipeShare[] }) {
-  const [email, setEmail] = useState('');
-  const [error, setError] = useState<string>();
+  const form = useForm({ resolver: zodResolver(shareRecipeInputSchema), defaultValues: { email: '' } });
   const share = useShareRecipe(recipeId);
   const revoke = useRevokeShare(recipeId);
-  const submit = () => {
-    const parsed = shareRecipeInputSchema.safeParse({ email });
-    if (!parsed.success) return setError(parsed.error.issues[0]?.message);
-    setError(undefined);
-    share.mutate(parsed.data.email, {
-      onSuccess: () => setEmail(''),
-      onError: (err) => setError(err instanceof ApiError ? (err.fieldErrors?.email?.[0] ?? err.message) : 'Not shared. Please try again.'),
+  const submit = form.handleSubmit(({ email }) => {
+    share.mutate(email, {
+      onSuccess: () => form.reset({ email: '' }),
+      // A refusal that names no field (no such account) is still about the address: it goes under the field too.
+      onError: (err) => {
+        const rest = applyServerErrors(err, form.setError, ['email']);
+        if (rest) form.setError('email', { message: rest });
+      },
     });
-  };
+  });
   return (
     <Card>
       <Text variant="heading">Share</Text>
       <Text color="textMuted">People you share with can read this recipe and copy it into their own library. They cannot change yours.</Text>
       <View style={styles.row}>
         <View style={styles.grow}>
-          <TextField
+          <FormTextField
+            control={form.control}
+            name="email"
             label="Their email address"
-            value={email}
-            onChangeText={setEmail}
-            error={error}
             inputMode="email"
             autoCapitalize="none"
-            onSubmitEditing={submit}
+            onSubmitEditing={() => void submit()}
           />
         </View>
-        <Button label="Share" onPress={submit} loading={share.isPending} />
+        <Button label="Share" onPress={() => void submit()} loading={share.isPending} />
       </View>
       {shares.length ? (
         <View style={styles.list} role="list" aria-label="Shared with">

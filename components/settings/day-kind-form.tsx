@@ -1,5 +1,5 @@
 import { zodResolver } from '@hookform/resolvers/zod';
-import { Controller, useFieldArray, useForm, type UseFormReturn } from 'react-hook-form';
+import { useFieldArray, useForm, type UseFormReturn } from 'react-hook-form';
 import { StyleSheet, View } from 'react-native';
 import { dayKindInputSchema, type DayKindFormValues, type DayKindInput } from '../../shared/schemas/profile-settings';
 import { useLayout, useTheme } from '../theme/use-theme';
@@ -8,7 +8,7 @@ import { Callout } from '../ui/callout';
 import { Card } from '../ui/card';
 import { FormTextField } from '../ui/form-text-field';
 import { Text } from '../ui/text';
-import { ChoiceGroup } from '../ui/choice-group';
+import { FormChoiceGroup } from '../ui/form-choice-group';
 
 export type DayKindForm = UseFormReturn<DayKindFormValues, unknown, DayKindInput>;
 
@@ -39,18 +39,11 @@ export function DayKindForm({
       {formError ? <Callout tone="danger" title="Not saved">{formError}</Callout> : null}
       <Card>
         <FormTextField control={form.control} name="name" label="Name of this kind of day" placeholder="e.g. Rest, Long ride" />
-        <Controller
+        <FormChoiceGroup
           control={form.control}
           name="isDefault"
-          render={({ field, fieldState }) => (
-            <ChoiceGroup
-              label="Use on days with no other kind set"
-              choices={[{ value: true, label: 'Yes, the default' }, { value: false, label: 'No' }]}
-              value={field.value}
-              onChange={field.onChange}
-              error={fieldState.error?.message}
-            />
-          )}
+          label="Use on days with no other kind set"
+          choices={[{ value: true, label: 'Yes, the default' }, { value: false, label: 'No' }]}
         />
         <FormTextField
           control={form.control}

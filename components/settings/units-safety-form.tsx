@@ -17,6 +17,7 @@ import { Card } from '../ui/card';
 import { FormTextField } from '../ui/form-text-field';
 import { Text } from '../ui/text';
 import { ChoiceGroup } from '../ui/choice-group';
+import { FormChoiceGroup } from '../ui/form-choice-group';
 
 const GLUCOSE_FIELDS = ['targetLow', 'targetHigh', 'correctionTarget', 'hypoThreshold', 'veryHigh'] as const;
 export const SETTINGS_FIELDS: FieldPath<ProfileSettingsFormValues>[] = [
@@ -78,63 +79,38 @@ export function UnitsSafetyForm({
             />
           )}
         />
-        <Controller
+        <FormChoiceGroup
           control={form.control}
           name="carbBasis"
-          render={({ field }) => (
-            <ChoiceGroup
-              label="Carbohydrate you count"
-              choices={[{ value: 'available', label: 'Available (fibre not counted)' }, { value: 'total', label: 'Total (fibre included)' }]}
-              value={field.value}
-              onChange={field.onChange}
-            />
-          )}
+          label="Carbohydrate you count"
+          choices={[{ value: 'available', label: 'Available (fibre not counted)' }, { value: 'total', label: 'Total (fibre included)' }]}
         />
-        <Controller
+        <FormChoiceGroup
           control={form.control}
           name="carbUnit"
-          render={({ field }) => (
-            <ChoiceGroup
-              label="Show carbohydrate as"
-              choices={[
-                { value: 'g', label: 'grams' },
-                { value: 'portion10', label: '10 g portions' },
-                { value: 'unit12', label: '12 g units' },
-                { value: 'exchange15', label: '15 g exchanges' },
-              ]}
-              value={field.value}
-              onChange={field.onChange}
-            />
-          )}
+          label="Show carbohydrate as"
+          choices={[
+            { value: 'g', label: 'grams' },
+            { value: 'portion10', label: '10 g portions' },
+            { value: 'unit12', label: '12 g units' },
+            { value: 'exchange15', label: '15 g exchanges' },
+          ]}
         />
       </Card>
       <Card>
         <Text variant="heading">Pen and limits</Text>
-        <Controller
+        <FormChoiceGroup
           control={form.control}
           name="penIncrement"
-          render={({ field, fieldState }) => (
-            <ChoiceGroup
-              label="Pen step"
-              choices={[{ value: 0.5, label: '0.5 unit' }, { value: 1, label: '1 unit' }]}
-              value={field.value as number | null}
-              onChange={field.onChange}
-              error={fieldState.error?.message}
-            />
-          )}
+          label="Pen step"
+          choices={[{ value: 0.5, label: '0.5 unit' }, { value: 1, label: '1 unit' }]}
         />
-        <Controller
+        <FormChoiceGroup
           control={form.control}
           name="rounding"
-          render={({ field }) => (
-            <ChoiceGroup
-              label="Rounding to the pen step"
-              choices={[{ value: 'down', label: 'Down (safer)' }, { value: 'nearest', label: 'Nearest' }]}
-              value={field.value}
-              onChange={field.onChange}
-              hint="Rounding down is the more conservative choice (Building Competency in Diabetes Education)."
-            />
-          )}
+          label="Rounding to the pen step"
+          choices={[{ value: 'down', label: 'Down (safer)' }, { value: 'nearest', label: 'Nearest' }]}
+          hint="Rounding down is the more conservative choice (Building Competency in Diabetes Education)."
         />
         <View style={[styles.grid, isWide && styles.gridWide]}>
           <FormTextField control={form.control} name="maxDoseUnits" label="Largest single dose" unit="units" inputMode="decimal" />
@@ -164,29 +140,17 @@ export function UnitsSafetyForm({
             hint="Often 15 mmol/L (270 mg/dL) before exercise (2017 exercise consensus)."
           />
         </View>
-        <Controller
+        <FormChoiceGroup
           control={form.control}
           name="allowNegativeCorrection"
-          render={({ field }) => (
-            <ChoiceGroup
-              label="Below the range, lower the meal dose (negative correction)"
-              choices={[{ value: false, label: 'No' }, { value: true, label: 'Yes' }]}
-              value={field.value}
-              onChange={field.onChange}
-            />
-          )}
+          label="Below the range, lower the meal dose (negative correction)"
+          choices={[{ value: false, label: 'No' }, { value: true, label: 'Yes' }]}
         />
-        <Controller
+        <FormChoiceGroup
           control={form.control}
           name="iobConvention"
-          render={({ field }) => (
-            <ChoiceGroup
-              label="Active insulin from earlier doses is taken off"
-              choices={[{ value: 'correction_only', label: 'The correction only' }, { value: 'total', label: 'The whole dose' }]}
-              value={field.value}
-              onChange={field.onChange}
-            />
-          )}
+          label="Active insulin from earlier doses is taken off"
+          choices={[{ value: 'correction_only', label: 'The correction only' }, { value: 'total', label: 'The whole dose' }]}
         />
       </Card>
       <Card>

@@ -1,14 +1,14 @@
 import { Link } from 'expo-router';
 import { StyleSheet, View } from 'react-native';
 import { ApiError } from '../api/client';
-import { useDayKindDays, useDayKinds } from '../api/profile-settings';
+import { useDayKinds } from '../api/profile-settings';
 import { Button } from '../ui/button';
 import { Callout } from '../ui/callout';
 import { Card } from '../ui/card';
 import { ChoiceGroup } from '../ui/choice-group';
 import { ErrorState, LoadingState } from '../ui/states';
 import { Text } from '../ui/text';
-import { useSetDayKindDay } from './today-queries';
+import { useDayKindDays, useSetDayKindDay } from '../api/days';
 
 /** Today's kind of day (which ratios the dose check uses) and a switch to another kind. */
 export function TodayDayKindCard({ profileId, today }: { profileId: number; today: string }) {

@@ -6,7 +6,7 @@ import type { BatchSummary } from '../../shared/schemas/batch';
 import type { CarbUnit } from '../../shared/schemas/units';
 import { doseCheckHref } from '../dose/dose-href';
 import { shelfStatus, shortDate } from '../kitchen/kitchen-format';
-import { useBatches } from '../kitchen/kitchen-queries';
+import { useBatches } from '../api/batches';
 import { useTheme } from '../theme/use-theme';
 import { Button } from '../ui/button';
 import { Card } from '../ui/card';
@@ -51,7 +51,7 @@ function PortionRow({ row, unit, today }: { row: Row; unit: CarbUnit; today: str
           {carb}
         </Text>
         {row.carbGrams != null && shelf.tone !== 'danger' ? (
-          <Link href={doseCheckHref({ code: row.code, carbGrams: row.carbGrams, label: row.title }) as never} asChild>
+          <Link href={doseCheckHref({ code: row.code, carbGrams: row.carbGrams, label: row.title })} asChild>
             <Button variant="secondary" label="Check a dose" aria-label={`Check a dose for ${row.title} ${formatPortionCode(row.code)}`} />
           </Link>
         ) : null}

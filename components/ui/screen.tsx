@@ -1,6 +1,6 @@
 import type { ReactNode } from 'react';
 import { ScrollView, StyleSheet, View } from 'react-native';
-import { router } from 'expo-router';
+import { router, type Href } from 'expo-router';
 import { useLayout, useTheme } from '../theme/use-theme';
 import { Button } from './button';
 import { Text } from './text';
@@ -9,7 +9,7 @@ export type ScreenProps = {
   title?: string;
   subtitle?: string;
   /** Show a back link; pass the href to use when there is no history (deep link). */
-  backHref?: string;
+  backHref?: Href;
   actions?: ReactNode;
   children: ReactNode;
   scroll?: boolean;
@@ -26,7 +26,7 @@ export function Screen({ title, subtitle, backHref, actions, children, scroll = 
           <Button
             variant="quiet"
             label="‹ Back"
-            onPress={() => (router.canGoBack() ? router.back() : router.replace(backHref as never))}
+            onPress={() => (router.canGoBack() ? router.back() : router.replace(backHref))}
           />
         </View>
       ) : null}

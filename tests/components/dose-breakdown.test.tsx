@@ -40,9 +40,9 @@ describe('DoseBreakdownView', () => {
     expect(screen.getByLabelText('Suggested dose')).toHaveTextContent('6.5 units');
     expect(screen.getByText('60 g ÷ 10 g per unit (ratio for Rest, 00:00–24:00)')).toBeInTheDocument();
     expect(screen.getByText('(11.0 mmol/L − 6.0 mmol/L) ÷ 2.5 mmol/L per unit')).toBeInTheDocument();
-    expect(screen.getByText('+ 2.00 u')).toBeInTheDocument();
+    expect(screen.getByText('+ 2 units')).toBeInTheDocument();
     expect(screen.getByText('Insulin still active')).toBeInTheDocument();
-    expect(screen.getByText('− 1.50 u')).toBeInTheDocument();
+    expect(screen.getByText('− 1.5 units')).toBeInTheDocument();
     expect(screen.getByText('Total before rounding')).toBeInTheDocument();
     expect(screen.getByText(/still working/)).toBeInTheDocument();
   });
@@ -60,5 +60,17 @@ describe('DoseBreakdownView', () => {
 
     expect(screen.getByText('Left out: the reading is more than 15 minutes from the meal time.')).toBeInTheDocument();
     expect(screen.getByLabelText('Suggested dose')).toHaveTextContent('6 units');
+  });
+
+  it('puts the warnings above the number and writes no "u" and no trailing zero anywhere', () => {
+    // T11 again: the active-insulin warning ("still working") must come before the suggested dose.
+    const { container } = render(<DoseBreakdownView result={suggestion(11, { earlierDoses: [{ units: 1.5, takenAt: T0 }] })} />);
+
+    const warning = screen.getByText(/still working/);
+    const dose = screen.getByLabelText('Suggested dose');
+    expect(warning.compareDocumentPosition(dose) & Node.DOCUMENT_POSITION_FOLLOWING).toBeTruthy();
+    const text = container.textContent ?? '';
+    expect(text).not.toMatch(/\d\s?[uU]\b/);
+    expect(text).not.toMatch(/\d\.\d*0 units?\b/);
   });
 });

@@ -1,26 +1,14 @@
 import { fireEvent, render, screen, waitFor } from '@testing-library/react';
-import { QueryClientProvider } from '@tanstack/react-query';
-import { ExpoRoot, Slot } from 'expo-router';
+import { ExpoRoot } from 'expo-router';
 import { getMockContext } from 'expo-router/build/testing-library/mock-config';
 import { Text } from 'react-native';
-import { createQueryClient } from '@/components/api/query-client';
-import { SessionProvider } from '@/components/auth/session';
 import { SignInScreen } from '@/components/auth/sign-in-screen';
 import { tokenStore } from '@/components/auth/token-store';
-
-function Root() {
-  return (
-    <QueryClientProvider client={createQueryClient()}>
-      <SessionProvider>
-        <Slot />
-      </SessionProvider>
-    </QueryClientProvider>
-  );
-}
+import { AppRoot } from './render-with-api';
 
 function renderAt(location: string) {
   const context = getMockContext({
-    _layout: Root,
+    _layout: AppRoot,
     'sign-in': SignInScreen,
     index: () => <Text>Home page</Text>,
     plan: () => <Text>Plan page</Text>,

@@ -77,6 +77,7 @@ describe('dose check in the browser', () => {
     await page.getByRole('heading', { name: 'Check a dose' }).waitFor();
     await page.getByLabel('Carbohydrate (available)').fill('42');
     await page.getByLabel('Glucose now').fill('6');
+    await page.getByLabel('Reading taken').fill('0');
     // T15 (check-values §12): 42 g at 10 g/U = 4.2 → 4.0 U; at 15 g/U = 2.8 → 2.5 U (round down to 0.5).
     await checkDose(page, 'Rest');
     const rest = await page.getByLabel('Suggested dose').innerText();
@@ -108,6 +109,7 @@ describe('dose check in the browser', () => {
     await page.getByRole('button', { name: 'Use this portion' }).click();
     await page.getByText('No portion has that code.').waitFor();
     await page.getByLabel('Glucose now').fill('3.4');
+    await page.getByLabel('Reading taken').fill('0');
     await page.getByRole('button', { name: 'Work out a dose' }).click();
     await page.getByText('Treat the low first', { exact: false }).waitFor();
     await page.getByText('A calculation, not medical advice').scrollIntoViewIfNeeded();

@@ -110,6 +110,7 @@ describe('Today in the browser', () => {
     await expect(page.getByLabel('Carbohydrate (available)').inputValue()).resolves.toBe(String(Math.round(portions[0].carb.grams * 10) / 10));
     await expect(page.getByRole('radio', { name: 'Long ride' }).getAttribute('aria-checked')).resolves.toBe('true');
     await page.getByLabel('Glucose now').fill('11');
+    await page.getByLabel('Reading taken').fill('0');
 
     await page.getByRole('button', { name: 'Add an earlier dose' }).click();
     await page.getByLabel('Earlier dose 1', { exact: true }).fill('2');
@@ -132,7 +133,8 @@ describe('Today in the browser', () => {
     const now = Date.now();
     const both = activeInsulin([{ units: 2, takenAt: now - 30 * 60_000 }, { units: 1, takenAt: now - 90 * 60_000 }], now, 4);
     const firstOnly = activeInsulin([{ units: 2, takenAt: now - 30 * 60_000 }], now, 4);
-    const u = (n: number) => `${(Math.round(n * 100) / 100).toFixed(2)} u from earlier doses`;
+    // Written as the dose view writes insulin: "units" in full, two decimals at most, no trailing zero (ISMP list).
+    const u = (n: number) => `${Math.round(n * 100) / 100} units from earlier doses`;
     expect(u(both)).not.toBe(u(firstOnly));
     await page.getByText(u(both), { exact: false }).waitFor();
     await expect(page.getByText('A calculation, not medical advice').isVisible()).resolves.toBe(true);

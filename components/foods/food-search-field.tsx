@@ -1,27 +1,36 @@
 import { useDeferredValue, useState } from 'react';
 import { Pressable, StyleSheet, View } from 'react-native';
 import type { Nutrients } from '../../shared/compute/nutrients';
+import { carbInBasis } from '../../shared/compute/nutrients';
 import { useActiveProfile } from '../api/auth';
+import { useFoodSearch } from '../api/foods';
 import { useTheme } from '../theme/use-theme';
 import { Text } from '../ui/text';
 import { TextField } from '../ui/text-field';
-import { showCarb } from './recipe-format';
-import { useFoodSearch } from './recipe-queries';
-import { carbInBasis } from '../../shared/compute/nutrients';
+import { showCarb } from '../recipes/recipe-format';
 
 export type PickedFood = { id: number; name: string; per100g: Nutrients };
 
-/** Finds a food in the tables and label foods (server-ranked search) and hands the chosen one over. */
-export function FoodSearch({ onPick }: { onPick: (food: PickedFood) => void }) {
+type Props = {
+  onPick: (food: PickedFood) => void;
+  /** The field's label; each hit's button reads "<verb> <food name>". */
+  label: string;
+  verb: string;
+  placeholder?: string;
+};
+
+/** Finds a food in the tables and pack foods (server-ranked search, shared cache) and hands the chosen one over. */
+export function FoodSearchField({ onPick, label, verb, placeholder = 'Search foods, e.g. oats' }: Props) {
   const t = useTheme();
   const { profile } = useActiveProfile();
   const [q, setQ] = useState('');
   const deferred = useDeferredValue(q.trim());
-  const search = useFoodSearch(deferred);
+  const search = useFoodSearch({ q: deferred, limit: 8 }, deferred.length >= 2);
   const basis = profile?.carbBasis ?? 'available';
   return (
     <View style={styles.stack}>
-      <TextField label="Add an ingredient" value={q} onChangeText={setQ} placeholder="Search foods, e.g. oats" autoCapitalize="none" />
+      <TextField label={label} value={q} onChangeText={setQ} placeholder={placeholder} autoCapitalize="none" />
+      {search.isError ? <Text color="danger">The food search did not answer. Try again.</Text> : null}
       {deferred.length >= 2 && search.data ? (
         <View role="list" aria-label="Matching foods" style={styles.stack}>
           {search.data.items.length === 0 ? <Text color="textMuted">No food matches “{deferred}”.</Text> : null}
@@ -29,7 +38,7 @@ export function FoodSearch({ onPick }: { onPick: (food: PickedFood) => void }) {
             <Pressable
               key={food.id}
               role="button"
-              aria-label={`Add ${food.name}`}
+              aria-label={`${verb} ${food.name}`}
               onPress={() => {
                 onPick({ id: food.id, name: food.name, per100g: food.per100g });
                 setQ('');
