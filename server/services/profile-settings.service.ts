@@ -36,6 +36,7 @@ function toView(profile: ProfileModel, row: ProfileSettingsModel | null): Profil
       rounding: row.rounding,
       maxDoseUnits: row.maxDoseUnits,
       actionTimeHours: row.actionTimeHours,
+      activeInsulinModel: row.activeInsulinModel,
       targetLow: show(row.targetLowMmol, u),
       targetHigh: show(row.targetHighMmol, u),
       correctionTarget: show(row.correctionTargetMmol, u),
@@ -70,6 +71,7 @@ export async function updateSettings(profileId: number, userId: number, input: P
       rounding: input.rounding,
       maxDoseUnits: input.maxDoseUnits,
       actionTimeHours: input.actionTimeHours,
+      activeInsulinModel: input.activeInsulinModel,
       targetLowMmol: glucoseToMmol(input.targetLow, u),
       targetHighMmol: glucoseToMmol(input.targetHigh, u),
       correctionTargetMmol: glucoseToMmol(input.correctionTarget, u),
@@ -221,7 +223,7 @@ function flatten(value: unknown, prefix = '', out: Record<string, unknown> = {})
 // PostgreSQL's jsonb reorders keys, so changes are listed in the order the screens show the fields.
 const FIELD_ORDER = [
   'name', 'isDefault', 'longActingUnits', 'glucoseUnit', 'carbBasis', 'carbUnit', 'penIncrement', 'rounding', 'maxDoseUnits',
-  'actionTimeHours', 'targetLow', 'targetHigh', 'correctionTarget', 'hypoThreshold', 'veryHigh', 'allowNegativeCorrection',
+  'actionTimeHours', 'activeInsulinModel', 'targetLow', 'targetHigh', 'correctionTarget', 'hypoThreshold', 'veryHigh', 'allowNegativeCorrection',
   'iobConvention', 'exerciseReductions', 'light', 'moderate', 'hard', 'min30', 'min60', 'blocks', 'from', 'to', 'carbRatio', 'correctionFactor',
 ];
 function fieldRank(path: string): number[] {
@@ -279,6 +281,7 @@ export async function loadDoseContext(
     rounding: row.rounding,
     maxDoseUnits: row.maxDoseUnits,
     actionTimeHours: row.actionTimeHours,
+    activeInsulinModel: row.activeInsulinModel,
     targetLowMmol: row.targetLowMmol,
     targetHighMmol: row.targetHighMmol,
     correctionTargetMmol: row.correctionTargetMmol,
