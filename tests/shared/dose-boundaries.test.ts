@@ -173,3 +173,38 @@ describe('the cap (largest single dose, rounded down to the pen step)', () => {
     expect(r.warnings.find((w) => w.code === 'capped')?.message).toContain('capped at 7 units');
   });
 });
+
+describe('floors at 0 (active insulin never turns into extra insulin)', () => {
+  it('below the range with negative correction allowed, an earlier dose takes nothing more off: 6 − 0.75 = 5.25 → 5.0 units', () => {
+    // (4.5 − 6) ÷ 2 = −0.75; only a positive correction is lowered by active insulin (convention A).
+    const r = ok(computeDose(settings({ allowNegativeCorrection: true }), rest, input({ glucose: glucose(4.5), earlierDoses: [{ units: 2, takenAt: T0 - 60 * MIN }] })));
+
+    expect(r.breakdown.activeInsulinUnits).toBeCloseTo(1.5, 12);
+    expect(r.breakdown.activeInsulinSubtracted).toBe(0);
+    expect(r.breakdown.totalBeforeRounding).toBeCloseTo(5.25, 12);
+    expect(r.breakdown.doseUnits).toBe(5);
+  });
+
+  it('a negative correction larger than the meal part gives a total of 0, not below', () => {
+    const r = ok(computeDose(settings({ allowNegativeCorrection: true }), rest, input({ carbsGrams: 5, glucose: glucose(4.5) })));
+
+    // 5 ÷ 10 = 0.5; 0.5 − 0.75 = −0.25 → 0.
+    expect(r.breakdown.totalBeforeRounding).toBe(0);
+    expect(r.breakdown.doseUnits).toBe(0);
+  });
+
+  it('with active insulin taken off the whole dose, more active insulin than the dose gives a total of 0', () => {
+    const r = ok(computeDose(settings({ iobConvention: 'total' }), rest, input({ glucose: glucose(6), earlierDoses: [{ units: 10, takenAt: T0 }] })));
+
+    // 6 − 10 = −4 → 0.
+    expect(r.breakdown.activeInsulinSubtracted).toBe(10);
+    expect(r.breakdown.totalBeforeRounding).toBe(0);
+  });
+
+  it('with no earlier doses nothing is active and nothing is listed', () => {
+    const r = ok(computeDose(settings(), rest, input({ glucose: glucose(10) })));
+
+    expect(r.breakdown.activeInsulinUnits).toBe(0);
+    expect(r.recentDoses).toEqual([]);
+  });
+});
