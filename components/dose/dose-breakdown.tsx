@@ -2,7 +2,7 @@ import { Link } from 'expo-router';
 import { StyleSheet, View } from 'react-native';
 import type { DoseWarning } from '../../shared/compute/dose';
 import { formatCarb, formatGlucose, glucoseFromMmol } from '../../shared/compute/units';
-import { minutesToTime } from '../../shared/schemas/profile-settings';
+import { ACTIVE_INSULIN_MODEL_WORDS, minutesToTime } from '../../shared/schemas/profile-settings';
 import type { DoseSuggestion } from '../../shared/schemas/dose';
 import { useTheme } from '../theme/use-theme';
 import { Button } from '../ui/button';
@@ -122,6 +122,9 @@ export function DoseBreakdownView({ result }: { result: DoseSuggestion }) {
           <Line label="Rounded to your pen step" amount={formatDoseUnits(b.roundedUnits)} />
           {b.capped ? <Line label="Capped at your largest single dose" amount={formatDoseUnits(b.doseUnits)} /> : null}
         </View>
+        <Text color="textMuted">
+          Active insulin model: {ACTIVE_INSULIN_MODEL_WORDS[b.activeInsulinModel].toLowerCase()} ({b.actionTimeHours} hours), from your settings.
+        </Text>
         {result.fatProteinUnits != null ? (
           <Text color="textMuted">
             Fat and protein: {result.fatProteinUnits.toFixed(1)} fat-protein units (100 kcal each, Pańkowska 2009), shown

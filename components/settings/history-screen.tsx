@@ -22,6 +22,7 @@ const WORDS: Record<string, string> = {
   rounding: 'rounding',
   maxDoseUnits: 'largest single dose',
   actionTimeHours: 'action time (hours)',
+  activeInsulinModel: 'active insulin model',
   targetLow: 'target range from',
   targetHigh: 'target range to',
   correctionTarget: 'correct to',

@@ -5,6 +5,7 @@ import { StyleSheet, View } from 'react-native';
 import { EXERCISE_INTENSITIES } from '../../shared/compute/exercise';
 import { glucoseFromMmol, glucoseToMmol } from '../../shared/compute/units';
 import {
+  ACTIVE_INSULIN_MODEL_WORDS,
   profileSettingsInputSchema,
   type ProfileSettingsFormValues,
   type ProfileSettingsInput,
@@ -21,7 +22,7 @@ import { FormChoiceGroup } from '../ui/form-choice-group';
 
 const GLUCOSE_FIELDS = ['targetLow', 'targetHigh', 'correctionTarget', 'hypoThreshold', 'veryHigh'] as const;
 export const SETTINGS_FIELDS: FieldPath<ProfileSettingsFormValues>[] = [
-  'glucoseUnit', 'carbBasis', 'carbUnit', 'penIncrement', 'rounding', 'maxDoseUnits', 'actionTimeHours', ...GLUCOSE_FIELDS,
+  'glucoseUnit', 'carbBasis', 'carbUnit', 'penIncrement', 'rounding', 'maxDoseUnits', 'actionTimeHours', 'activeInsulinModel', ...GLUCOSE_FIELDS,
   'allowNegativeCorrection', 'iobConvention',
   ...EXERCISE_INTENSITIES.flatMap((k) => [`exerciseReductions.${k}.min30`, `exerciseReductions.${k}.min60`] as FieldPath<ProfileSettingsFormValues>[]),
 ];
@@ -116,6 +117,22 @@ export function UnitsSafetyForm({
           <FormTextField control={form.control} name="maxDoseUnits" label="Largest single dose" unit="units" inputMode="decimal" />
           <FormTextField control={form.control} name="actionTimeHours" label="Insulin action time" unit="hours" inputMode="decimal" hint="2 to 8 hours, as your team set it." />
         </View>
+        <Controller
+          control={form.control}
+          name="activeInsulinModel"
+          render={({ field }) => (
+            <ChoiceGroup
+              label="Insulin still active from earlier doses falls as"
+              choices={[
+                { value: 'linear', label: `${ACTIVE_INSULIN_MODEL_WORDS.linear} (default)` },
+                { value: 'curve', label: ACTIVE_INSULIN_MODEL_WORDS.curve },
+              ]}
+              value={field.value}
+              onChange={field.onChange}
+              hint="The straight line counts half a dose as active halfway through the action time, as the education advice does. The curve counts more in the first hour and less after that, so it can suggest more insulin; ask your diabetes team."
+            />
+          )}
+        />
       </Card>
       <Card>
         <Text variant="heading">Glucose targets</Text>

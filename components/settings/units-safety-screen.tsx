@@ -26,6 +26,7 @@ function formDefaults(view: ProfileSettingsView): ProfileSettingsFormValues {
     rounding: s?.rounding ?? 'down',
     maxDoseUnits: str(s?.maxDoseUnits),
     actionTimeHours: str(s?.actionTimeHours),
+    activeInsulinModel: s?.activeInsulinModel ?? 'linear',
     targetLow: str(s?.targetLow),
     targetHigh: str(s?.targetHigh),
     correctionTarget: str(s?.correctionTarget),

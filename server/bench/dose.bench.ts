@@ -41,7 +41,7 @@ export const scenarios: BenchModule['scenarios'] = async (ctx) => {
       name: 'computeDose (pure engine, 100k calls)',
       run: async () => {
         const settings = {
-          penIncrement: 0.5, rounding: 'down' as const, maxDoseUnits: 15, actionTimeHours: 4, targetLowMmol: 5, targetHighMmol: 8,
+          penIncrement: 0.5, rounding: 'down' as const, maxDoseUnits: 15, actionTimeHours: 4, activeInsulinModel: 'linear' as const, targetLowMmol: 5, targetHighMmol: 8,
           correctionTargetMmol: 6, hypoThresholdMmol: 3.9, veryHighMmol: 15, allowNegativeCorrection: false,
           iobConvention: 'correction_only' as const, exerciseReductions: DEFAULT_EXERCISE_REDUCTIONS,
         };

@@ -1,5 +1,6 @@
 import { DataTypes, Model } from 'sequelize';
 import type { CreationOptional, InferAttributes, InferCreationAttributes, Sequelize } from 'sequelize';
+import type { ActiveInsulinModel } from '../../shared/compute/active-insulin';
 import type { IobConvention, Rounding } from '../../shared/compute/dose';
 import type { ExerciseReductionTable } from '../../shared/compute/exercise';
 
@@ -10,6 +11,7 @@ export class ProfileSettingsModel extends Model<InferAttributes<ProfileSettingsM
   declare rounding: Rounding;
   declare maxDoseUnits: number;
   declare actionTimeHours: number;
+  declare activeInsulinModel: CreationOptional<ActiveInsulinModel>;
   declare targetLowMmol: number;
   declare targetHighMmol: number;
   declare correctionTargetMmol: number;
@@ -30,6 +32,7 @@ export class ProfileSettingsModel extends Model<InferAttributes<ProfileSettingsM
         rounding: { type: DataTypes.ENUM('down', 'nearest'), allowNull: false },
         maxDoseUnits: { type: DataTypes.DOUBLE, allowNull: false },
         actionTimeHours: { type: DataTypes.DOUBLE, allowNull: false },
+        activeInsulinModel: { type: DataTypes.ENUM('linear', 'curve'), allowNull: false, defaultValue: 'linear' },
         targetLowMmol: { type: DataTypes.DOUBLE, allowNull: false },
         targetHighMmol: { type: DataTypes.DOUBLE, allowNull: false },
         correctionTargetMmol: { type: DataTypes.DOUBLE, allowNull: false },

@@ -19,6 +19,7 @@ export async function loadDoseContext(
     rounding: row.rounding,
     maxDoseUnits: row.maxDoseUnits,
     actionTimeHours: row.actionTimeHours,
+    activeInsulinModel: row.activeInsulinModel,
     targetLowMmol: row.targetLowMmol,
     targetHighMmol: row.targetHighMmol,
     correctionTargetMmol: row.correctionTargetMmol,

@@ -6,7 +6,7 @@
  * exercise reduction from ./exercise; round to the pen increment (down by default), cap at the maximum.
  */
 import type { GlucoseUnit } from '../schemas/units';
-import { activeInsulin, recentDoses, type EarlierDose } from './active-insulin';
+import { activeInsulin, recentDoses, type ActiveInsulinModel, type EarlierDose } from './active-insulin';
 import { exerciseReduction, type ExerciseReductionTable, type PlannedExercise } from './exercise';
 import { glucoseToMmol } from './units';
 
@@ -20,6 +20,8 @@ export type DoseSettings = {
   rounding: Rounding;
   maxDoseUnits: number;
   actionTimeHours: number;
+  /** How active insulin falls over the action time: a straight line (default) or the curve. */
+  activeInsulinModel: ActiveInsulinModel;
   targetLowMmol: number;
   targetHighMmol: number;
   correctionTargetMmol: number;
@@ -72,6 +74,8 @@ export type DoseBreakdown = {
   correctionFactorMmol: number;
   correctionUnits: number;
   correctionReason: 'above_range' | 'in_range' | 'below_range_negative' | 'below_range_none' | 'no_glucose' | 'stale_glucose';
+  activeInsulinModel: ActiveInsulinModel;
+  actionTimeHours: number;
   activeInsulinUnits: number;
   activeInsulinSubtracted: number;
   totalBeforeRounding: number;
@@ -204,7 +208,7 @@ export function computeDose(settings: DoseSettings | null, dayKind: DayKindRatio
     } else correctionReason = 'below_range_none';
   } else correctionReason = 'in_range';
 
-  const activeInsulinUnits = activeInsulin(earlier, input.mealAt, settings.actionTimeHours);
+  const activeInsulinUnits = activeInsulin(earlier, input.mealAt, settings.actionTimeHours, settings.activeInsulinModel);
   let activeInsulinSubtracted: number;
   let totalBeforeRounding: number;
   if (settings.iobConvention === 'total') {
@@ -256,6 +260,8 @@ export function computeDose(settings: DoseSettings | null, dayKind: DayKindRatio
       correctionFactorMmol: block.correctionFactorMmol,
       correctionUnits,
       correctionReason,
+      activeInsulinModel: settings.activeInsulinModel,
+      actionTimeHours: settings.actionTimeHours,
       activeInsulinUnits,
       activeInsulinSubtracted,
       totalBeforeRounding,

@@ -1,5 +1,6 @@
 import { z } from 'zod';
 import { positiveIdSchema, profileIdParamSchema } from './common';
+import { ACTIVE_INSULIN_MODELS, RAPID_PEAK_MINUTES } from '../compute/active-insulin';
 import { EXERCISE_INTENSITIES } from '../compute/exercise';
 import { formatGlucose, glucoseToMmol } from '../compute/units';
 import { carbBasisSchema, carbUnitSchema, glucoseUnitSchema, type GlucoseUnit } from './units';
@@ -40,6 +41,13 @@ export const DEFAULT_VERY_HIGH_MMOL = 15;
 
 export const roundingSchema = z.enum(['down', 'nearest']);
 export const iobConventionSchema = z.enum(['correction_only', 'total']);
+/** linear is the default: it never counts less active insulin than the cited anchor (README, dose section). */
+export const activeInsulinModelSchema = z.enum(ACTIVE_INSULIN_MODELS);
+/** How each active-insulin model is named on the settings and dose screens. */
+export const ACTIVE_INSULIN_MODEL_WORDS: Record<(typeof ACTIVE_INSULIN_MODELS)[number], string> = {
+  linear: 'Straight line over the action time',
+  curve: `Curve with its peak at ${RAPID_PEAK_MINUTES} minutes`,
+};
 
 const percentCell = optionalNumberField('Enter a percentage from 0 to 90, or leave empty for no reduction.').refine(
   (v) => v == null || (v >= 0 && v <= 90),
@@ -83,6 +91,7 @@ export const profileSettingsInputSchema = z
     rounding: roundingSchema,
     maxDoseUnits: numberField('Enter the maximum single dose.').refine((v) => v >= 1 && v <= 100, 'Use a maximum from 1 to 100 units.'),
     actionTimeHours: numberField('Enter the insulin action time.').refine((v) => v >= 2 && v <= 8, 'The action time must be 2 to 8 hours.'),
+    activeInsulinModel: activeInsulinModelSchema.default('linear'),
     targetLow: numberField('Enter the bottom of the target range.'),
     targetHigh: numberField('Enter the top of the target range.'),
     correctionTarget: numberField('Enter the correction target.'),

@@ -10,6 +10,7 @@ const settings: DoseSettings = {
   rounding: 'down',
   maxDoseUnits: 15,
   actionTimeHours: 4,
+  activeInsulinModel: 'linear',
   targetLowMmol: 5,
   targetHighMmol: 7,
   correctionTargetMmol: 6,
@@ -45,6 +46,14 @@ describe('DoseBreakdownView', () => {
     expect(screen.getByText('− 1.5 units')).toBeInTheDocument();
     expect(screen.getByText('Total before rounding')).toBeInTheDocument();
     expect(screen.getByText(/still working/)).toBeInTheDocument();
+    expect(screen.getByText('Active insulin model: straight line over the action time (4 hours), from your settings.')).toBeInTheDocument();
+  });
+
+  it('says when the profile counts active insulin with the curve', () => {
+    const r = computeDose({ ...settings, activeInsulinModel: 'curve' }, rest, { carbsGrams: 60, mealAt: T0, mealMinuteOfDay: 780 });
+    render(<DoseBreakdownView result={{ ...r, glucoseUnit: 'mmol_l', carbBasis: 'available', carbUnit: 'g', mealAt: new Date(T0).toISOString(), glucoseTakenAt: null }} />);
+
+    expect(screen.getByText('Active insulin model: curve with its peak at 75 minutes (4 hours), from your settings.')).toBeInTheDocument();
   });
 
   it('shows no dose and the treat-a-low steps when glucose is low', () => {

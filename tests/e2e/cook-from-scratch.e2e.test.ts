@@ -2,6 +2,9 @@ import jsQR from 'jsqr';
 import type { Page } from 'playwright-core';
 import { PNG } from 'pngjs';
 import { runImport } from '../../server/services/imports.service';
+import { computeBatch, netGrams, weighedPortionCarb } from '../../shared/compute/batch';
+import { emptyNutrients } from '../../shared/compute/nutrients';
+import { computeRecipe } from '../../shared/compute/recipe';
 import { PHONE, startBrowserRig, type BrowserRig } from '../helpers/browser';
 
 let rig: BrowserRig;
@@ -64,11 +67,25 @@ async function signUp(page: Page) {
 }
 
 describe('a morning in the kitchen, from food search to label sheet', () => {
-  it('hand calculations agree with the rounded figures the test expects on screen', () => {
-    expect(PLANNED_TOTAL).toBeCloseTo(228.235, 3);
-    expect(ACTUAL_TOTAL).toBeCloseTo(231.2833, 3);
-    expect(grams(PLANNED_TOTAL / PORTIONS)).toBe('57 g');
-    expect(grams(jarCarb(400))).toBe('54 g');
+  it('the product’s recipe and batch arithmetic gives the hand-worked figures the browser steps expect', () => {
+    const per100g = (carb: number) => ({ ...emptyNutrients(), carbAvailable: carb });
+    const recipe = computeRecipe(
+      INGREDIENTS.map((f) => ({ grams: f.planned, per100g: per100g(f.carbPer100g) })),
+      { portions: PORTIONS, basis: 'available' },
+    );
+    const batch = computeBatch(
+      INGREDIENTS.map((f) => ({ actualGrams: f.actual, per100g: per100g(f.carbPer100g) })),
+      netGrams(POT_GROSS, POT_TARE),
+      'available',
+    );
+
+    // The hand calculation above, written out: 228.235 g planned, 57.06 g per portion, 231.2833 g weighed,
+    // 13.45 g per 100 g cooked, jar 1 (400 g net) 53.79 g.
+    expect(recipe.carbTotal.grams).toBeCloseTo(228.235, 3);
+    expect(recipe.carbPerPortion.grams).toBeCloseTo(57.06, 2);
+    expect(batch.carbTotal).toBeCloseTo(231.2833, 3);
+    expect(batch.carbPer100g).toBeCloseTo(13.447, 3);
+    expect(weighedPortionCarb(batch.carbPer100g, netGrams(JARS[0][1], JARS[0][0]))).toBeCloseTo(53.79, 2);
     expect(sum(JARS.map(([tare, gross]) => gross - tare))).toBe(COOKED);
   });
 

@@ -88,8 +88,10 @@ describe('dose check in the browser', () => {
     await expect(page.getByText('A calculation, not medical advice').isVisible()).resolves.toBe(true);
     await rig.shot(page, 'phone-dose-long-ride');
 
-    expect(rest).toMatch(/4 units/);
-    expect(ride).toMatch(/2\.5 units/);
+    // Anchored on both sides so "14 units" or "4 units" inside "2.4 units" would not pass.
+    expect(rest).toMatch(/(^|\s)4 units(\s|$)/);
+    expect(ride).toMatch(/(^|\s)2\.5 units(\s|$)/);
+    await page.getByText('Active insulin model: straight line over the action time (4 hours)', { exact: false }).waitFor();
     await expect(page.getByText('42 g ÷ 15 g per unit').isVisible()).resolves.toBe(true);
 
     await page.goto(`${rig.baseUrl}/settings/history`);
@@ -118,6 +120,9 @@ describe('dose check in the browser', () => {
     await page.getByLabel('Glucose now').fill('11');
     await page.getByRole('button', { name: 'Work out a dose' }).click();
     await page.getByText('How it adds up').waitFor();
+    // By hand (Rest: 10 g per unit, 2 mmol/L per unit, correct to 6): 55 ÷ 10 = 5.5 + (11 − 6) ÷ 2 = 2.5 → 8 units.
+    await expect(page.getByLabel('Suggested dose').innerText()).resolves.toMatch(/(^|\s)8 units(\s|$)/);
+    await page.getByText('(11.0 mmol/L − 6.0 mmol/L) ÷ 2.0 mmol/L per unit').waitFor();
     await page.getByText('A calculation, not medical advice').scrollIntoViewIfNeeded();
     await rig.shot(page, 'wide-dose-correction');
     await expect(page.getByLabel('Carbohydrate (available)').inputValue()).resolves.toBe('55');

@@ -78,7 +78,15 @@ describe('food table in the browser', () => {
     await page.getByRole('button', { name: /^Banana, ripe, robusta,/ }).click();
 
     await page.getByRole('heading', { name: 'Household measures' }).waitFor();
-    await page.getByLabel('Search foods').waitFor();
+    // Beside, not instead of: the page stays on the list, and the detail starts to the right of both the search
+    // field and the chosen row (a phone opens the food on its own page instead).
+    expect(new URL(page.url()).pathname).toBe('/foods');
+    const search = await page.getByLabel('Search foods').boundingBox();
+    const row = await page.getByRole('button', { name: /^Banana, ripe, robusta,/ }).boundingBox();
+    const detail = await page.getByRole('heading', { name: 'Household measures' }).boundingBox();
+    expect(search && row && detail).toBeTruthy();
+    expect(detail!.x).toBeGreaterThanOrEqual(search!.x + search!.width);
+    expect(row!.x + row!.width).toBeLessThanOrEqual(detail!.x);
     await rig.shot(page, 'wide-search-and-detail');
   });
 

@@ -1,7 +1,5 @@
 import type { Page } from 'playwright-core';
 import request from 'supertest';
-import { activeInsulin } from '../../shared/compute/active-insulin';
-import { formatCarb } from '../../shared/compute/units';
 import { PHONE, WIDE, startBrowserRig, type BrowserRig } from '../helpers/browser';
 import { createFood, SR_LEGACY, withAvailable } from '../helpers/foods';
 import { TEST_DOSE_SETTINGS } from '../helpers/dose-settings';
@@ -44,7 +42,7 @@ async function setUpDoseSettings(profileId: number, auth: Record<string, string>
   }
 }
 
-/** One batch of three equal portions in the fridge; returns the portions as the API gives them. */
+/** One batch of three equal portions in the fridge. */
 async function cookBatch(profileId: number, auth: Record<string, string>) {
   // Per 100 g, USDA SR Legacy via check-values §11 ([C2]): rolled oats 67.7 g total carbohydrate, 10.1 g fibre.
   const oats = await createFood(withAvailable(SR_LEGACY.oats));
@@ -65,7 +63,6 @@ async function cookBatch(profileId: number, auth: Record<string, string>) {
       split: { mode: 'equal', count: 3 },
     });
   if (batch.status !== 201) throw new Error(`batch: ${JSON.stringify(batch.body)}`);
-  return batch.body.portions as { code: string; carb: { grams: number } }[];
 }
 
 async function signedIn(token: string, viewport: { width: number; height: number }, path: string): Promise<Page> {
@@ -78,11 +75,10 @@ async function signedIn(token: string, viewport: { width: number; height: number
 
 describe('Today in the browser', () => {
   let sam: Awaited<ReturnType<typeof signUp>>;
-  let portions: { code: string; carb: { grams: number } }[];
   beforeAll(async () => {
     sam = await signUp('today-sam@example.test', 'Sam');
     await setUpDoseSettings(sam.profileId, sam.auth);
-    portions = await cookBatch(sam.profileId, sam.auth);
+    await cookBatch(sam.profileId, sam.auth);
   });
 
   it('switches today to another day kind on a phone, and the dose check for a fridge portion uses its ratio and adds up two earlier doses', async () => {
@@ -92,8 +88,9 @@ describe('Today in the browser', () => {
     await expect(kindNow.innerText()).resolves.toBe('Rest');
     await page.getByText('Your default kind of day.', { exact: false }).waitFor();
     await page.getByText('In the fridge and freezer').waitFor();
-    // The portion's carbohydrate comes from the API's own batch answer, shown in the profile unit.
-    await page.getByText(formatCarb(portions[0].carb.grams, 'g'), { exact: true }).first().waitFor();
+    // By hand: available carbohydrate 67.7 − 10.1 = 57.6 g per 100 g (USDA SR Legacy, check-values §11);
+    // 150 g × 57.6 / 100 ÷ 3 portions = 28.8 g per portion, shown to whole grams at 10 g and above: "29 g".
+    await page.getByText('29 g', { exact: true }).first().waitFor();
     await expect(page.getByRole('link', { name: /^Check a dose for Porridge base/ }).count()).resolves.toBe(3);
     await rig.shot(page, 'phone-today-rest');
 
@@ -107,7 +104,7 @@ describe('Today in the browser', () => {
     await page.getByRole('link', { name: /^Check a dose for Porridge base/ }).first().click();
     await page.getByRole('heading', { name: 'Check a dose' }).waitFor();
     await page.getByText('For: Porridge base (portion', { exact: false }).waitFor();
-    await expect(page.getByLabel('Carbohydrate (available)').inputValue()).resolves.toBe(String(Math.round(portions[0].carb.grams * 10) / 10));
+    await expect(page.getByLabel('Carbohydrate (available)').inputValue()).resolves.toBe('28.8');
     await expect(page.getByRole('radio', { name: 'Long ride' }).getAttribute('aria-checked')).resolves.toBe('true');
     await page.getByLabel('Glucose now').fill('11');
     await page.getByLabel('Reading taken').fill('0');
@@ -129,14 +126,10 @@ describe('Today in the browser', () => {
 
     await page.getByRole('button', { name: 'Work out a dose' }).click();
     await page.getByText('ratio for Long ride,', { exact: false }).waitFor();
-    // Both doses count: the same curve the server uses, for the same minutes, 4 h action time.
-    const now = Date.now();
-    const both = activeInsulin([{ units: 2, takenAt: now - 30 * 60_000 }, { units: 1, takenAt: now - 90 * 60_000 }], now, 4);
-    const firstOnly = activeInsulin([{ units: 2, takenAt: now - 30 * 60_000 }], now, 4);
-    // Written as the dose view writes insulin: "units" in full, two decimals at most, no trailing zero (ISMP list).
-    const u = (n: number) => `${Math.round(n * 100) / 100} units from earlier doses`;
-    expect(u(both)).not.toBe(u(firstOnly));
-    await page.getByText(u(both), { exact: false }).waitFor();
+    // Both doses count, by hand on the default straight line over a 4 h action time (240 minutes):
+    // 2 units × (1 − 30/240) = 1.75 plus 1 unit × (1 − 90/240) = 0.625 → 2.375, shown as "2.38 units" (the first alone: 1.75).
+    await page.getByText('2.38 units from earlier doses', { exact: false }).waitFor();
+    await page.getByText('Active insulin model: straight line over the action time (4 hours)', { exact: false }).waitFor();
     await expect(page.getByText('A calculation, not medical advice').isVisible()).resolves.toBe(true);
     await page.getByText('Insulin still active').scrollIntoViewIfNeeded();
     await rig.shot(page, 'phone-dose-two-earlier-doses');

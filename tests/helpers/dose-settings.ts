@@ -1,6 +1,8 @@
+import type { DoseSettings } from '../../shared/compute/dose';
+
 /**
  * Invented dose settings for tests (nobody's real ratios): mmol/L, 0.5-unit pen rounded down, 15 U cap,
- * 4 h action time, target 5–8 with correction to 6, low at 3.9 (IHSG 2017), ketone caution at 15.
+ * 4 h action time on the straight-line model, target 5–8 with correction to 6, low at 3.9 (IHSG 2017), ketone caution at 15.
  * The exercise table is written out (Rabasa-Lhoret et al., Diabetes Care 2001, as tabulated by ADA's
  * Diabetes Spectrum; hard for 60 minutes "not established", from memory) rather than taken from the code under test.
  */
@@ -12,6 +14,7 @@ export const TEST_DOSE_SETTINGS = {
   rounding: 'down',
   maxDoseUnits: 15,
   actionTimeHours: 4,
+  activeInsulinModel: 'linear',
   targetLow: 5,
   targetHigh: 8,
   correctionTarget: 6,
@@ -21,3 +24,26 @@ export const TEST_DOSE_SETTINGS = {
   iobConvention: 'correction_only',
   exerciseReductions: { light: { min30: 25, min60: 50 }, moderate: { min30: 50, min60: 75 }, hard: { min30: 75, min60: null } },
 } as const;
+
+/**
+ * The same invented settings as the engine takes them (glucose in mmol/L), with a 30-unit cap so worked examples
+ * are not capped unless a test asks for it.
+ */
+export function engineSettings(over: Partial<DoseSettings> = {}): DoseSettings {
+  return {
+    penIncrement: 0.5,
+    rounding: 'down',
+    maxDoseUnits: 30,
+    actionTimeHours: 4,
+    activeInsulinModel: 'linear',
+    targetLowMmol: 5,
+    targetHighMmol: 8,
+    correctionTargetMmol: 6,
+    hypoThresholdMmol: 3.9,
+    veryHighMmol: 15,
+    allowNegativeCorrection: false,
+    iobConvention: 'correction_only',
+    exerciseReductions: { light: { min30: 25, min60: 50 }, moderate: { min30: 50, min60: 75 }, hard: { min30: 75, min60: null } },
+    ...over,
+  };
+}

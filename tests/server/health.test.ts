@@ -22,6 +22,7 @@ describe('GET /api/health', () => {
     const res = await request(app).get('/api/health');
 
     expect(res.status).toBe(503);
+    expect(res.body).toEqual({ error: { code: 'internal', message: 'The database is not answering.' } });
     await dead.close();
   });
 

@@ -92,6 +92,40 @@ describe('PUT /api/profiles/:profileId/settings', () => {
     expect(await SettingsChangeModel.count({ where: { profileId: o.profileId } })).toBe(0);
   });
 
+  it('fills in the straight-line active-insulin model when a body leaves it out, and refuses an unknown model', async () => {
+    const o = await owner();
+    const { activeInsulinModel: _left, ...withoutModel } = SETTINGS;
+
+    const saved = await request(ctx.app).put(`/api/profiles/${o.profileId}/settings`).set(bearer(o.token)).send(withoutModel);
+    const wrong = await request(ctx.app).put(`/api/profiles/${o.profileId}/settings`).set(bearer(o.token)).send({ ...SETTINGS, activeInsulinModel: 'bilinear' });
+
+    expect(saved.status).toBe(200);
+    expect(saved.body.settings.activeInsulinModel).toBe('linear');
+    expect((await ProfileSettingsModel.findByPk(o.profileId))!.activeInsulinModel).toBe('linear');
+    expect(wrong.status).toBe(400);
+    expect(wrong.body.error.fieldErrors.activeInsulinModel).toContainEqual(expect.any(String));
+  });
+
+  it('records a change of active-insulin model in the history, and the dose answer then uses and names the curve', async () => {
+    const o = await owner();
+    await request(ctx.app).put(`/api/profiles/${o.profileId}/settings`).set(bearer(o.token)).send(SETTINGS);
+    await request(ctx.app).post(`/api/profiles/${o.profileId}/day-kinds`).set(bearer(o.token)).send(REST);
+
+    const res = await request(ctx.app).put(`/api/profiles/${o.profileId}/settings`).set(bearer(o.token)).send({ ...SETTINGS, activeInsulinModel: 'curve' });
+    const history = await request(ctx.app).get(`/api/profiles/${o.profileId}/settings/history`).set(bearer(o.token));
+    const dose = await request(ctx.app)
+      .post(`/api/profiles/${o.profileId}/dose-suggestions`)
+      .set(bearer(o.token))
+      .send({ carbsGrams: 0, localTime: '13:00', mealAt: '2026-03-01T12:00:00Z', earlierDoses: [{ units: 4, takenAt: '2026-03-01T10:00:00Z' }] });
+
+    expect(res.status).toBe(200);
+    const settingsChanges = history.body.changes.filter((c: { subject: string }) => c.subject === 'settings');
+    expect(settingsChanges[0]).toMatchObject({ action: 'updated', changes: [{ field: 'settings.activeInsulinModel', from: 'linear', to: 'curve' }] });
+    expect(dose.body.breakdown).toMatchObject({ activeInsulinModel: 'curve', actionTimeHours: 4 });
+    // 4 units 2 h ago on the curve over 4 h: 4 × 0.3417 (numerical integration, tests/shared/active-insulin.test.ts).
+    expect(dose.body.breakdown.activeInsulinUnits).toBeCloseTo(4 * 0.3417, 3);
+  });
+
   it('stores mg/dL settings in mmol/L and gives them back in mg/dL', async () => {
     const o = await owner();
     const mgdl = { ...SETTINGS, glucoseUnit: 'mg_dl', targetLow: 90, targetHigh: 144, correctionTarget: 108, hypoThreshold: 70, veryHigh: 270 };

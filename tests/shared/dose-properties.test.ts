@@ -1,16 +1,19 @@
 import fc from 'fast-check';
 import { computeDose, roundToIncrement, type DayKindRatios, type DoseInput, type DoseSettings } from '../../shared/compute/dose';
 import { DEFAULT_EXERCISE_REDUCTIONS, EXERCISE_INTENSITIES } from '../../shared/compute/exercise';
-import { mmolToMgdl } from '../../shared/compute/units';
 
 const T0 = Date.UTC(2026, 2, 1, 12, 0);
+/** mg/dL per mmol/L: the molar mass of glucose, 18.0156 g/mol (check-values T19), written here, not imported. */
+const MGDL_PER_MMOL = 18.0156;
 
 const settingsArb: fc.Arbitrary<DoseSettings> = fc
   .record({
     penIncrement: fc.constantFrom(0.5, 1),
     rounding: fc.constantFrom('down' as const, 'nearest' as const),
-    maxDoseUnits: fc.integer({ min: 1, max: 60 }),
+    // Decimal maximums such as 7.3: the cap must still hold (it is rounded down to the pen step).
+    maxDoseUnits: fc.double({ min: 1, max: 60, noNaN: true }),
     actionTimeHours: fc.double({ min: 2, max: 8, noNaN: true }),
+    activeInsulinModel: fc.constantFrom('linear' as const, 'curve' as const),
     targetLowMmol: fc.double({ min: 4.5, max: 6, noNaN: true }),
     rangeWidth: fc.double({ min: 0.5, max: 4, noNaN: true }),
     hypoThresholdMmol: fc.double({ min: 3, max: 4.4, noNaN: true }),
@@ -31,8 +34,11 @@ const dayKindArb: fc.Arbitrary<DayKindRatios> = fc
 
 const inputArb: fc.Arbitrary<DoseInput> = fc.record({
   carbsGrams: fc.double({ min: 0, max: 500, noNaN: true }),
+  // Glucose in either unit: a mmol/L value, or the same range in mg/dL.
   glucose: fc.option(
-    fc.record({ value: fc.double({ min: 1, max: 33, noNaN: true }), unit: fc.constant('mmol_l' as const), takenAt: fc.integer({ min: T0 - 40 * 60_000, max: T0 }) }),
+    fc
+      .record({ mmol: fc.double({ min: 1, max: 33, noNaN: true }), inMgdl: fc.boolean(), takenAt: fc.integer({ min: T0 - 40 * 60_000, max: T0 }) })
+      .map(({ mmol, inMgdl, takenAt }) => ({ value: inMgdl ? mmol * MGDL_PER_MMOL : mmol, unit: inMgdl ? ('mg_dl' as const) : ('mmol_l' as const), takenAt })),
     { nil: null },
   ),
   mealAt: fc.constant(T0),
@@ -51,8 +57,40 @@ describe('computeDose properties', () => {
     fc.assert(fc.property(settingsArb, dayKindArb, inputArb, (s, k, i) => expect(doseOf(computeDose(s, k, i))).toBeGreaterThanOrEqual(0)));
   });
 
-  it('never gives more than the maximum dose', () => {
-    fc.assert(fc.property(settingsArb, dayKindArb, inputArb, (s, k, i) => expect(doseOf(computeDose(s, k, i))).toBeLessThanOrEqual(s.maxDoseUnits)));
+  it('never gives more than the maximum dose (decimal maximums too), and the dose is on the pen step', () => {
+    fc.assert(
+      fc.property(settingsArb, dayKindArb, inputArb, (s, k, i) => {
+        const dose = doseOf(computeDose(s, k, i));
+        // 1e-6: the pen-step rounding forgives float noise of 1e-9 steps (a maximum of 59.9999999995 caps at 60).
+        expect(dose).toBeLessThanOrEqual(s.maxDoseUnits + 1e-6);
+        expect(Number.isInteger(Math.round((dose / s.penIncrement) * 1e9) / 1e9)).toBe(true);
+      }),
+    );
+  });
+
+  it('divides decimal carbohydrate as entered: meal units = grams ÷ ratio', () => {
+    fc.assert(
+      fc.property(settingsArb, dayKindArb, inputArb, (s, k, i) => {
+        const r = computeDose(s, k, i);
+        if (r.status !== 'ok') return;
+        expect(r.breakdown.mealUnits).toBeCloseTo(i.carbsGrams / k.blocks[0].carbRatio, 9);
+      }),
+    );
+  });
+
+  it('splits a dose so the part now is on the pen step and at most dose × percent, and both parts add up to the dose', () => {
+    fc.assert(
+      fc.property(settingsArb, dayKindArb, inputArb, fc.integer({ min: 10, max: 90 }), (s, k, i, nowPercent) => {
+        const r = computeDose(s, k, { ...i, split: { nowPercent, laterMinutes: 120 } });
+        if (r.status !== 'ok' || !r.split) return;
+        const { nowUnits, laterUnits } = r.split;
+        expect(Number.isInteger(Math.round((nowUnits / s.penIncrement) * 1e9) / 1e9)).toBe(true);
+        expect(nowUnits).toBeLessThanOrEqual((r.breakdown.doseUnits * nowPercent) / 100 + 1e-9);
+        expect((r.breakdown.doseUnits * nowPercent) / 100 - nowUnits).toBeLessThan(s.penIncrement);
+        expect(nowUnits + laterUnits).toBeLessThanOrEqual(r.breakdown.roundedUnits + 1e-9);
+        expect(nowUnits + laterUnits).toBeCloseTo(r.breakdown.doseUnits, 9);
+      }),
+    );
   });
 
   it('never gives less insulin for more carbohydrate', () => {
@@ -91,7 +129,7 @@ describe('computeDose properties', () => {
     fc.assert(
       fc.property(settingsArb, dayKindArb, inputArb, fc.double({ min: 2, max: 30, noNaN: true }), (s, k, i, mmol) => {
         const inMmol = computeDose(s, k, { ...i, glucose: { value: mmol, unit: 'mmol_l', takenAt: T0 } });
-        const inMgdl = computeDose(s, k, { ...i, glucose: { value: mmolToMgdl(mmol), unit: 'mg_dl', takenAt: T0 } });
+        const inMgdl = computeDose(s, k, { ...i, glucose: { value: mmol * MGDL_PER_MMOL, unit: 'mg_dl', takenAt: T0 } });
         expect(inMgdl.status).toBe(inMmol.status);
         expect(doseOf(inMgdl)).toBe(doseOf(inMmol));
       }),

@@ -1,27 +1,11 @@
-import { computeDose, fatProteinUnits, findBlock, roundToIncrement, type DayKindRatios, type DoseInput, type DoseSettings } from '../../shared/compute/dose';
-import { DEFAULT_EXERCISE_REDUCTIONS } from '../../shared/compute/exercise';
+import { computeDose, fatProteinUnits, findBlock, roundToIncrement, type DayKindRatios, type DoseInput } from '../../shared/compute/dose';
 import { carbUnitToGrams, glucoseToMmol, gramsToCarbUnit, mgdlToMmol, mmolToMgdl } from '../../shared/compute/units';
+import { engineSettings } from '../helpers/dose-settings';
 
 const T0 = Date.UTC(2026, 2, 1, 12, 0);
 const MIN = 60_000;
 
-function settings(over: Partial<DoseSettings> = {}): DoseSettings {
-  return {
-    penIncrement: 0.5,
-    rounding: 'down',
-    maxDoseUnits: 30,
-    actionTimeHours: 4,
-    targetLowMmol: 5,
-    targetHighMmol: 8,
-    correctionTargetMmol: 6,
-    hypoThresholdMmol: 3.9,
-    veryHighMmol: 15,
-    allowNegativeCorrection: false,
-    iobConvention: 'correction_only',
-    exerciseReductions: DEFAULT_EXERCISE_REDUCTIONS,
-    ...over,
-  };
-}
+const settings = engineSettings;
 function dayKind(carbRatio: number, correctionFactorMmol: number, name = 'Rest'): DayKindRatios {
   return { id: 1, name, blocks: [{ startMinute: 0, endMinute: 1440, carbRatio, correctionFactorMmol }] };
 }
@@ -195,10 +179,75 @@ describe('computeDose rules and warnings', () => {
     expect(on.breakdown.doseUnits).toBe(5);
   });
 
-  it('warns to check ketones at or above the very-high threshold', () => {
+  it('warns to check ketones above the very-high threshold, in danger tone (at it and just below: dose-boundaries.test.ts)', () => {
     const r = ok(computeDose(settings(), dayKind(10, 2), input({ glucose: fresh(16) })));
 
-    expect(r.warnings.find((w) => w.code === 'ketone_check')?.message).toMatch(/ketones/);
+    expect(r.warnings.find((w) => w.code === 'ketone_check')).toMatchObject({ tone: 'danger', message: expect.stringMatching(/check ketones/) });
+  });
+
+  it('takes half of a 4-unit dose from 2 hours ago off the correction: 6 + 2 − 2 = 6.0 U (HSCNI, check-values §3.1: 50 % active at 2 h)', () => {
+    // Straight line over 4 h: 4 × (1 − 120/240) = 2.0 units still active; correction (10 − 6) ÷ 2 = 2.0.
+    const earlierDoses = [{ units: 4, takenAt: T0 - 120 * MIN }];
+
+    const r = ok(computeDose(settings(), dayKind(10, 2), input({ glucose: fresh(10), earlierDoses })));
+
+    expect(r.breakdown).toMatchObject({ activeInsulinModel: 'linear', actionTimeHours: 4, activeInsulinUnits: 2, activeInsulinSubtracted: 2, doseUnits: 6 });
+    expect(r.warnings.find((w) => w.code === 'recent_insulin')).toMatchObject({ tone: 'caution', message: expect.stringContaining('last 4 hours is still working: about 2.0 units active') });
+  });
+
+  it('counts less of the same dose with the curve: 4 × 0.3417 = 1.37 U active, so 6 + 2 − 1.37 = 6.63 → 6.5 U', () => {
+    // 0.3417: the curve at 2 h of 4 h by numerical integration (active-insulin.test.ts).
+    const earlierDoses = [{ units: 4, takenAt: T0 - 120 * MIN }];
+
+    const r = ok(computeDose(settings({ activeInsulinModel: 'curve' }), dayKind(10, 2), input({ glucose: fresh(10), earlierDoses })));
+
+    expect(r.breakdown.activeInsulinUnits).toBeCloseTo(4 * 0.3417, 3);
+    expect(r.breakdown.doseUnits).toBe(6.5);
+  });
+
+  it('divides the carbohydrate as entered, not rounded to whole grams: 29.6 g ÷ 10 = 2.96 → 2.5 U (30 g would give 3.0)', () => {
+    const r = ok(computeDose(settings(), dayKind(10, 2), input({ carbsGrams: 29.6, glucose: fresh(6) })));
+
+    expect(r.breakdown.mealUnits).toBeCloseTo(2.96, 12);
+    expect(r.breakdown.doseUnits).toBe(2.5);
+  });
+
+  it('splits 5 U at 65 % into 3.0 now and 2.0 later (5 × 0.65 = 3.25, rounded down to the 0.5 step)', () => {
+    const r = ok(computeDose(settings({ rounding: 'nearest' }), dayKind(10, 2), input({ carbsGrams: 50, glucose: fresh(6), split: { nowPercent: 65, laterMinutes: 120 } })));
+
+    expect(r.breakdown.doseUnits).toBe(5);
+    expect(r.split).toEqual({ nowUnits: 3, laterUnits: 2, laterMinutes: 120, nowPercent: 65 });
+  });
+
+  it('makes no split of a zero dose', () => {
+    const r = ok(computeDose(settings(), dayKind(10, 2), input({ carbsGrams: 0, glucose: fresh(6), split: { nowPercent: 50, laterMinutes: 60 } })));
+
+    expect(r.split).toBeNull();
+  });
+
+  it('names every warning in its tone with words that say what to do', () => {
+    const missing = computeDose(settings(), dayKind(10, 2), input());
+    const stale = computeDose(settings(), dayKind(10, 2), input({ glucose: { value: 9, unit: 'mmol_l', takenAt: T0 - 30 * MIN } }));
+    const negative = computeDose(settings({ allowNegativeCorrection: true }), dayKind(10, 2), input({ glucose: fresh(4.5) }));
+    const none = computeDose(null, null, input());
+    const exercise = computeDose(settings(), dayKind(10, 2), input({ glucose: fresh(6), exercise: { intensity: 'light', durationMinutes: 30, startsInMinutes: 10 } }));
+    const low = computeDose(settings(), dayKind(10, 2), input({ glucose: fresh(3) }));
+    const all = [missing, stale, negative, none, exercise, low].flatMap((r) => r.warnings);
+
+    expect(all.map(({ code, tone }) => [code, tone])).toEqual([
+      ['glucose_missing', 'caution'],
+      ['glucose_stale', 'caution'],
+      ['negative_correction', 'info'],
+      ['no_settings', 'caution'],
+      ['exercise_note', 'info'],
+      ['treat_low', 'danger'],
+    ]);
+    expect(all[0].message).toMatch(/^No glucose reading: the correction is left out\. Check your glucose/);
+    expect(all[1].message).toMatch(/^The glucose reading is more than 15 minutes from the meal time/);
+    expect(all[2].message).toMatch(/below your target range, so the dose is lowered/);
+    expect(all[3].message).toMatch(/^No dose can be suggested until the ratios/);
+    expect(all[4].message).toMatch(/^light exercise for about 30 minutes/);
+    expect(all[5].message).toMatch(/^No insulin now\. Treat the low first/);
   });
 
   it('caps the dose at the maximum with a warning', () => {
@@ -243,7 +292,17 @@ describe('computeDose rules and warnings', () => {
     expect(breakfast.breakdown.carbRatio).toBe(8);
     expect(lunch.breakdown.carbRatio).toBe(12);
     expect(lunch.dayKind).toEqual({ id: 7, name: 'Long ride' });
+    expect(lunch.block).toEqual({ startMinute: 660, endMinute: 1440 });
     expect(findBlock(kind.blocks, 1439)?.carbRatio).toBe(12);
+    expect(findBlock(kind.blocks, 659.9)?.carbRatio).toBe(8);
+    expect(findBlock(kind.blocks, 1440)?.carbRatio).toBe(8);
+    expect(findBlock(kind.blocks, -1)?.carbRatio).toBe(12);
+  });
+
+  it('suggests nothing when no block covers the meal time', () => {
+    const partial: DayKindRatios = { id: 2, name: 'Half', blocks: [{ startMinute: 0, endMinute: 600, carbRatio: 10, correctionFactorMmol: 2 }] };
+
+    expect(computeDose(settings(), partial, input({ mealMinuteOfDay: 700 })).status).toBe('no_settings');
   });
 });
 
@@ -281,21 +340,40 @@ describe('units used by the dose engine', () => {
   });
 
   // T14 / §3.2: the 500, 1800 and 100 rules, as a check of the engine's arithmetic only (ratios are never suggested).
-  it('T14 ratios from a total daily dose of 50 U give the same dose in both glucose units', () => {
+  // mg/dL per mmol/L = 18.0156 (T19, molar mass of glucose), written here rather than imported.
+  it('T14 ratios from a total daily dose of 50 U give the same 8 U in mmol/L and through the mg/dL path', () => {
     const icr = 500 / 50;
     const isfMgdl = 1800 / 50;
     const isfMmol = 100 / 50;
     expect([icr, isfMgdl, isfMmol]).toEqual([10, 36, 2]);
-
+    // 60 g ÷ 10 = 6 U; (10 − 6) ÷ 2 = 2 U in mmol/L; (180.156 − 108.0936) ÷ 36.0312 = 2 U in mg/dL → 8 U either way.
     const s = settings({ penIncrement: 1, correctionTargetMmol: 6 });
-    const r = ok(computeDose(s, dayKind(icr, isfMmol), input({ glucose: fresh(10) })));
 
-    expect(r.breakdown.doseUnits).toBe(8);
+    const inMmol = ok(computeDose(s, dayKind(icr, isfMmol), input({ glucose: fresh(10) })));
+    const inMgdl = ok(computeDose(s, dayKind(icr, isfMmol), input({ glucose: fresh(10 * 18.0156, 'mg_dl') })));
+
+    expect(inMmol.breakdown.doseUnits).toBe(8);
+    expect(inMgdl.breakdown.glucoseMmol).toBeCloseTo(10, 9);
+    expect(inMgdl.breakdown.doseUnits).toBe(8);
+  });
+
+  it('mg/dL profile: correction factor 36 mg/dL per unit, 180 mg/dL against a target of 108 → 2.0 U', () => {
+    // By hand: (180 − 108) ÷ 36 = 72 ÷ 36 = 2.0 U. Stored in mmol/L with 18.0156 mg/dL per mmol/L (T19):
+    // target 108 ÷ 18.0156 = 5.995, factor 36 ÷ 18.0156 = 1.998, reading 180 ÷ 18.0156 = 9.991 → (9.991 − 5.995) ÷ 1.998 = 2.0.
+    const mg = (v: number) => v / 18.0156;
+    const s = settings({ targetLowMmol: mg(90), targetHighMmol: mg(140), correctionTargetMmol: mg(108) });
+
+    const r = ok(computeDose(s, dayKind(10, mg(36)), input({ carbsGrams: 0, glucose: fresh(180, 'mg_dl') })));
+
+    expect(r.breakdown.correctionUnits).toBeCloseTo(2, 9);
+    expect(r.breakdown.doseUnits).toBe(2);
   });
 
   it('T23 fat-protein units: 20 g fat + 30 g protein = 3.0 FPU (Pańkowska 2009)', () => {
     expect(fatProteinUnits(20, 30)).toBe(3);
     expect(fatProteinUnits(28, 16)).toBeCloseTo(3.16, 9);
     expect(fatProteinUnits(null, null)).toBeNull();
+    expect(fatProteinUnits(20, null)).toBeCloseTo(1.8, 12);
+    expect(fatProteinUnits(undefined, 30)).toBeCloseTo(1.2, 12);
   });
 });

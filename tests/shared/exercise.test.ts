@@ -39,3 +39,23 @@ describe('exerciseReduction', () => {
     expect(exerciseReduction({ intensity: 'moderate', durationMinutes: 60, startsInMinutes: 0 }, table).percent).toBe(40);
   });
 });
+
+describe('exerciseReduction notes (shown on the dose screen)', () => {
+  it.each([
+    { name: 'too late', exercise: { durationMinutes: 60, startsInMinutes: 200 }, note: 'Exercise starting more than 3 hours after the meal does not change the meal dose in the table.' },
+    { name: 'too short', exercise: { durationMinutes: 10, startsInMinutes: 0 }, note: 'Exercise under 20 minutes is shorter than the table covers; no reduction made.' },
+    { name: 'about 30 minutes', exercise: { durationMinutes: 30, startsInMinutes: 0 }, note: 'moderate exercise for about 30 minutes, starting within 3 hours.' },
+    { name: 'about 60 minutes', exercise: { durationMinutes: 60, startsInMinutes: 0 }, note: 'moderate exercise for about 60 minutes, starting within 3 hours.' },
+  ])('$name', ({ exercise, note }) => {
+    expect(exerciseReduction({ intensity: 'moderate', ...exercise }).note).toBe(note);
+  });
+
+  it('says when nothing is established, and that longer sessions may need more', () => {
+    expect(exerciseReduction({ intensity: 'hard', durationMinutes: 60, startsInMinutes: 0 }).note).toBe(
+      'No reduction is established for this intensity and length; none made. Ask your diabetes team.',
+    );
+    expect(exerciseReduction({ intensity: 'light', durationMinutes: 120, startsInMinutes: 0 }).note).toBe(
+      'light exercise for about 60 minutes, starting within 3 hours. Longer sessions than the table covers may need more; ask your diabetes team.',
+    );
+  });
+});
