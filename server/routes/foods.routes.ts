@@ -7,7 +7,8 @@ import type { Config } from '../config';
 import { AppError } from '../errors';
 import { requireAuth } from '../middleware/auth';
 import { toFieldErrors, validate } from '../middleware/validate';
-import { getFood, getFoodPhotoPath, searchFoods } from '../services/foods.service';
+import { searchFoods } from '../services/food-search.service';
+import { getFood, getFoodPhotoPath } from '../services/foods.service';
 import { createLabelFood, deleteLabelFood, LABEL_PHOTO_MAX_BYTES } from '../services/label-foods.service';
 
 const upload = multer({ storage: multer.memoryStorage(), limits: { fileSize: LABEL_PHOTO_MAX_BYTES, files: 1 } });

@@ -63,6 +63,8 @@ export const foodSearchQuerySchema = z.object({
   q: z.string().trim().max(100, 'Search at most 100 characters.').default(''),
   source: foodSourceSchema.optional(),
   group: z.string().trim().max(100).optional(),
+  /** The profile whose preferred table ranks first (default: the user's own profile). */
+  profileId: z.coerce.number().int().positive().optional(),
   limit: z.coerce.number().int().min(1, 'At least 1.').max(50, 'At most 50.').default(20),
   cursor: z
     .string()

@@ -11,3 +11,7 @@ export type CarbUnit = z.infer<typeof carbUnitSchema>;
 /** Glucose display unit; values are stored in mmol/L. */
 export const glucoseUnitSchema = z.enum(['mmol_l', 'mg_dl']);
 export type GlucoseUnit = z.infer<typeof glucoseUnitSchema>;
+
+/** Which open food table search shows first when both have a match. */
+export const preferredFoodTableSchema = z.enum(['usda_sr28', 'ifct2017']);
+export type PreferredFoodTable = z.infer<typeof preferredFoodTableSchema>;

@@ -1,6 +1,6 @@
 import type { Page } from 'playwright-core';
 import { FoodModel } from '../../server/models';
-import { normaliseSearchText } from '../../server/importers/food-rows';
+import { normaliseSearchText } from '../../server/search/search-text';
 import { PHONE, WIDE, startBrowserRig, type BrowserRig } from '../helpers/browser';
 
 let rig: BrowserRig;
