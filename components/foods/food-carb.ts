@@ -1,4 +1,4 @@
-import { carbInBasis } from '../../shared/compute/nutrients';
+import { carbInBasis, carbToShow } from '../../shared/compute/nutrients';
 import { formatCarb } from '../../shared/compute/units';
 import type { FoodSummary } from '../../shared/schemas/food';
 import type { CarbBasis, CarbUnit } from '../../shared/schemas/units';
@@ -16,10 +16,17 @@ export function carbFor(food: Pick<FoodSummary, 'per100g'>, grams: number, basis
   return per100 == null ? null : (per100 * grams) / 100;
 }
 
-/** "23.6 g" (or "2.4 CP"…), or "not known". */
+export const FIBRE_NOT_MEASURED = 'total carbohydrate: fibre was not measured, so the available amount is not known';
+
+/**
+ * "23.6 g" (or "2.4 CP"…), or "not known". In the available basis a food whose fibre was not measured shows its
+ * total with a plain note instead of "not known".
+ */
 export function carbText(food: Pick<FoodSummary, 'per100g'>, grams: number, basis: CarbBasis, unit: CarbUnit): string {
-  const value = carbFor(food, grams, basis);
-  return value == null ? 'not known' : formatCarb(value, unit);
+  const shown = carbToShow(food.per100g, basis);
+  if (shown.grams == null) return 'not known';
+  const value = formatCarb((shown.grams * grams) / 100, unit);
+  return shown.fibreNotMeasured ? `${value} (${FIBRE_NOT_MEASURED})` : value;
 }
 
 /** Short source name for lists ("IFCT 2017", "USDA SR28", "Your label"). */

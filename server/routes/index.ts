@@ -3,6 +3,7 @@ import type { Sequelize } from 'sequelize';
 import type { Config } from '../config';
 import { adminRouter } from './admin.routes';
 import { authRouter } from './auth.routes';
+import { foodSynonymsRouter } from './food-synonyms.routes';
 import { foodsRouter } from './foods.routes';
 import { importsRouter } from './imports.routes';
 import { doseRouter } from './dose.routes';
@@ -22,6 +23,7 @@ export function apiRouter(config: Config, sequelize: Sequelize) {
   api.use(authRouter(config));
   api.use(adminRouter(config));
   api.use(foodsRouter(config));
+  api.use(foodSynonymsRouter(config));
   api.use(importsRouter(config, sequelize));
   api.use(recipesRouter(config));
   api.use(photosRouter(config));

@@ -1,6 +1,7 @@
 import { literal, Op, QueryTypes } from 'sequelize';
 import type { WhereOptions } from 'sequelize';
 import type { Food, FoodSearchPage, FoodSearchQuery, FoodSummary } from '../../shared/schemas/food';
+import { carbToShow } from '../../shared/compute/nutrients';
 import { AppError } from '../errors';
 import { FoodMeasureModel, FoodModel } from '../models';
 import { normaliseSearchText } from '../search/search-text';
@@ -37,6 +38,8 @@ export function toFoodSummary(f: FoodModel): FoodSummary {
     scientificName: f.extra?.scientificName ?? null,
     ndbNumber: f.extra?.ndbNumber ?? null,
     brand: f.extra?.brand ?? null,
+    branded: Boolean(f.extra?.branded),
+    fibreNotMeasured: carbToShow(f, 'available').fibreNotMeasured,
     carbStarchSugars: f.extra?.carbStarchSugars ?? null,
   };
 }
