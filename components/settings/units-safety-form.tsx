@@ -9,7 +9,7 @@ import {
   type ProfileSettingsFormValues,
   type ProfileSettingsInput,
 } from '../../shared/schemas/profile-settings';
-import type { GlucoseUnit } from '../../shared/schemas/units';
+import { PREFERRED_FOOD_TABLE_CHOICES, type GlucoseUnit } from '../../shared/schemas/units';
 import { useLayout } from '../theme/use-theme';
 import { Button } from '../ui/button';
 import { Callout } from '../ui/callout';
@@ -20,7 +20,7 @@ import { ChoiceGroup } from '../ui/choice-group';
 
 const GLUCOSE_FIELDS = ['targetLow', 'targetHigh', 'correctionTarget', 'hypoThreshold', 'veryHigh'] as const;
 export const SETTINGS_FIELDS: FieldPath<ProfileSettingsFormValues>[] = [
-  'glucoseUnit', 'carbBasis', 'carbUnit', 'penIncrement', 'rounding', 'maxDoseUnits', 'actionTimeHours', ...GLUCOSE_FIELDS,
+  'glucoseUnit', 'carbBasis', 'carbUnit', 'preferredFoodTable', 'penIncrement', 'rounding', 'maxDoseUnits', 'actionTimeHours', ...GLUCOSE_FIELDS,
   'allowNegativeCorrection', 'iobConvention',
   ...EXERCISE_INTENSITIES.flatMap((k) => [`exerciseReductions.${k}.min30`, `exerciseReductions.${k}.min60`] as FieldPath<ProfileSettingsFormValues>[]),
 ];
@@ -103,6 +103,19 @@ export function UnitsSafetyForm({
                 { value: 'exchange15', label: '15 g exchanges' },
               ]}
               value={field.value}
+              onChange={field.onChange}
+            />
+          )}
+        />
+        <Controller
+          control={form.control}
+          name="preferredFoodTable"
+          render={({ field }) => (
+            <ChoiceGroup
+              label="Food table shown first in search"
+              choices={PREFERRED_FOOD_TABLE_CHOICES}
+              value={field.value ?? 'usda_sr28'}
+              hint="Both tables are always searched; this one comes first when both have the food."
               onChange={field.onChange}
             />
           )}

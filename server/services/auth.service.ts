@@ -46,6 +46,7 @@ export async function getMe(user: UserModel): Promise<Me> {
         glucoseUnit: profile.glucoseUnit,
         carbBasis: profile.carbBasis,
         carbUnit: profile.carbUnit,
+        preferredFoodTable: profile.preferredFoodTable,
       };
     })
     .sort((a, b) => order[a.access] - order[b.access]);
@@ -69,7 +70,7 @@ export async function signUp(config: Config, input: SignUpInput, role: UserRole 
       );
       if (role === 'member') {
         const profile = await ProfileModel.create(
-          { displayName: input.displayName, ownerUserId: created.id },
+          { displayName: input.displayName, ownerUserId: created.id, preferredFoodTable: input.preferredFoodTable ?? 'usda_sr28' },
           { transaction },
         );
         await ProfileAccessModel.create(

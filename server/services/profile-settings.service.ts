@@ -31,6 +31,7 @@ function toView(profile: ProfileModel, row: ProfileSettingsModel | null): Profil
     glucoseUnit: u,
     carbBasis: profile.carbBasis,
     carbUnit: profile.carbUnit,
+    preferredFoodTable: profile.preferredFoodTable,
     settings: row && {
       penIncrement: row.penIncrement,
       rounding: row.rounding,
@@ -63,7 +64,10 @@ export async function updateSettings(profileId: number, userId: number, input: P
     const existing = await ProfileSettingsModel.findByPk(profileId, { transaction });
     const before = toView(profile, existing);
     const u = input.glucoseUnit;
-    await profile.update({ glucoseUnit: u, carbBasis: input.carbBasis, carbUnit: input.carbUnit }, { transaction });
+    await profile.update(
+      { glucoseUnit: u, carbBasis: input.carbBasis, carbUnit: input.carbUnit, preferredFoodTable: input.preferredFoodTable ?? profile.preferredFoodTable },
+      { transaction },
+    );
     const values = {
       profileId,
       penIncrement: input.penIncrement,
@@ -220,7 +224,7 @@ function flatten(value: unknown, prefix = '', out: Record<string, unknown> = {})
 
 // PostgreSQL's jsonb reorders keys, so changes are listed in the order the screens show the fields.
 const FIELD_ORDER = [
-  'name', 'isDefault', 'longActingUnits', 'glucoseUnit', 'carbBasis', 'carbUnit', 'penIncrement', 'rounding', 'maxDoseUnits',
+  'name', 'isDefault', 'longActingUnits', 'glucoseUnit', 'carbBasis', 'carbUnit', 'preferredFoodTable', 'penIncrement', 'rounding', 'maxDoseUnits',
   'actionTimeHours', 'targetLow', 'targetHigh', 'correctionTarget', 'hypoThreshold', 'veryHigh', 'allowNegativeCorrection',
   'iobConvention', 'exerciseReductions', 'light', 'moderate', 'hard', 'min30', 'min60', 'blocks', 'from', 'to', 'carbRatio', 'correctionFactor',
 ];

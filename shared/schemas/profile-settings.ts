@@ -1,7 +1,7 @@
 import { z } from 'zod';
 import { EXERCISE_INTENSITIES } from '../compute/exercise';
 import { formatGlucose, glucoseToMmol } from '../compute/units';
-import { carbBasisSchema, carbUnitSchema, glucoseUnitSchema, type GlucoseUnit } from './units';
+import { carbBasisSchema, carbUnitSchema, glucoseUnitSchema, preferredFoodTableSchema, type GlucoseUnit, type PreferredFoodTable } from './units';
 
 /** A number from JSON or a form field ("4,5" accepted); empty is missing. */
 export function numberField(required: string) {
@@ -78,6 +78,8 @@ export const profileSettingsInputSchema = z
     glucoseUnit: glucoseUnitSchema,
     carbBasis: carbBasisSchema,
     carbUnit: carbUnitSchema,
+    /** Which food table search shows first; unchanged when not given. */
+    preferredFoodTable: preferredFoodTableSchema.optional(),
     penIncrement: numberField('Enter the pen increment.').refine((v) => [0.5, 1].includes(v), 'The pen increment must be 0.5 or 1 unit.'),
     rounding: roundingSchema,
     maxDoseUnits: numberField('Enter the maximum single dose.').refine((v) => v >= 1 && v <= 100, 'Use a maximum from 1 to 100 units.'),
@@ -114,7 +116,8 @@ export type ProfileSettingsView = {
   glucoseUnit: GlucoseUnit;
   carbBasis: z.infer<typeof carbBasisSchema>;
   carbUnit: z.infer<typeof carbUnitSchema>;
-  settings: Omit<ProfileSettingsInput, 'glucoseUnit' | 'carbBasis' | 'carbUnit'> | null;
+  preferredFoodTable: PreferredFoodTable;
+  settings: Omit<ProfileSettingsInput, 'glucoseUnit' | 'carbBasis' | 'carbUnit' | 'preferredFoodTable'> | null;
   updatedAt: string | null;
 };
 
