@@ -1,10 +1,9 @@
-import { literal, Op, QueryTypes } from 'sequelize';
+import { literal, Op } from 'sequelize';
 import type { WhereOptions } from 'sequelize';
-import type { Food, FoodSearchPage, FoodSearchQuery, FoodSummary } from '../../shared/schemas/food';
+import type { Food, FoodSummary } from '../../shared/schemas/food';
 import { carbToShow } from '../../shared/compute/nutrients';
 import { AppError } from '../errors';
 import { FoodMeasureModel, FoodModel } from '../models';
-import { normaliseSearchText } from '../search/search-text';
 
 /** Maps a food row to the API shape, without measures. */
 export function toFoodSummary(f: FoodModel): FoodSummary {
