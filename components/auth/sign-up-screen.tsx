@@ -3,9 +3,11 @@ import { Link, router, useLocalSearchParams } from 'expo-router';
 import { useState } from 'react';
 import { useForm } from 'react-hook-form';
 import { PASSWORD_MIN_LENGTH, signUpInputSchema, type SignUpInput } from '../../shared/schemas/auth';
+import { PREFERRED_FOOD_TABLE_CHOICES } from '../../shared/schemas/units';
 import { useSignUp } from '../api/auth';
 import { Button } from '../ui/button';
 import { Callout } from '../ui/callout';
+import { FormChoiceGroup } from '../ui/form-choice-group';
 import { FormTextField } from '../ui/form-text-field';
 import { applyServerErrors } from '../ui/form-errors';
 import { Text } from '../ui/text';
@@ -18,14 +20,14 @@ export function SignUpScreen() {
   const [formError, setFormError] = useState<string>();
   const form = useForm<SignUpInput>({
     resolver: zodResolver(signUpInputSchema),
-    defaultValues: { email: '', displayName: '', password: '' },
+    defaultValues: { email: '', displayName: '', password: '', preferredFoodTable: 'usda_sr28' },
   });
 
   const onSubmit = form.handleSubmit((values) => {
     setFormError(undefined);
     signUp.mutate(values, {
       onSuccess: () => router.replace(safeNext(next)),
-      onError: (error) => setFormError(applyServerErrors(error, form.setError, ['email', 'displayName', 'password'])),
+      onError: (error) => setFormError(applyServerErrors(error, form.setError, ['email', 'displayName', 'password', 'preferredFoodTable'])),
     });
   });
 
@@ -42,6 +44,13 @@ export function SignUpScreen() {
         secureTextEntry
         autoComplete="new-password"
         onSubmitEditing={onSubmit}
+      />
+      <FormChoiceGroup
+        control={form.control}
+        name="preferredFoodTable"
+        label="Food table to show first"
+        choices={PREFERRED_FOOD_TABLE_CHOICES}
+        hint="Both are searched. You can change this later in settings."
       />
       <Button label="Create account" size="lg" loading={signUp.isPending} onPress={onSubmit} />
       <Text color="textMuted">

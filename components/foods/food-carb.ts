@@ -1,4 +1,4 @@
-import { carbInBasis } from '../../shared/compute/nutrients';
+import { carbInBasis, carbToShow } from '../../shared/compute/nutrients';
 import { formatCarb } from '../../shared/compute/units';
 import type { FoodSummary } from '../../shared/schemas/food';
 import type { CarbBasis, CarbUnit } from '../../shared/schemas/units';
@@ -16,10 +16,21 @@ export function carbFor(food: Pick<FoodSummary, 'per100g'>, grams: number, basis
   return per100 == null ? null : (per100 * grams) / 100;
 }
 
-/** "23.6 g" (or "2.4 CP"…), or "not known". */
+/** The short note beside a total shown in the available basis because fibre was not measured. */
+export const FIBRE_NOT_MEASURED = 'total, fibre not measured';
+
+/**
+ * "23.6 g" (or "2.4 CP"…), or "not known". In the available basis a food whose fibre was not measured shows its
+ * total instead of "not known" (carbToShow); say so with `fibreNotMeasured` beside it.
+ */
 export function carbText(food: Pick<FoodSummary, 'per100g'>, grams: number, basis: CarbBasis, unit: CarbUnit): string {
-  const value = carbFor(food, grams, basis);
-  return value == null ? 'not known' : formatCarb(value, unit);
+  const shown = carbToShow(food.per100g, basis);
+  return shown.grams == null ? 'not known' : formatCarb((shown.grams * grams) / 100, unit);
+}
+
+/** True when the carbohydrate shown in this basis is the total because fibre was not measured. */
+export function fibreNotMeasured(food: Pick<FoodSummary, 'per100g'>, basis: CarbBasis): boolean {
+  return carbToShow(food.per100g, basis).fibreNotMeasured;
 }
 
 /** Short source name for lists ("IFCT 2017", "USDA SR28", "Your label"). */

@@ -6,7 +6,7 @@ import { useFoodPhoto } from '../api/foods';
 import { Callout } from '../ui/callout';
 import { Card } from '../ui/card';
 import { Text } from '../ui/text';
-import { BASIS_WORDS, carbText } from './food-carb';
+import { BASIS_WORDS, carbText, fibreNotMeasured } from './food-carb';
 
 const NUTRIENT_LABELS: Record<NutrientKey, string> = {
   energyKcal: 'Energy (kcal)',
@@ -47,6 +47,13 @@ export function FoodDetail({ food, basis, unit }: { food: Food; basis: CarbBasis
           </Text>
         ) : null}
       </Card>
+      {fibreNotMeasured(food, basis) ? (
+        <Callout tone="caution" title="Fibre not measured">
+          The table gives total carbohydrate (fibre included) but no fibre value, so the available carbohydrate is not known.
+          The numbers here are the total, which may count some fibre as carbohydrate. You can still use the food knowingly; a
+          recipe using it will say its available total is incomplete.
+        </Callout>
+      ) : null}
       {carbText(food, 100, basis, unit) === 'not known' ? (
         <Callout tone="caution" title="Carbohydrate not known">
           The source does not give enough to count this food&apos;s carbohydrate in your basis. A recipe using it will say its

@@ -4,7 +4,7 @@ import type { CarbBasis, CarbUnit } from '../../shared/schemas/units';
 import { MIN_TOUCH } from '../theme/tokens';
 import { useTheme } from '../theme/use-theme';
 import { Text } from '../ui/text';
-import { BASIS_SHORT, carbText, sourceShort } from './food-carb';
+import { BASIS_SHORT, carbText, FIBRE_NOT_MEASURED, fibreNotMeasured, sourceShort } from './food-carb';
 
 type Props = {
   food: FoodSummary;
@@ -16,15 +16,16 @@ type Props = {
   onToggleFavourite: () => void;
 };
 
-/** One food in a list: name, source, and carbohydrate per 100 g in the profile's basis; a star keeps it handy. */
+/** One food in a list on one or two lines: name, source and group, carbohydrate per 100 g in the profile's basis; a star keeps it handy. */
 export function FoodRow({ food, basis, unit, favourite, selected, onPress, onToggleFavourite }: Props) {
   const t = useTheme();
   const carb = carbText(food, 100, basis, unit);
+  const caption = fibreNotMeasured(food, basis) ? `${FIBRE_NOT_MEASURED} / 100 g` : `${BASIS_SHORT[basis]} / 100 g`;
   return (
     <View style={[styles.row, { borderColor: selected ? t.colors.primary : t.colors.border, backgroundColor: t.colors.surface }]}>
       <Pressable
         role="button"
-        aria-label={`${food.name}, ${carb} ${BASIS_SHORT[basis]} per 100 g`}
+        aria-label={`${food.name}, ${carb} ${caption.replace('/', 'per')}`}
         onPress={onPress}
         style={({ pressed }) => [styles.main, pressed && { backgroundColor: t.colors.surfaceAlt }]}
       >
@@ -42,7 +43,7 @@ export function FoodRow({ food, basis, unit, favourite, selected, onPress, onTog
             {carb}
           </Text>
           <Text variant="caption" color="textMuted">
-            {BASIS_SHORT[basis]} / 100 g
+            {caption}
           </Text>
         </View>
       </Pressable>

@@ -18,6 +18,7 @@ const WORDS: Record<string, string> = {
   glucoseUnit: 'glucose unit',
   carbBasis: 'carbohydrate basis',
   carbUnit: 'carbohydrate unit',
+  preferredFoodTable: 'food table shown first',
   penIncrement: 'pen step',
   rounding: 'rounding',
   maxDoseUnits: 'largest single dose',

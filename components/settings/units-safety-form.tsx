@@ -10,7 +10,7 @@ import {
   type ProfileSettingsFormValues,
   type ProfileSettingsInput,
 } from '../../shared/schemas/profile-settings';
-import type { GlucoseUnit } from '../../shared/schemas/units';
+import { PREFERRED_FOOD_TABLE_CHOICES, type GlucoseUnit } from '../../shared/schemas/units';
 import { useLayout } from '../theme/use-theme';
 import { Button } from '../ui/button';
 import { Callout } from '../ui/callout';
@@ -22,7 +22,7 @@ import { FormChoiceGroup } from '../ui/form-choice-group';
 
 const GLUCOSE_FIELDS = ['targetLow', 'targetHigh', 'correctionTarget', 'hypoThreshold', 'veryHigh'] as const;
 export const SETTINGS_FIELDS: FieldPath<ProfileSettingsFormValues>[] = [
-  'glucoseUnit', 'carbBasis', 'carbUnit', 'penIncrement', 'rounding', 'maxDoseUnits', 'actionTimeHours', 'activeInsulinModel', ...GLUCOSE_FIELDS,
+  'glucoseUnit', 'carbBasis', 'carbUnit', 'preferredFoodTable', 'penIncrement', 'rounding', 'maxDoseUnits', 'actionTimeHours', 'activeInsulinModel', ...GLUCOSE_FIELDS,
   'allowNegativeCorrection', 'iobConvention',
   ...EXERCISE_INTENSITIES.flatMap((k) => [`exerciseReductions.${k}.min30`, `exerciseReductions.${k}.min60`] as FieldPath<ProfileSettingsFormValues>[]),
 ];
@@ -97,6 +97,13 @@ export function UnitsSafetyForm({
             { value: 'exchange15', label: '15 g exchanges' },
           ]}
         />
+        <FormChoiceGroup
+          control={form.control}
+          name="preferredFoodTable"
+          label="Food table shown first in search"
+          choices={PREFERRED_FOOD_TABLE_CHOICES}
+          hint="Both tables are always searched; this one comes first when both have the food."
+        />
       </Card>
       <Card>
         <Text variant="heading">Pen and limits</Text>
@@ -117,21 +124,15 @@ export function UnitsSafetyForm({
           <FormTextField control={form.control} name="maxDoseUnits" label="Largest single dose" unit="units" inputMode="decimal" />
           <FormTextField control={form.control} name="actionTimeHours" label="Insulin action time" unit="hours" inputMode="decimal" hint="2 to 8 hours, as your team set it." />
         </View>
-        <Controller
+        <FormChoiceGroup
           control={form.control}
           name="activeInsulinModel"
-          render={({ field }) => (
-            <ChoiceGroup
-              label="Insulin still active from earlier doses falls as"
-              choices={[
-                { value: 'linear', label: `${ACTIVE_INSULIN_MODEL_WORDS.linear} (default)` },
-                { value: 'curve', label: ACTIVE_INSULIN_MODEL_WORDS.curve },
-              ]}
-              value={field.value}
-              onChange={field.onChange}
-              hint="The straight line counts half a dose as active halfway through the action time, as the education advice does. The curve counts more in the first hour and less after that, so it can suggest more insulin; ask your diabetes team."
-            />
-          )}
+          label="Insulin still active from earlier doses falls as"
+          choices={[
+            { value: 'linear', label: `${ACTIVE_INSULIN_MODEL_WORDS.linear} (default)` },
+            { value: 'curve', label: ACTIVE_INSULIN_MODEL_WORDS.curve },
+          ]}
+          hint="The straight line counts half a dose as active halfway through the action time, as the education advice does. The curve counts more in the first hour and less after that, so it can suggest more insulin; ask your diabetes team."
         />
       </Card>
       <Card>

@@ -22,6 +22,7 @@ function formDefaults(view: ProfileSettingsView): ProfileSettingsFormValues {
     glucoseUnit: u,
     carbBasis: view.carbBasis,
     carbUnit: view.carbUnit,
+    preferredFoodTable: view.preferredFoodTable,
     penIncrement: s?.penIncrement ?? null,
     rounding: s?.rounding ?? 'down',
     maxDoseUnits: str(s?.maxDoseUnits),

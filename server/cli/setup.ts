@@ -5,7 +5,7 @@
 import { loadConfig } from '../config';
 import { createSequelize, migrate } from '../db';
 import { ensureAdmin } from '../services/auth.service';
-import { ensureDefaultDataset } from '../services/imports.service';
+import { ensureDefaultDatasets } from '../services/imports.service';
 import { runDemoStep } from '../seed/demo';
 
 async function main() {
@@ -21,12 +21,13 @@ async function main() {
     }
     if (process.env.SKIP_DEFAULT_DATASET === '1') console.log('Default food table skipped (SKIP_DEFAULT_DATASET=1).');
     else {
-      const ifct = await ensureDefaultDataset(sequelize);
-      console.log(
-        ifct.result
-          ? `Food table: IFCT 2017 imported (${ifct.result.rowsInserted} new, ${ifct.result.rowsUpdated} updated, ${ifct.result.rowsUnchanged} unchanged).`
-          : 'Food table: IFCT 2017 already imported.',
-      );
+      const started = Date.now();
+      for (const d of await ensureDefaultDatasets(sequelize)) {
+        const name = d.dataset === 'ifct2017' ? 'IFCT 2017' : 'USDA SR28';
+        const r = d.result;
+        console.log(r ? `Food table: ${name} imported (${r.rowsInserted} new, ${r.rowsUpdated} updated, ${r.rowsUnchanged} unchanged).` : `Food table: ${name} already imported.`);
+      }
+      console.log(`Food tables ready in ${((Date.now() - started) / 1000).toFixed(1)} s.`);
     }
     await runDemoStep(config);
   } finally {

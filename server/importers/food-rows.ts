@@ -1,28 +1,5 @@
 import type { Nutrients } from '../../shared/compute/nutrients';
 
-/** Lower-case, accents removed, punctuation turned into single spaces: the form search compares. */
-export function normaliseSearchText(s: string): string {
-  return s
-    .normalize('NFD')
-    .replace(/\p{M}+/gu, '')
-    .toLowerCase()
-    .replace(/[^\p{L}\p{N}]+/gu, ' ')
-    .trim();
-}
-
-// Words that mark a prepared or processed variant; the plain raw food ranks before them.
-const PROCESSED = /\b(cooked|boiled|fried|roasted|baked|canned|dried|dehydrated|powder|flour|juice|frozen|sweetened|syrup|chips|candied|pickled|salted|toasted|stewed|microwaved|prepared|mix|bread|cake|pie|sauce|drink|beverage|flakes|puffed|instant|fast foods|restaurant)\b/;
-
-/** Search columns for a food: its normalised name, the name plus aliases, and a raw-before-processed rank penalty. */
-export function searchKeys(name: string, altNames: string[]): { nameKey: string; searchText: string; rankPenalty: number } {
-  const nameKey = normaliseSearchText(name);
-  const searchText = normaliseSearchText([name, ...altNames].join(' '));
-  let rankPenalty = 1;
-  if (/\b(raw|fresh|ripe|whole)\b/.test(nameKey)) rankPenalty = 0;
-  if (PROCESSED.test(nameKey)) rankPenalty = 2;
-  return { nameKey, searchText, rankPenalty };
-}
-
 /**
  * Completes the carbohydrate pair from what a source published (see shared/reference/datasets.md §4):
  * available = total − fibre, total = available + fibre, only where fibre is known. Returns the keys derived.

@@ -1,5 +1,6 @@
 import fs from 'node:fs';
 import path from 'node:path';
+import zlib from 'node:zlib';
 import { parse } from 'csv-parse';
 import { ImportFileError } from './import-error';
 
@@ -12,17 +13,21 @@ export const FDC_LAYOUT: Layout = { delimiter: ',', quote: '"', encoding: 'utf8'
 /** SR28 ASCII: `^`-separated, `~`-quoted, Latin-1. */
 export const SR28_LAYOUT: Layout = { delimiter: '^', quote: '~', encoding: 'latin1' };
 
-/** Path of a required file in the folder, or an error naming the missing file. */
+/** Path of a required file in the folder (as is, or gzipped as `name.gz`), or an error naming the missing file. */
 export function requireFile(folder: string, name: string): string {
   const file = path.join(folder, name);
-  if (!fs.existsSync(file)) throw new ImportFileError(name, null, null, 'the file is missing from the folder.');
-  return file;
+  if (fs.existsSync(file)) return file;
+  if (fs.existsSync(`${file}.gz`)) return `${file}.gz`;
+  throw new ImportFileError(name, null, null, 'the file is missing from the folder.');
 }
 
 /** Streams the records of a delimited file with their line numbers; a broken quote or encoding becomes an ImportFileError. */
 export async function* readRows(file: string, layout: Layout): AsyncGenerator<Row> {
-  const name = path.basename(file);
-  const parser = fs.createReadStream(file, { encoding: layout.encoding }).pipe(
+  const name = path.basename(file).replace(/\.gz$/, '');
+  const raw = fs.createReadStream(file);
+  const bytes = file.endsWith('.gz') ? raw.pipe(zlib.createGunzip()) : raw;
+  bytes.setEncoding(layout.encoding);
+  const parser = bytes.pipe(
     parse({
       delimiter: layout.delimiter,
       quote: layout.quote,
@@ -33,6 +38,8 @@ export async function* readRows(file: string, layout: Layout): AsyncGenerator<Ro
       skip_empty_lines: true,
     }),
   );
+  // A pipe does not pass errors on: a broken gzip stream must stop the parser.
+  bytes.on('error', (err: Error) => parser.destroy(err));
   try {
     for await (const rec of parser as AsyncIterable<{ record: string[]; info: { lines: number } }>) {
       yield { fields: rec.record, line: rec.info.lines };

@@ -16,6 +16,14 @@ type SrFile = keyof typeof FIELDS;
 export const SR28_ATTRIBUTION =
   'U.S. Department of Agriculture, Agricultural Research Service, Nutrient Data Laboratory. USDA National Nutrient Database for Standard Reference, Release 28 (slightly revised), May 2016.';
 
+/**
+ * A manufacturer's product: SR28 names the maker in ManufacName (1,707 rows) and writes brand words in capitals in
+ * the name ("Kefir, lowfat, plain, LIFEWAY"); "USDA Commodity" is a generic food, not a brand.
+ */
+export function isBranded(name: string, manufacturer: string): boolean {
+  return manufacturer !== '' || /\b(?!USDA\b)[A-Z][A-Z'&]{2,}\b/.test(name);
+}
+
 /** Reads one SR28 file, checking every line has the published number of fields (so a wrong or cut file is named). */
 async function* srRows(folder: string, name: SrFile): AsyncGenerator<Row & { get: (field: string) => string }> {
   const file = requireFile(folder, name);
@@ -59,16 +67,23 @@ export async function parseSr28(folder: string, onProgress?: ProgressFn): Promis
     const group = groups.get(r.get('FdGrp_Cd'));
     if (group == null) skipped.add('food group code not in FD_GROUP.txt (group left empty)', `FOOD_DES.txt line ${r.line}`);
     const common = r.get('ComName').split(',').map((s) => s.trim()).filter(Boolean);
+    const name = r.get('Long_Desc').trim();
+    const manufacturer = r.get('ManufacName').trim();
     foods.set(code, {
       sourceCode: code,
-      name: r.get('Long_Desc').trim(),
+      name,
       foodGroup: group ?? null,
       altNames: common,
       nutrients: emptyNutrients(),
       carbMeasured: 'total',
       derived: [],
       carbNote: USDA_CARB_NOTE,
-      extra: { ndbNumber: code, ...(r.get('SciName').trim() ? { scientificName: r.get('SciName').trim() } : {}) },
+      extra: {
+        ndbNumber: code,
+        ...(r.get('SciName').trim() ? { scientificName: r.get('SciName').trim() } : {}),
+        ...(manufacturer ? { manufacturer } : {}),
+        ...(isBranded(name, manufacturer) ? { branded: true } : {}),
+      },
       measures: [],
     });
   }

@@ -1,21 +1,48 @@
 import { createHash } from 'node:crypto';
 import { QueryTypes, type Sequelize, type Transaction } from 'sequelize';
-import { FoodMeasureModel, FoodModel } from '../models';
 import type { FoodSource } from '../models/food.model';
+import { searchKeys } from '../search/search-text';
 import type { FoodInput } from './dataset';
-import { searchKeys } from './food-rows';
 
-const CHUNK = 1000;
+// Rows per statement: large enough that a full table takes a handful of round trips, small enough for one JSON text.
+const CHUNK = 5000;
 
 export type WriteCounts = { inserted: number; updated: number; unchanged: number };
 
+// The search columns are in the hash, so a change of the search rules rewrites them on the next import.
 function hashOf(input: FoodInput, attribution: string, licence: string): string {
-  return createHash('sha1').update(JSON.stringify([input, attribution, licence])).digest('hex');
+  const keys = searchKeys(input.name, input.altNames, { branded: Boolean(input.extra.branded) });
+  return createHash('sha1').update(JSON.stringify([input, attribution, licence, keys])).digest('hex');
+}
+
+const NUTRIENT_COLUMNS = ['energy_kcal', 'energy_kj', 'carb_available', 'carb_total', 'fibre', 'sugars', 'protein', 'fat', 'water'];
+const COLUMNS: [string, string][] = [
+  ['source', 'text'], ['source_code', 'text'], ['name', 'text'], ['food_group', 'text'], ['alt_names', 'text[]'],
+  ...NUTRIENT_COLUMNS.map((c): [string, string] => [c, 'float8']),
+  ['carb_measured', 'text'], ['carb_note', 'text'], ['derived', 'text[]'], ['attribution', 'text'], ['licence', 'text'],
+  ['import_id', 'int'], ['extra', 'jsonb'], ['content_hash', 'text'], ['name_key', 'text'], ['search_text', 'text'], ['rank_penalty', 'int'],
+];
+const ENUMS: Record<string, string> = { source: 'enum_foods_source', carb_measured: 'enum_foods_carb_measured' };
+const select = COLUMNS.map(([c]) => (ENUMS[c] ? `r.${c}::${ENUMS[c]}` : `r.${c}`)).join(', ');
+const updates = COLUMNS.filter(([c]) => c !== 'source' && c !== 'source_code').map(([c]) => `${c} = EXCLUDED.${c}`).join(', ');
+
+/** One food as a row of the foods table (snake_case keys), search columns included. */
+function rowOf(input: FoodInput, hash: string, opts: { source: FoodSource; attribution: string; licence: string; importId: number }) {
+  const n = input.nutrients;
+  const keys = searchKeys(input.name, input.altNames, { branded: Boolean(input.extra.branded) });
+  return {
+    source: opts.source, source_code: input.sourceCode, name: input.name, food_group: input.foodGroup, alt_names: input.altNames,
+    energy_kcal: n.energyKcal, energy_kj: n.energyKj, carb_available: n.carbAvailable, carb_total: n.carbTotal, fibre: n.fibre,
+    sugars: n.sugars, protein: n.protein, fat: n.fat, water: n.water, carb_measured: input.carbMeasured, carb_note: input.carbNote,
+    derived: input.derived, attribution: opts.attribution, licence: opts.licence, import_id: opts.importId, extra: input.extra,
+    content_hash: hash, name_key: keys.nameKey, search_text: keys.searchText, rank_penalty: keys.rankPenalty,
+  };
 }
 
 /**
  * Upserts foods of one source inside the caller's transaction: new codes are inserted, changed ones updated
- * (their measures replaced), identical ones left alone, so a re-import changes nothing.
+ * (their measures replaced), identical ones left alone, so a re-import changes nothing. Each chunk is one
+ * set-based statement (rows passed as one JSON parameter), so a full table is written in a few round trips.
  */
 export async function writeFoods(
   sequelize: Sequelize,
@@ -43,38 +70,26 @@ export async function writeFoods(
   let written = 0;
   for (let i = 0; i < pending.length; i += CHUNK) {
     const chunk = pending.slice(i, i + CHUNK);
-    const rows = chunk.map(({ input, hash }) => ({
-      source: opts.source,
-      sourceCode: input.sourceCode,
-      name: input.name,
-      foodGroup: input.foodGroup,
-      altNames: input.altNames,
-      ...input.nutrients,
-      carbMeasured: input.carbMeasured,
-      carbNote: input.carbNote,
-      derived: input.derived,
-      attribution: opts.attribution,
-      licence: opts.licence,
-      importId: opts.importId,
-      extra: input.extra,
-      contentHash: hash,
-      ...searchKeys(input.name, input.altNames),
-    }));
-    const saved = await FoodModel.bulkCreate(rows, {
-      transaction: t,
-      hooks: false,
-      conflictAttributes: ['source', 'sourceCode'],
-      updateOnDuplicate: [
-        'name', 'foodGroup', 'altNames', 'energyKcal', 'energyKj', 'carbAvailable', 'carbTotal', 'fibre', 'sugars',
-        'protein', 'fat', 'water', 'carbMeasured', 'carbNote', 'derived', 'attribution', 'licence', 'importId',
-        'extra', 'contentHash', 'nameKey', 'searchText', 'rankPenalty', 'updatedAt',
-      ],
-      returning: ['id', 'sourceCode'],
-    });
-    const ids = saved.map((s) => s.id);
-    await FoodMeasureModel.destroy({ where: { foodId: ids }, transaction: t });
-    const measures = saved.flatMap((s, k) => chunk[k].input.measures.map((m, seq) => ({ foodId: s.id, label: m.label, grams: m.grams, seq })));
-    if (measures.length) await FoodMeasureModel.bulkCreate(measures, { transaction: t, hooks: false });
+    const rows = JSON.stringify(chunk.map(({ input, hash }) => rowOf(input, hash, opts)));
+    const saved = await sequelize.query<{ id: number; source_code: string }>(
+      `INSERT INTO foods (${COLUMNS.map(([c]) => c).join(', ')}, created_at, updated_at)
+       SELECT ${select}, now(), now()
+         FROM jsonb_to_recordset(CAST(:rows AS jsonb)) AS r(${COLUMNS.map(([c, type]) => `${c} ${type}`).join(', ')})
+       ON CONFLICT (source, source_code) DO UPDATE SET ${updates}, updated_at = now()
+       RETURNING id, source_code`,
+      { replacements: { rows }, type: QueryTypes.SELECT, transaction: t },
+    );
+    const idOf = new Map(saved.map((s) => [s.source_code, Number(s.id)]));
+    const ids = [...idOf.values()];
+    await sequelize.query('DELETE FROM food_measures WHERE food_id = ANY(CAST(:ids AS int[]))', { replacements: { ids: `{${ids.join(',')}}` }, transaction: t });
+    const measures = chunk.flatMap(({ input }) => input.measures.map((m, seq) => ({ food_id: idOf.get(input.sourceCode), label: m.label, grams: m.grams, seq })));
+    if (measures.length) {
+      await sequelize.query(
+        `INSERT INTO food_measures (food_id, label, grams, seq)
+         SELECT food_id, label, grams, seq FROM jsonb_to_recordset(CAST(:rows AS jsonb)) AS m(food_id int, label text, grams float8, seq int)`,
+        { replacements: { rows: JSON.stringify(measures) }, transaction: t },
+      );
+    }
     written += chunk.length;
     onProgress?.(written);
   }

@@ -1,6 +1,6 @@
 import { DataTypes, Model } from 'sequelize';
 import type { CreationOptional, InferAttributes, InferCreationAttributes, NonAttribute, Sequelize } from 'sequelize';
-import { searchKeys } from '../importers/food-rows';
+import { searchKeys } from '../search/search-text';
 import type { FoodMeasureModel } from './food-measure.model';
 
 export type FoodSource = 'ifct2017' | 'usda_sr28' | 'usda_fdc' | 'label';
@@ -11,6 +11,10 @@ export type FoodExtra = {
   ndbNumber?: string;
   carbStarchSugars?: number | null;
   brand?: string;
+  /** SR28 ManufacName. */
+  manufacturer?: string;
+  /** A manufacturer's product (ranked after generic foods in search). */
+  branded?: boolean;
   printed?: Record<string, number | string | null>;
 };
 
@@ -95,7 +99,7 @@ export class FoodModel extends Model<InferAttributes<FoodModel>, InferCreationAt
         underscored: true,
         hooks: {
           beforeSave: (food) => {
-            const keys = searchKeys(food.name, food.altNames ?? []);
+            const keys = searchKeys(food.name, food.altNames ?? [], { branded: Boolean(food.extra?.branded) });
             food.nameKey = keys.nameKey;
             food.searchText = keys.searchText;
             food.rankPenalty = keys.rankPenalty;

@@ -2,6 +2,7 @@ import type { Sequelize } from 'sequelize';
 import { DatasetImportModel } from './dataset-import.model';
 import { FoodMeasureModel } from './food-measure.model';
 import { FoodModel } from './food.model';
+import { FoodSynonymModel } from './food-synonym.model';
 import { BatchIngredientModel } from './batch-ingredient.model';
 import { BatchModel } from './batch.model';
 import { ContainerModel } from './container.model';
@@ -19,7 +20,7 @@ import { ProfileSettingsModel } from './profile-settings.model';
 import { RatioBlockModel } from './ratio-block.model';
 import { SettingsChangeModel } from './settings-change.model';
 
-export { DatasetImportModel, FoodMeasureModel, FoodModel };
+export { DatasetImportModel, FoodMeasureModel, FoodModel, FoodSynonymModel };
 export { ProfileAccessModel, ProfileModel, RevokedTokenModel, UserModel };
 export { DayKindDayModel, DayKindModel, ProfileSettingsModel, RatioBlockModel, SettingsChangeModel };
 export { BatchIngredientModel, BatchModel, ContainerModel, PortionModel };
@@ -46,6 +47,7 @@ export function initModels(sequelize: Sequelize): void {
   FoodModel.initModel(sequelize);
   FoodMeasureModel.initModel(sequelize);
   DatasetImportModel.initModel(sequelize);
+  FoodSynonymModel.initModel(sequelize);
 
   ProfileModel.belongsTo(UserModel, { as: 'owner', foreignKey: 'ownerUserId' });
   ProfileAccessModel.belongsTo(ProfileModel, { as: 'profile', foreignKey: 'profileId' });

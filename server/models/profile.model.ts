@@ -1,6 +1,6 @@
 import { DataTypes, Model } from 'sequelize';
 import type { CreationOptional, InferAttributes, InferCreationAttributes, Sequelize } from 'sequelize';
-import type { CarbBasis, CarbUnit, GlucoseUnit } from '../../shared/schemas/units';
+import type { CarbBasis, CarbUnit, GlucoseUnit, PreferredFoodTable } from '../../shared/schemas/units';
 
 /** The person with diabetes whose numbers these are. Dose settings live in their own tables. */
 export class ProfileModel extends Model<InferAttributes<ProfileModel>, InferCreationAttributes<ProfileModel>> {
@@ -10,6 +10,7 @@ export class ProfileModel extends Model<InferAttributes<ProfileModel>, InferCrea
   declare glucoseUnit: CreationOptional<GlucoseUnit>;
   declare carbBasis: CreationOptional<CarbBasis>;
   declare carbUnit: CreationOptional<CarbUnit>;
+  declare preferredFoodTable: CreationOptional<PreferredFoodTable>;
   declare createdAt: CreationOptional<Date>;
   declare updatedAt: CreationOptional<Date>;
 
@@ -22,6 +23,7 @@ export class ProfileModel extends Model<InferAttributes<ProfileModel>, InferCrea
         glucoseUnit: { type: DataTypes.ENUM('mmol_l', 'mg_dl'), allowNull: false, defaultValue: 'mmol_l' },
         carbBasis: { type: DataTypes.ENUM('available', 'total'), allowNull: false, defaultValue: 'available' },
         carbUnit: { type: DataTypes.ENUM('g', 'portion10', 'unit12', 'exchange15'), allowNull: false, defaultValue: 'g' },
+        preferredFoodTable: { type: DataTypes.ENUM('usda_sr28', 'ifct2017'), allowNull: false, defaultValue: 'usda_sr28' },
         createdAt: DataTypes.DATE,
         updatedAt: DataTypes.DATE,
       },

@@ -6,6 +6,7 @@ import { batchesRoutes } from './batches.routes';
 import { benchRoutes } from './bench.routes';
 import { containersRoutes } from './containers.routes';
 import { doseRoutes } from './dose.routes';
+import { foodSynonymsRoutes } from './food-synonyms.routes';
 import { foodsRoutes } from './foods.routes';
 import { healthRoutes } from './health.routes';
 import { importsRoutes } from './imports.routes';
@@ -25,6 +26,7 @@ export function apiRoutes(deps: AppDeps): AnyRoute[] {
     ...authRoutes(deps),
     ...adminRoutes(),
     ...foodsRoutes(deps),
+    ...foodSynonymsRoutes(),
     ...importsRoutes(deps),
     ...recipesRoutes(deps),
     ...photosRoutes(deps),

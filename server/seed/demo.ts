@@ -1,6 +1,7 @@
 import { randomBytes } from 'node:crypto';
 import fs from 'node:fs';
 import path from 'node:path';
+import { Op } from 'sequelize';
 import { z } from 'zod';
 import { createBatchInputSchema } from '../../shared/schemas/batch';
 import { createLabelFoodInputSchema } from '../../shared/schemas/food';
@@ -10,6 +11,7 @@ import { DEFAULT_EXERCISE_REDUCTIONS } from '../../shared/compute/exercise';
 import type { Config } from '../config';
 import { REPO_ROOT } from '../config';
 import { BatchModel, ContainerModel, FoodModel, ProfileModel, RecipeModel, UserModel } from '../models';
+import type { FoodSource } from '../models/food.model';
 import { signUp } from '../services/auth.service';
 import { createBatch } from '../services/batches.service';
 import { createContainer } from '../services/containers.service';
@@ -20,6 +22,7 @@ import { createRecipe } from '../services/recipes.service';
 
 const ingredientSchema = z.object({
   ifct: z.string().optional(),
+  usda: z.string().optional(),
   label: z.string().optional(),
   grams: z.number().positive(),
   note: z.string().optional(),
@@ -45,15 +48,21 @@ const scenarioSchema = z.object({
     }),
   ),
   containers: z.array(z.object({ name: z.string(), kind: z.enum(['pot', 'container']), tareGrams: z.number() })),
-  batch: z.object({
-    recipe: z.string(),
-    storage: z.enum(['fridge', 'freezer']),
-    region: z.enum(['uk', 'us']),
-    actualGrams: z.array(z.number()),
-    pot: z.object({ container: z.string(), grossGrams: z.number() }),
-    portions: z.array(z.object({ container: z.string(), grossGrams: z.number() })),
-  }),
+  batches: z.array(
+    z.object({
+      recipe: z.string(),
+      storage: z.enum(['fridge', 'freezer']),
+      region: z.enum(['uk', 'us']),
+      actualGrams: z.array(z.number()),
+      pot: z.object({ container: z.string(), grossGrams: z.number() }),
+      portions: z.array(z.object({ container: z.string(), grossGrams: z.number() })),
+    }),
+  ),
 });
+type Ingredient = z.infer<typeof ingredientSchema>;
+
+/** The key of an ingredient's food: a USDA SR28 or IFCT 2017 code, or a label food of the scenario. */
+const foodKey = (i: Ingredient) => (i.usda ? `usda_sr28:${i.usda}` : i.ifct ? `ifct2017:${i.ifct}` : `label:${i.label}`);
 export type DemoScenario = z.infer<typeof scenarioSchema>;
 
 export const DEMO_FILE = path.join(REPO_ROOT, 'data', 'demo', 'household.json');
@@ -67,20 +76,22 @@ export type DemoResult = { skipped?: string; created: string[]; email: string; p
 
 /**
  * Seeds the invented demo household through the services: the member, invented dose settings and two day
- * kinds, two label foods, two recipes built
- * from the IFCT table (one public), saved containers and one cooked batch with weighed portions.
+ * kinds, two label foods, a Sunday batch of overnight oats from USDA SR28 foods and two dishes from IFCT 2017 (one
+ * public), saved containers, and two batches in the fridge (the oats and the dal) split into weighed, labelled portions.
  * Idempotent: each part is looked up first and only what is missing is created. The password comes from
  * `password` (DEMO_PASSWORD) or is generated and returned once, when the account is created.
  */
 export async function seedDemo(config: Config, options: { password?: string; today: string; scenario?: DemoScenario }): Promise<DemoResult> {
   const s = options.scenario ?? loadScenario();
   const created: string[] = [];
-  const ifctCodes = [...new Set(s.recipes.flatMap((r) => r.ingredients.flatMap((i) => (i.ifct ? [i.ifct] : []))))];
-  const tableFoods = await FoodModel.findAll({ where: { source: 'ifct2017', sourceCode: ifctCodes } });
-  if (tableFoods.length < ifctCodes.length) {
-    return { skipped: 'the IFCT 2017 table is not imported yet', created, email: s.member.email };
+  const tableKeys = [...new Set(s.recipes.flatMap((r) => r.ingredients.filter((i) => i.usda || i.ifct).map(foodKey)))];
+  const tableFoods = await FoodModel.findAll({
+    where: { [Op.or]: tableKeys.map((k) => ({ source: k.split(':')[0] as FoodSource, sourceCode: k.split(':')[1] })) },
+  });
+  if (tableFoods.length < tableKeys.length) {
+    return { skipped: 'the food tables (IFCT 2017 and USDA SR28) are not imported yet', created, email: s.member.email };
   }
-  const foodId = new Map(tableFoods.map((f) => [`ifct:${f.sourceCode}`, f.id]));
+  const foodId = new Map(tableFoods.map((f) => [`${f.source}:${f.sourceCode}`, f.id]));
 
   let password: string | undefined;
   let user = await UserModel.findOne({ where: { email: s.member.email } });
@@ -126,7 +137,7 @@ export async function seedDemo(config: Config, options: { password?: string; tod
       const input = recipeInputSchema.parse({
         ...r,
         ingredients: r.ingredients.map((i) => ({
-          foodId: foodId.get(i.ifct ? `ifct:${i.ifct}` : `label:${i.label}`),
+          foodId: foodId.get(foodKey(i)),
           grams: i.grams,
           note: i.note ?? null,
         })),
@@ -149,9 +160,10 @@ export async function seedDemo(config: Config, options: { password?: string; tod
     containers.set(c.name, row);
   }
 
-  const recipeId = recipeIds.get(s.batch.recipe)!;
-  if (!(await BatchModel.findOne({ where: { profileId: profile.id, recipeId } }))) {
-    const recipe = s.recipes.find((r) => r.key === s.batch.recipe)!;
+  for (const b of s.batches) {
+    const recipeId = recipeIds.get(b.recipe)!;
+    if (await BatchModel.findOne({ where: { profileId: profile.id, recipeId } })) continue;
+    const recipe = s.recipes.find((r) => r.key === b.recipe)!;
     const weigh = (name: string, grossGrams: number) => {
       const c = containers.get(name)!;
       return { containerId: c.id, grossGrams, tareGrams: c.tareGrams };
@@ -159,15 +171,11 @@ export async function seedDemo(config: Config, options: { password?: string; tod
     const input = createBatchInputSchema.parse({
       recipeId,
       cookedOn: options.today,
-      storage: s.batch.storage,
-      region: s.batch.region,
-      ingredients: recipe.ingredients.map((i, k) => ({
-        foodId: foodId.get(i.ifct ? `ifct:${i.ifct}` : `label:${i.label}`),
-        plannedGrams: i.grams,
-        actualGrams: s.batch.actualGrams[k],
-      })),
-      cookedWeight: weigh(s.batch.pot.container, s.batch.pot.grossGrams),
-      split: { mode: 'weighed', portions: s.batch.portions.map((p) => weigh(p.container, p.grossGrams)) },
+      storage: b.storage,
+      region: b.region,
+      ingredients: recipe.ingredients.map((i, k) => ({ foodId: foodId.get(foodKey(i)), plannedGrams: i.grams, actualGrams: b.actualGrams[k] })),
+      cookedWeight: weigh(b.pot.container, b.pot.grossGrams),
+      split: { mode: 'weighed', portions: b.portions.map((p) => weigh(p.container, p.grossGrams)) },
       note: 'Demo batch (invented weighings).',
     });
     await createBatch(profile.id, user.id, input);

@@ -48,6 +48,7 @@ export async function getMe(userId: number): Promise<Me> {
         glucoseUnit: profile.glucoseUnit,
         carbBasis: profile.carbBasis,
         carbUnit: profile.carbUnit,
+        preferredFoodTable: profile.preferredFoodTable,
       };
     })
     .sort((a, b) => order[a.access] - order[b.access]);
@@ -71,7 +72,7 @@ export async function signUp(config: Config, input: SignUpInput, role: UserRole 
       );
       if (role === 'member') {
         const profile = await ProfileModel.create(
-          { displayName: input.displayName, ownerUserId: created.id },
+          { displayName: input.displayName, ownerUserId: created.id, preferredFoodTable: input.preferredFoodTable ?? 'usda_sr28' },
           { transaction },
         );
         await ProfileAccessModel.create(

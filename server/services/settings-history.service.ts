@@ -22,7 +22,7 @@ function flatten(value: unknown, prefix = '', out: Record<string, unknown> = {})
 
 // PostgreSQL's jsonb reorders keys, so changes are listed in the order the screens show the fields.
 const FIELD_ORDER = [
-  'name', 'isDefault', 'longActingUnits', 'glucoseUnit', 'carbBasis', 'carbUnit', 'penIncrement', 'rounding', 'maxDoseUnits',
+  'name', 'isDefault', 'longActingUnits', 'glucoseUnit', 'carbBasis', 'carbUnit', 'preferredFoodTable', 'penIncrement', 'rounding', 'maxDoseUnits',
   'actionTimeHours', 'activeInsulinModel', 'targetLow', 'targetHigh', 'correctionTarget', 'hypoThreshold', 'veryHigh', 'allowNegativeCorrection',
   'iobConvention', 'exerciseReductions', 'light', 'moderate', 'hard', 'min30', 'min60', 'blocks', 'from', 'to', 'carbRatio', 'correctionFactor',
 ];

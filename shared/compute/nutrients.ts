@@ -67,3 +67,21 @@ export function carbInBasis(n: Pick<Nutrients, 'carbAvailable' | 'carbTotal' | '
   if (n.carbAvailable != null && n.fibre != null) return n.carbAvailable + n.fibre;
   return null;
 }
+
+/** Carbohydrate per 100 g as shown for a food, with the plain note it may need. */
+export type CarbShown = { grams: number | null; basisShown: CarbBasis | null; fibreNotMeasured: boolean };
+
+/**
+ * What to show for a food's carbohydrate in a basis. Where the basis value is known (stored or derived) it is
+ * shown. In the available basis, a food with total carbohydrate but no fibre value (594 USDA SR28 foods) has
+ * unknown available carbohydrate: the total is shown instead, marked `fibreNotMeasured`, so the person can use it
+ * knowingly — the missing fibre is never counted as 0, and `carbInBasis` stays unknown for sums.
+ */
+export function carbToShow(n: Pick<Nutrients, 'carbAvailable' | 'carbTotal' | 'fibre'>, basis: CarbBasis): CarbShown {
+  const grams = carbInBasis(n, basis);
+  if (grams != null) return { grams, basisShown: basis, fibreNotMeasured: false };
+  if (basis === 'available' && n.carbTotal != null && n.fibre == null) {
+    return { grams: n.carbTotal, basisShown: 'total', fibreNotMeasured: true };
+  }
+  return { grams: null, basisShown: null, fibreNotMeasured: false };
+}

@@ -1,5 +1,5 @@
 import { z } from 'zod';
-import { carbBasisSchema, carbUnitSchema, glucoseUnitSchema } from './units';
+import { carbBasisSchema, carbUnitSchema, glucoseUnitSchema, preferredFoodTableSchema } from './units';
 
 export const userRoleSchema = z.enum(['member', 'clinician', 'admin']);
 export type UserRole = z.infer<typeof userRoleSchema>;
@@ -27,6 +27,8 @@ export const signUpInputSchema = z.object({
   email: emailSchema,
   displayName: z.string().trim().min(1, 'Tell us what to call you.').max(80, 'Use at most 80 characters.'),
   password: newPasswordSchema,
+  /** Which food table search shows first; USDA SR28 when not given. */
+  preferredFoodTable: preferredFoodTableSchema.optional(),
 });
 export type SignUpInput = z.infer<typeof signUpInputSchema>;
 
@@ -58,6 +60,7 @@ export const profileSummarySchema = z.object({
   glucoseUnit: glucoseUnitSchema,
   carbBasis: carbBasisSchema,
   carbUnit: carbUnitSchema,
+  preferredFoodTable: preferredFoodTableSchema,
 });
 export type ProfileSummary = z.infer<typeof profileSummarySchema>;
 

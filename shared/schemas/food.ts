@@ -44,6 +44,13 @@ export const foodSchema = z.object({
   scientificName: z.string().nullable(),
   ndbNumber: z.string().nullable(),
   brand: z.string().nullable(),
+  /** A manufacturer's product in an open table (USDA SR28 ManufacName or brand words in the name). */
+  branded: z.boolean(),
+  /**
+   * Carbohydrate is known but fibre was not measured, so available carbohydrate is unknown; in the available basis
+   * the total is shown with that note (shared/compute carbToShow).
+   */
+  fibreNotMeasured: z.boolean(),
   /** IFCT 2017 only: measured available carbohydrate (starch + free sugars), shown beside the counted value. */
   carbStarchSugars: z.number().nullable(),
   measures: z.array(foodMeasureSchema),
@@ -63,6 +70,8 @@ export const foodSearchQuerySchema = z.object({
   q: z.string().trim().max(100, 'Search at most 100 characters.').default(''),
   source: foodSourceSchema.optional(),
   group: z.string().trim().max(100).optional(),
+  /** The profile whose preferred table ranks first (default: the user's own profile). */
+  profileId: z.coerce.number().int().positive().optional(),
   limit: z.coerce.number().int().min(1, 'At least 1.').max(50, 'At most 50.').default(20),
   cursor: z
     .string()

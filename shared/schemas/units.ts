@@ -11,3 +11,12 @@ export type CarbUnit = z.infer<typeof carbUnitSchema>;
 /** Glucose display unit; values are stored in mmol/L. */
 export const glucoseUnitSchema = z.enum(['mmol_l', 'mg_dl']);
 export type GlucoseUnit = z.infer<typeof glucoseUnitSchema>;
+
+/** Which open food table search shows first when both have a match. */
+export const preferredFoodTableSchema = z.enum(['usda_sr28', 'ifct2017']);
+export type PreferredFoodTable = z.infer<typeof preferredFoodTableSchema>;
+/** The choice as people see it, at sign-up and in settings. */
+export const PREFERRED_FOOD_TABLE_CHOICES: { value: PreferredFoodTable; label: string }[] = [
+  { value: 'usda_sr28', label: 'USDA first (US table, 8,789 foods)' },
+  { value: 'ifct2017', label: 'IFCT first (Indian table, 542 foods)' },
+];

@@ -1,6 +1,6 @@
 import request from 'supertest';
 import { QueryTypes } from 'sequelize';
-import { normaliseSearchText } from '../../server/importers/food-rows';
+import { normaliseSearchText } from '../../server/search/search-text';
 import { FoodModel } from '../../server/models';
 import { runImport } from '../../server/services/imports.service';
 import { bearer, signUpUser, useTestApp } from '../helpers/api';

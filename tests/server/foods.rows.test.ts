@@ -1,5 +1,6 @@
 import { emptyNutrients, type Nutrients } from '../../shared/compute/nutrients';
-import { completeEnergy, deriveCarbs, normaliseSearchText, searchKeys } from '../../server/importers/food-rows';
+import { completeEnergy, deriveCarbs } from '../../server/importers/food-rows';
+import { normaliseSearchText, searchKeys } from '../../server/search/search-text';
 import { labelNutrients } from '../../server/services/label-foods.service';
 import { createLabelFoodInputSchema } from '../../shared/schemas/food';
 

@@ -1,31 +1,31 @@
 import request from 'supertest';
 import { BatchIngredientModel, BatchModel, FoodModel, PortionModel, RecipeModel, UserModel } from '../../server/models';
 import { loadScenario, runDemoStep, seedDemo } from '../../server/seed/demo';
-import { ensureDefaultDataset } from '../../server/services/imports.service';
 import { useTestApp } from '../helpers/api';
+import { restoreShippedFoods } from '../helpers/db';
 
 const ctx = useTestApp();
 
 describe('seedDemo', () => {
-  it('does nothing until the IFCT table is imported', async () => {
+  it('does nothing until the food tables are imported', async () => {
     const result = await seedDemo(ctx.config, { today: '2026-03-10' });
 
-    expect(result.skipped).toMatch(/IFCT/);
+    expect(result.skipped).toMatch(/IFCT 2017 and USDA SR28/);
     expect(await UserModel.count()).toBe(0);
   });
 
   it('seeds the invented household once, and a second run creates nothing', async () => {
-    await ensureDefaultDataset(ctx.sequelize);
+    await restoreShippedFoods(ctx.sequelize);
 
     const first = await seedDemo(ctx.config, { today: '2026-03-10' });
     const second = await seedDemo(ctx.config, { today: '2026-03-11' });
 
-    expect(first.created).toEqual(expect.arrayContaining(['member', 'batch of Red lentil and sweet potato dal']));
+    expect(first.created).toEqual(expect.arrayContaining(['member', 'batch of Sunday overnight oats', 'batch of Red lentil and sweet potato dal']));
     expect(first.password).toMatch(/^[\w-]{16}$/);
     expect(second.created).toEqual([]);
     expect(second.password).toBeUndefined();
-    expect(await BatchModel.count()).toBe(1);
-    expect(await PortionModel.count()).toBe(4);
+    expect(await BatchModel.count({ where: { storage: 'fridge' } })).toBe(2);
+    expect(await PortionModel.count()).toBe(9);
     expect(await RecipeModel.count({ where: { visibility: 'public' } })).toBe(1);
     expect(await FoodModel.count({ where: { source: 'label' } })).toBe(2);
 
@@ -43,9 +43,32 @@ describe('seedDemo', () => {
     expect(first.created).toEqual(expect.arrayContaining(['dose settings', 'day kind Rest day', 'day kind Swim training']));
   }, 120_000);
 
+  it('builds the overnight oats only from generic USDA SR28 foods and splits them into five weighed jars', async () => {
+    const recipe = (await RecipeModel.findOne({ where: { title: 'Sunday overnight oats' } }))!;
+    const batch = (await BatchModel.findOne({ where: { recipeId: recipe.id }, include: [{ model: BatchIngredientModel, as: 'ingredients' }] }))!;
+    const portions = await PortionModel.findAll({ where: { batchId: batch.id }, order: [['position', 'ASC']] });
+    const foods = await FoodModel.findAll({ where: { id: batch.ingredients!.map((l) => l.foodId!) } });
+
+    expect(foods.map((f) => `${f.source} ${f.sourceCode}`).sort()).toEqual(['usda_sr28 01077', 'usda_sr28 01293', 'usda_sr28 08120', 'usda_sr28 09050']);
+    expect(foods.some((f) => f.extra.branded)).toBe(false);
+    // Bowl 1790 g − 642 g tare = 1148 g; jars 443, 441, 445, 440, 437 g − 214 g tare each.
+    expect(batch.cookedGrams).toBe(1148);
+    expect(portions.map((p) => p.netGrams)).toEqual([229, 227, 231, 226, 223]);
+    // Available carbohydrate by hand from USDA SR28 per 100 g (205 by difference − 291 fibre, check-values §11 for
+    // oats, milk, yogurt, blueberries): oats 252 g × (67.70 − 10.1), milk 505 g × (4.80 − 0), Greek yogurt
+    // 247 g × (3.98 − 0), blueberries 156 g × (14.49 − 2.4) = 145.152 + 24.24 + 9.8306 + 18.8604 = 198.083 g.
+    const available = (252 * 57.6 + 505 * 4.8 + 247 * 3.98 + 156 * 12.09) / 100;
+    expect(available).toBeCloseTo(198.083, 3);
+    // First jar: 198.083 g × 229 / 1148 = 39.51 g.
+    expect(portions[0].carbAvailable).toBeCloseTo((available * 229) / 1148, 6);
+    expect(portions[0].carbAvailable).toBeCloseTo(39.513, 2);
+  });
+
   it('splits the demo dal into the weighed tubs with carbohydrate from the snapshot values', async () => {
     const scenario = loadScenario();
-    const batch = (await BatchModel.findOne({ include: [{ model: BatchIngredientModel, as: 'ingredients' }] }))!;
+    const dal = scenario.batches.find((b) => b.recipe === 'dal')!;
+    const recipe = (await RecipeModel.findOne({ where: { title: 'Red lentil and sweet potato dal' } }))!;
+    const batch = (await BatchModel.findOne({ where: { recipeId: recipe.id }, include: [{ model: BatchIngredientModel, as: 'ingredients' }] }))!;
     const portions = await PortionModel.findAll({ where: { batchId: batch.id }, order: [['position', 'ASC']] });
 
     // Pot 3220 g − 1380 g tare = 1840 g; tubs 558 − 118, 573 − 118, 551 − 121, 571 − 121.
@@ -53,7 +76,7 @@ describe('seedDemo', () => {
     expect(portions.map((p) => p.netGrams)).toEqual([440, 455, 430, 450]);
     expect(batch.useBy).toBe('2026-03-12');
     const lines = batch.ingredients!.sort((a, b) => a.position - b.position);
-    expect(lines.map((l) => l.actualGrams)).toEqual(scenario.batch.actualGrams);
+    expect(lines.map((l) => l.actualGrams)).toEqual(dal.actualGrams);
     let available = 0;
     for (const l of lines) available += (l.actualGrams! * l.per100g.carbAvailable!) / 100;
     expect(portions[0].carbAvailable).toBeCloseTo((available / 1840) * 440, 6);

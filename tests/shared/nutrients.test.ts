@@ -1,4 +1,4 @@
-import { carbInBasis, emptyNutrients, scaleNutrients, sumNutrients, type Nutrients } from '../../shared/compute/nutrients';
+import { carbInBasis, carbToShow, emptyNutrients, scaleNutrients, sumNutrients, type Nutrients } from '../../shared/compute/nutrients';
 
 // Rolled oats, USDA SR Legacy NDB 08120 (FDC 173904), per 100 g: carbohydrate by difference 67.70 g,
 // fibre 10.1 g, protein 13.15 g, fat 6.52 g, 379 kcal — check-values §11 ([C2] macros, fibre [M]).
@@ -35,6 +35,27 @@ describe('carbInBasis', () => {
     const got = carbInBasis(n, basis);
     if (expected === null) expect(got).toBeNull();
     else expect(got).toBeCloseTo(expected, 9);
+  });
+});
+
+describe('carbToShow', () => {
+  it.each([
+    // USDA SR28 NDB 08120 oats: 205 = 67.70 g, 291 = 10.1 g → available 57.60 g (datasets.md §4: available = total − fibre).
+    { name: 'shows the derived available value when fibre is known', n: { carbAvailable: null, carbTotal: 67.7, fibre: 10.1 }, basis: 'available' as const, expected: { grams: 57.6, basisShown: 'available', fibreNotMeasured: false } },
+    // USDA SR28 NDB 20069 triticale: 205 = 72.13 g and no 291 (fibre) row — available unknown, the total shown with the note.
+    { name: 'shows the total with the note when fibre was not measured', n: { carbAvailable: null, carbTotal: 72.13, fibre: null }, basis: 'available' as const, expected: { grams: 72.13, basisShown: 'total', fibreNotMeasured: true } },
+    { name: 'needs no note in the total basis', n: { carbAvailable: null, carbTotal: 72.13, fibre: null }, basis: 'total' as const, expected: { grams: 72.13, basisShown: 'total', fibreNotMeasured: false } },
+    { name: 'is unknown when no carbohydrate is known', n: { carbAvailable: null, carbTotal: null, fibre: null }, basis: 'available' as const, expected: { grams: null, basisShown: null, fibreNotMeasured: false } },
+    // IFCT 2017 available 20 g with unknown fibre: the total is unknown, never available + 0.
+    { name: 'does not count missing fibre as 0 in the total basis either', n: { carbAvailable: 20, carbTotal: null, fibre: null }, basis: 'total' as const, expected: { grams: null, basisShown: null, fibreNotMeasured: false } },
+  ])('$name', ({ n, basis, expected }) => {
+    const got = carbToShow(n, basis);
+    expect(got.basisShown).toBe(expected.basisShown);
+    expect(got.fibreNotMeasured).toBe(expected.fibreNotMeasured);
+    if (expected.grams === null) expect(got.grams).toBeNull();
+    else expect(got.grams).toBeCloseTo(expected.grams, 9);
+    // The strict value used in sums never takes the shown total as available.
+    if (got.fibreNotMeasured) expect(carbInBasis(n, basis)).toBeNull();
   });
 });
 
