@@ -76,7 +76,8 @@ export function AppTabs() {
   const insets = useSafeAreaInsets();
   const pathname = usePathname();
   const current = activeTab(pathname);
-  const { NavigationContent } = useTabsWithTriggers({ triggers: TRIGGERS });
+  // Back follows the pages visited (labels → the batch it came from), not the first tab.
+  const { NavigationContent } = useTabsWithTriggers({ triggers: TRIGGERS, backBehavior: 'history' });
   return (
     <NavigationContent>
       <View style={[styles.fill, isWide && styles.row]}>
