@@ -1,7 +1,25 @@
 import pino from 'pino';
+import pretty from 'pino-pretty';
 
-/** One structured JSON logger for the server; quiet in tests unless LOG_LEVEL says otherwise. */
-export const logger = pino({
-  level: process.env.LOG_LEVEL ?? (process.env.NODE_ENV === 'test' ? 'silent' : 'info'),
-  redact: ['req.headers.authorization', 'req.headers.cookie', '*.password', '*.passwordHash'],
-});
+type RequestLog = { req?: { method?: string; url?: string }; res?: { statusCode?: number }; responseTime?: number };
+
+/** One line per log entry for a person at a terminal: a request as "GET /api/foods 200 12 ms", anything else as its message. */
+export function readableLine(log: Record<string, unknown>, messageKey: string): string {
+  const { req, res, responseTime } = log as RequestLog;
+  if (req?.method && res?.statusCode != null) return `${req.method} ${req.url ?? ''} ${res.statusCode} ${responseTime ?? '?'} ms`;
+  return String(log[messageKey] ?? '');
+}
+
+// Readable lines when a person watches the terminal (npm start); JSON lines when the output goes to a file or collector.
+const toTerminal = process.stdout.isTTY && process.env.NODE_ENV !== 'test' && process.env.LOG_FORMAT !== 'json';
+
+/** One structured logger for the server; quiet in tests unless LOG_LEVEL says otherwise. */
+export const logger = pino(
+  {
+    level: process.env.LOG_LEVEL ?? (process.env.NODE_ENV === 'test' ? 'silent' : 'info'),
+    redact: ['req.headers.authorization', 'req.headers.cookie', '*.password', '*.passwordHash'],
+  },
+  toTerminal
+    ? pretty({ colorize: true, translateTime: 'SYS:HH:MM:ss', ignore: 'pid,hostname,req,res,responseTime,reqId,url', messageFormat: readableLine, sync: true })
+    : undefined,
+);

@@ -3,17 +3,16 @@ import { StyleSheet, View } from 'react-native';
 import { Card } from '../ui/card';
 import { Text } from '../ui/text';
 import { useTheme } from '../theme/use-theme';
+import { Brand } from '../nav/mark';
 
 /** The signed-out frame: the name, one line of what it is for, then the form. */
 export function AuthCard({ title, children }: { title: string; children: ReactNode }) {
   const t = useTheme();
   return (
-    <View style={[styles.page, { backgroundColor: t.colors.background }]}>
+    <View role="main" style={[styles.page, { backgroundColor: t.colors.background }]}>
       <View style={styles.column}>
         <View style={styles.brand}>
-          <Text variant="display" color="primary">
-            Carbwright
-          </Text>
+          <Brand large />
           <Text color="textMuted">Weighed batches, known carbohydrate, doses you can follow.</Text>
         </View>
         <Card style={styles.card}>

@@ -1,6 +1,7 @@
 import { zodResolver } from '@hookform/resolvers/zod';
-import { Link, router, useLocalSearchParams } from 'expo-router';
+import { router, useLocalSearchParams } from 'expo-router';
 import { useState } from 'react';
+import { StyleSheet, View } from 'react-native';
 import { useForm } from 'react-hook-form';
 import { signInInputSchema, type SignInInput } from '../../shared/schemas/auth';
 import { useSignIn } from '../api/auth';
@@ -9,6 +10,7 @@ import { Callout } from '../ui/callout';
 import { FormTextField } from '../ui/form-text-field';
 import { applyServerErrors } from '../ui/form-errors';
 import { Text } from '../ui/text';
+import { TextLink } from '../ui/text-link';
 import { AuthCard } from './auth-card';
 import { safeNext } from './session';
 
@@ -32,14 +34,12 @@ export function SignInScreen() {
       <FormTextField control={form.control} name="email" label="Email" autoComplete="email" keyboardType="email-address" autoCapitalize="none" inputMode="email" />
       <FormTextField control={form.control} name="password" label="Password" secureTextEntry autoComplete="current-password" onSubmitEditing={onSubmit} />
       <Button label="Sign in" size="lg" loading={signIn.isPending} onPress={onSubmit} />
-      <Text color="textMuted">
-        New here?{' '}
-        <Link href={{ pathname: '/sign-up', params: next ? { next } : {} }}>
-          <Text color="primary" weight="bold">
-            Create an account
-          </Text>
-        </Link>
-      </Text>
+      <View style={styles.switch}>
+        <Text color="textMuted">New here?</Text>
+        <TextLink href={{ pathname: '/sign-up', params: next ? { next } : {} }} label="Create an account" />
+      </View>
     </AuthCard>
   );
 }
+
+const styles = StyleSheet.create({ switch: { flexDirection: 'row', flexWrap: 'wrap', alignItems: 'center', columnGap: 6 } });

@@ -1,6 +1,7 @@
 import { zodResolver } from '@hookform/resolvers/zod';
-import { Link, router, useLocalSearchParams } from 'expo-router';
+import { router, useLocalSearchParams } from 'expo-router';
 import { useState } from 'react';
+import { StyleSheet, View } from 'react-native';
 import { useForm } from 'react-hook-form';
 import { PASSWORD_MIN_LENGTH, signUpInputSchema, type SignUpInput } from '../../shared/schemas/auth';
 import { PREFERRED_FOOD_TABLE_CHOICES } from '../../shared/schemas/units';
@@ -11,6 +12,7 @@ import { FormChoiceGroup } from '../ui/form-choice-group';
 import { FormTextField } from '../ui/form-text-field';
 import { applyServerErrors } from '../ui/form-errors';
 import { Text } from '../ui/text';
+import { TextLink } from '../ui/text-link';
 import { AuthCard } from './auth-card';
 import { safeNext } from './session';
 
@@ -53,14 +55,12 @@ export function SignUpScreen() {
         hint="Both are searched. You can change this later in settings."
       />
       <Button label="Create account" size="lg" loading={signUp.isPending} onPress={onSubmit} />
-      <Text color="textMuted">
-        Already have an account?{' '}
-        <Link href={{ pathname: '/sign-in', params: next ? { next } : {} }}>
-          <Text color="primary" weight="bold">
-            Sign in
-          </Text>
-        </Link>
-      </Text>
+      <View style={styles.switch}>
+        <Text color="textMuted">Already have an account?</Text>
+        <TextLink href={{ pathname: '/sign-in', params: next ? { next } : {} }} label="Sign in" />
+      </View>
     </AuthCard>
   );
 }
+
+const styles = StyleSheet.create({ switch: { flexDirection: 'row', flexWrap: 'wrap', alignItems: 'center', columnGap: 6 } });

@@ -1,97 +1,135 @@
 import { router, usePathname, type Href } from 'expo-router';
-import { TabList, TabSlot, TabTrigger, Tabs, type TabTriggerSlotProps } from 'expo-router/ui';
+import { TabSlot, TabTrigger, useTabsWithTriggers, type TabTriggerSlotProps } from 'expo-router/ui';
 import { forwardRef } from 'react';
 import { Pressable, StyleSheet, View } from 'react-native';
 import { useSafeAreaInsets } from 'react-native-safe-area-context';
 import { Icon, type IconName } from '../ui/icon';
 import { Text } from '../ui/text';
 import { useLayout, useTheme } from '../theme/use-theme';
+import { Brand } from './mark';
 
-export const TABS: { name: string; href: Extract<Href, string>; label: string; icon: IconName }[] = [
-  { name: 'index', href: '/', label: 'Today', icon: 'today' },
-  { name: 'recipes', href: '/recipes', label: 'Recipes', icon: 'recipes' },
-  { name: 'kitchen', href: '/kitchen', label: 'Kitchen', icon: 'kitchen' },
-  { name: 'plan', href: '/plan', label: 'Plan', icon: 'plan' },
-  { name: 'more', href: '/more', label: 'You', icon: 'more' },
+/** The five areas in the tab bar; `also` names the pages outside the bar that belong to an area (it stays lit there). */
+export const TABS: { name: string; href: Extract<Href, string>; label: string; icon: IconName; also: string[] }[] = [
+  { name: 'index', href: '/', label: 'Today', icon: 'today', also: ['dose-check'] },
+  { name: 'recipes', href: '/recipes', label: 'Recipes', icon: 'recipes', also: [] },
+  { name: 'kitchen', href: '/kitchen', label: 'Kitchen', icon: 'kitchen', also: ['portions', 'batches'] },
+  { name: 'plan', href: '/plan', label: 'Plan', icon: 'plan', also: [] },
+  { name: 'more', href: '/more', label: 'You', icon: 'more', also: ['settings', 'foods', 'admin'] },
 ];
 
-type TabButtonProps = TabTriggerSlotProps & { label: string; icon: IconName; wide: boolean };
+/**
+ * Pages that live inside the same shell but have no tab of their own (like `href: null` in a tab bar). Each needs a
+ * trigger so the tab navigator knows the route; the href only has to reach it.
+ */
+const HIDDEN = [
+  { name: 'dose-check', href: '/dose-check' },
+  { name: 'portions/[code]', href: '/portions/-' },
+  { name: 'batches/[id]/labels', href: '/batches/0/labels' },
+  { name: 'settings', href: '/settings' },
+  { name: 'foods', href: '/foods' },
+  { name: 'admin/imports', href: '/admin/imports' },
+];
 
-const TabButton = forwardRef<View, TabButtonProps>(function TabButton({ label, icon, wide, isFocused, ...props }, ref) {
+type Triggers = Parameters<typeof useTabsWithTriggers>[0]['triggers'];
+const TRIGGERS = [...TABS, ...HIDDEN].map(({ name, href }) => ({ type: 'internal', name, href })) as Triggers;
+
+/** Which tab to light for an address: its own, or the area an outside page belongs to. */
+export function activeTab(pathname: string): string | undefined {
+  const first = pathname.split('/')[1] ?? '';
+  if (first === '') return 'index';
+  return TABS.find((tab) => tab.name === first || tab.also.includes(first))?.name;
+}
+
+// The label sheet's print styles hide what is marked so; a printed sheet shows labels, not the navigation.
+const hideInPrint = { dataSet: { print: 'hide' } } as object;
+
+type TabButtonProps = TabTriggerSlotProps & { label: string; icon: IconName; wide: boolean; active: boolean };
+
+const TabButton = forwardRef<View, TabButtonProps>(function TabButton({ label, icon, wide, active, isFocused: _f, ...props }, ref) {
   const t = useTheme();
-  const color = isFocused ? t.colors.primary : t.colors.textMuted;
+  const color = active ? t.colors.primary : t.colors.textMuted;
   return (
     <Pressable
       ref={ref}
       role="tab"
-      aria-selected={!!isFocused}
+      aria-selected={active}
       aria-label={label}
       {...props}
-      style={[
-        wide ? styles.sideButton : styles.bottomButton,
-        isFocused && wide && { backgroundColor: t.colors.primarySoft },
-      ]}
+      style={[wide ? styles.sideButton : styles.bottomButton, active && wide && { backgroundColor: t.colors.primarySoft }]}
     >
       <Icon name={icon} color={color} size={wide ? 22 : 24} />
-      <Text variant={wide ? 'label' : 'caption'} weight={isFocused ? 'bold' : 'regular'} style={{ color }}>
+      <Text variant={wide ? 'label' : 'caption'} weight={active ? 'bold' : 'regular'} style={{ color }}>
         {label}
       </Text>
-      {isFocused && !wide ? <View style={[styles.dot, { backgroundColor: t.colors.primary }]} /> : null}
+      {active && !wide ? <View style={[styles.dot, { backgroundColor: t.colors.primary }]} /> : null}
     </Pressable>
   );
 });
 
-/** Tab bar at the bottom on a phone; a side rail with the name on a wide screen. */
+/**
+ * The shell of every signed-in page: a `main` landmark with the page, and a `navigation` landmark holding the
+ * tab bar at the bottom on a phone, or the mark, the name and a side rail on a wide screen.
+ */
 export function AppTabs() {
   const t = useTheme();
   const { isWide } = useLayout();
   const insets = useSafeAreaInsets();
   const pathname = usePathname();
+  const current = activeTab(pathname);
+  // Back follows the pages visited (labels → the batch it came from), not the first tab.
+  const { NavigationContent } = useTabsWithTriggers({ triggers: TRIGGERS, backBehavior: 'history' });
   return (
-    <Tabs style={[styles.fill, isWide && styles.row]}>
-      <TabSlot style={styles.fill} />
-      <TabList
-        role="tablist"
-        style={[
-          isWide ? styles.side : styles.bottom,
-          { backgroundColor: t.colors.surface, borderColor: t.colors.border },
-          !isWide && { paddingBottom: Math.max(insets.bottom, 6) },
-        ]}
-      >
-        {isWide ? (
-          <View style={styles.brand}>
-            <Text variant="heading" color="primary">
-              Carbwright
-            </Text>
+    <NavigationContent>
+      <View style={[styles.fill, isWide && styles.row]}>
+        <View role="main" style={styles.fill}>
+          <TabSlot style={styles.fill} />
+        </View>
+        <View
+          role="navigation"
+          aria-label="Main"
+          {...hideInPrint}
+          style={[
+            isWide ? styles.side : styles.bottom,
+            { backgroundColor: t.colors.surface, borderColor: t.colors.border },
+            !isWide && { paddingBottom: Math.max(insets.bottom, 6) },
+          ]}
+        >
+          {isWide ? (
+            <View style={styles.brand}>
+              <Brand />
+            </View>
+          ) : null}
+          <View role="tablist" style={isWide ? styles.sideList : styles.bottomList}>
+            {TABS.map((tab) => (
+              <TabTrigger
+                key={tab.name}
+                name={tab.name}
+                asChild
+                onPress={(e) => {
+                  // Tapping the tab you are in goes to its first page, also when the page was opened from another tab.
+                  if (tab.href === '/' || !pathname.startsWith(`${tab.href}/`)) return;
+                  e.preventDefault();
+                  router.navigate(tab.href);
+                }}
+              >
+                <TabButton label={tab.label} icon={tab.icon} wide={isWide} active={current === tab.name} />
+              </TabTrigger>
+            ))}
           </View>
-        ) : null}
-        {TABS.map((tab) => (
-          <TabTrigger
-            key={tab.name}
-            name={tab.name}
-            href={tab.href}
-            asChild
-            onPress={(e) => {
-              // Tapping the tab you are in goes to its first page, also when the page was opened from another tab.
-              if (tab.href === '/' || !pathname.startsWith(`${tab.href}/`)) return;
-              e.preventDefault();
-              router.navigate(tab.href);
-            }}
-          >
-            <TabButton label={tab.label} icon={tab.icon} wide={isWide} />
-          </TabTrigger>
-        ))}
-      </TabList>
-    </Tabs>
+        </View>
+      </View>
+    </NavigationContent>
   );
 }
 
 const styles = StyleSheet.create({
   fill: { flex: 1 },
   row: { flexDirection: 'row-reverse' },
-  bottom: { flexDirection: 'row', justifyContent: 'space-around', borderTopWidth: 1, paddingTop: 6 },
-  side: { width: 220, flexDirection: 'column', justifyContent: 'flex-start', borderRightWidth: 1, paddingHorizontal: 12, paddingTop: 20, gap: 4 },
-  brand: { paddingHorizontal: 12, paddingBottom: 20 },
+  bottom: { borderTopWidth: 1, paddingTop: 6 },
+  bottomList: { flexDirection: 'row', justifyContent: 'space-around' },
+  side: { width: 220, borderRightWidth: 1, paddingHorizontal: 12, paddingTop: 20 },
+  sideList: { flexDirection: 'column', gap: 4 },
+  brand: { paddingHorizontal: 8, paddingBottom: 20 },
   bottomButton: { flex: 1, alignItems: 'center', justifyContent: 'center', minHeight: 52, gap: 2 },
   sideButton: { flexDirection: 'row', alignItems: 'center', gap: 12, minHeight: 48, paddingHorizontal: 12, borderRadius: 10 },
   dot: { width: 5, height: 5, borderRadius: 3, marginTop: 1 },

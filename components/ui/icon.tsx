@@ -9,9 +9,8 @@ export function Icon({ name, color, size = 24 }: { name: IconName; color: string
     <Svg width={size} height={size} viewBox="0 0 24 24" aria-hidden>
       {name === 'today' ? (
         <>
-          <Circle cx={12} cy={13} r={7} {...stroke} />
-          <Circle cx={12} cy={13} r={3.5} {...stroke} />
-          <Path d="M3 5.5h4M17 5.5h4M12 2.5v2" {...stroke} />
+          <Path d="M5.5 16a6.5 6.5 0 0 1 13 0M2.5 16h19M7 19.5h10" {...stroke} />
+          <Path d="M12 4v2.5M4.9 7.4l1.8 1.8M19.1 7.4l-1.8 1.8" {...stroke} />
         </>
       ) : null}
       {name === 'recipes' ? (

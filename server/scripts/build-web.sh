@@ -10,9 +10,12 @@ if [ -f "$OUT/.build-hash" ] && [ "$(cat "$OUT/.build-hash")" = "$hash" ]; then
   echo "Web build is up to date ($OUT)."
   exit 0
 fi
-echo "Building the web app (first build takes about a minute)…"
+# The log stays in this clone's own git-ignored .logs/, so two clones never write over each other's.
+LOG="$ROOT/.logs/web-build.log"
+mkdir -p "$ROOT/.logs"
+echo "Building the web app (first build takes about a minute; log in .logs/web-build.log)…"
 rm -rf "$OUT"
-EXPO_NO_TELEMETRY=1 EXPO_OFFLINE=1 CI=1 node_modules/.bin/expo export --platform web --output-dir "$OUT" >"${TMPDIR:-/tmp}/carbwright-web-build.log" 2>&1 || {
-  echo "ERROR: web build failed; log:" >&2; tail -n 40 "${TMPDIR:-/tmp}/carbwright-web-build.log" >&2; exit 1; }
+EXPO_NO_TELEMETRY=1 EXPO_OFFLINE=1 CI=1 node_modules/.bin/expo export --platform web --output-dir "$OUT" >"$LOG" 2>&1 || {
+  echo "ERROR: web build failed; log ($LOG):" >&2; tail -n 40 "$LOG" >&2; exit 1; }
 echo "$hash" > "$OUT/.build-hash"
 echo "Web app built into $OUT."
