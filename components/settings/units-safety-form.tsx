@@ -1,6 +1,6 @@
 import { zodResolver } from '@hookform/resolvers/zod';
 import { useState } from 'react';
-import { Controller, useForm, type FieldPath } from 'react-hook-form';
+import { useForm, type FieldPath } from 'react-hook-form';
 import { StyleSheet, View } from 'react-native';
 import { EXERCISE_INTENSITIES } from '../../shared/compute/exercise';
 import { glucoseFromMmol, glucoseToMmol } from '../../shared/compute/units';
@@ -17,7 +17,6 @@ import { Callout } from '../ui/callout';
 import { Card } from '../ui/card';
 import { FormTextField } from '../ui/form-text-field';
 import { Text } from '../ui/text';
-import { ChoiceGroup } from '../ui/choice-group';
 import { FormChoiceGroup } from '../ui/form-choice-group';
 
 const GLUCOSE_FIELDS = ['targetLow', 'targetHigh', 'correctionTarget', 'hypoThreshold', 'veryHigh'] as const;
@@ -60,25 +59,18 @@ export function UnitsSafetyForm({
       {formError ? <Callout tone="danger" title="Not saved">{formError}</Callout> : null}
       <Card>
         <Text variant="heading">Units</Text>
-        <Controller
+        <FormChoiceGroup
           control={form.control}
           name="glucoseUnit"
-          render={({ field, fieldState }) => (
-            <ChoiceGroup
-              label="Glucose unit"
-              choices={[{ value: 'mmol_l', label: 'mmol/L' }, { value: 'mg_dl', label: 'mg/dL' }]}
-              value={field.value}
-              error={fieldState.error?.message}
-              hint="1 mmol/L = 18.0156 mg/dL. Values are converted for you when you switch."
-              onChange={(next) => {
-                if (next !== field.value) {
-                  for (const name of GLUCOSE_FIELDS) form.setValue(name, convertField(form.getValues(name), field.value, next));
-                }
-                field.onChange(next);
-                setUnit(next);
-              }}
-            />
-          )}
+          label="Glucose unit"
+          choices={[{ value: 'mmol_l', label: 'mmol/L' }, { value: 'mg_dl', label: 'mg/dL' }]}
+          hint="1 mmol/L = 18.0156 mg/dL. Values are converted for you when you switch."
+          onChosen={(next: GlucoseUnit, previous: GlucoseUnit) => {
+            if (next !== previous) {
+              for (const name of GLUCOSE_FIELDS) form.setValue(name, convertField(form.getValues(name), previous, next));
+            }
+            setUnit(next);
+          }}
         />
         <FormChoiceGroup
           control={form.control}
