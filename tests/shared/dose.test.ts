@@ -1,26 +1,13 @@
 import { computeDose, fatProteinUnits, findBlock, roundToIncrement, type DayKindRatios, type DoseInput, type DoseSettings } from '../../shared/compute/dose';
 import { DEFAULT_EXERCISE_REDUCTIONS } from '../../shared/compute/exercise';
+import { engineSettings } from '../helpers/dose-settings';
 import { carbUnitToGrams, glucoseToMmol, gramsToCarbUnit, mgdlToMmol, mmolToMgdl } from '../../shared/compute/units';
 
 const T0 = Date.UTC(2026, 2, 1, 12, 0);
 const MIN = 60_000;
 
 function settings(over: Partial<DoseSettings> = {}): DoseSettings {
-  return {
-    penIncrement: 0.5,
-    rounding: 'down',
-    maxDoseUnits: 30,
-    actionTimeHours: 4,
-    targetLowMmol: 5,
-    targetHighMmol: 8,
-    correctionTargetMmol: 6,
-    hypoThresholdMmol: 3.9,
-    veryHighMmol: 15,
-    allowNegativeCorrection: false,
-    iobConvention: 'correction_only',
-    exerciseReductions: DEFAULT_EXERCISE_REDUCTIONS,
-    ...over,
-  };
+  return engineSettings({ maxDoseUnits: 30, ...over });
 }
 function dayKind(carbRatio: number, correctionFactorMmol: number, name = 'Rest'): DayKindRatios {
   return { id: 1, name, blocks: [{ startMinute: 0, endMinute: 1440, carbRatio, correctionFactorMmol }] };
