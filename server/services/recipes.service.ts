@@ -245,22 +245,17 @@ async function writeIngredients(recipeId: number, input: RecipeInputParsed['ingr
   );
 }
 
+/** The recipe's own columns from the input (ingredients are written separately). */
+function recipeFields(input: RecipeInputParsed) {
+  const { title, description, methodSteps, tags, defaultPortions, visibility } = input;
+  return { title, description, methodSteps, tags, defaultPortions, visibility };
+}
+
 /** Creates a recipe with its ingredients in one transaction; returns the detail. */
 export async function createRecipe(input: RecipeInputParsed, userId: number): Promise<RecipeDetail> {
   const sequelize = RecipeModel.sequelize!;
   const id = await sequelize.transaction(async (transaction) => {
-    const recipe = await RecipeModel.create(
-      {
-        ownerUserId: userId,
-        title: input.title,
-        description: input.description,
-        methodSteps: input.methodSteps,
-        tags: input.tags,
-        defaultPortions: input.defaultPortions,
-        visibility: input.visibility,
-      },
-      { transaction },
-    );
+    const recipe = await RecipeModel.create({ ownerUserId: userId, ...recipeFields(input) }, { transaction });
     await writeIngredients(recipe.id, input.ingredients, userId, transaction);
     return recipe.id;
   });
@@ -274,17 +269,7 @@ export async function createRecipe(input: RecipeInputParsed, userId: number): Pr
 export async function updateRecipe(recipeId: number, input: RecipeInputParsed, userId: number): Promise<RecipeDetail> {
   await RecipeModel.sequelize!.transaction(async (transaction) => {
     const recipe = await findOwnedRecipe(recipeId, userId, transaction);
-    await recipe.update(
-      {
-        title: input.title,
-        description: input.description,
-        methodSteps: input.methodSteps,
-        tags: input.tags,
-        defaultPortions: input.defaultPortions,
-        visibility: input.visibility,
-      },
-      { transaction },
-    );
+    await recipe.update(recipeFields(input), { transaction });
     recipe.changed('updatedAt', true);
     await recipe.save({ transaction });
     if (input.visibility === 'private') await RecipeShareModel.destroy({ where: { recipeId }, transaction });

@@ -1,25 +1,11 @@
 import { render, screen } from '@testing-library/react';
 import { DoseBreakdownView } from '@/components/dose/dose-breakdown';
 import { computeDose, type DoseSettings } from '@/shared/compute/dose';
-import { DEFAULT_EXERCISE_REDUCTIONS } from '@/shared/compute/exercise';
 import type { DoseSuggestion } from '@/shared/schemas/dose';
+import { engineSettings } from '../helpers/dose-settings';
 
 const T0 = Date.UTC(2026, 2, 1, 12, 0);
-const settings: DoseSettings = {
-  penIncrement: 0.5,
-  rounding: 'down',
-  maxDoseUnits: 15,
-  actionTimeHours: 4,
-  activeInsulinModel: 'linear',
-  targetLowMmol: 5,
-  targetHighMmol: 7,
-  correctionTargetMmol: 6,
-  hypoThresholdMmol: 3.9,
-  veryHighMmol: 15,
-  allowNegativeCorrection: false,
-  iobConvention: 'correction_only',
-  exerciseReductions: DEFAULT_EXERCISE_REDUCTIONS,
-};
+const settings: DoseSettings = engineSettings({ targetHighMmol: 7, maxDoseUnits: 15 });
 const rest = { id: 1, name: 'Rest', blocks: [{ startMinute: 0, endMinute: 1440, carbRatio: 10, correctionFactorMmol: 2.5 }] };
 
 function suggestion(glucose: number, extra: Partial<Parameters<typeof computeDose>[2]> = {}): DoseSuggestion {

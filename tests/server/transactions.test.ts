@@ -21,7 +21,7 @@ describe('every query inside a transaction runs on it (pool of 3 connections)', 
   let ctx: { app: Express; sequelize: Sequelize };
   beforeAll(async () => {
     // A generous acquire timeout: only a deadlock (a query outside its transaction) can run it out.
-    ctx = await smallPoolApp(3, 30_000);
+    ctx = await smallPoolApp(3, 60_000);
   });
   afterAll(async () => {
     await ctx.sequelize.close();
