@@ -1,4 +1,5 @@
-import { computeBatch, gramsLeftToSplit, weighedPortionCarb, type BatchComputation } from '../../shared/compute/batch';
+import { computeBatch, gramsLeftToSplit, netGrams, splitBatch, type BatchComputation, type BatchSplit } from '../../shared/compute/batch';
+import { batchContainsRice } from '../../shared/compute/use-by';
 import type { Nutrients } from '../../shared/compute/nutrients';
 import { defaultUseBy } from '../../shared/compute/use-by';
 import type { RecipeDetail } from '../../shared/schemas/recipe';
@@ -75,16 +76,30 @@ export function cookFormDefaults(recipe: RecipeDetail, today: string, region: 'u
 }
 
 /** Whether a rice ingredient is in the pot (the use-by advice is shorter for cooked rice). */
-export const hasRice = (lines: Partial<CookLine>[]) => lines.some((l) => l && !l.omitted && /\brice\b/i.test(l.foodName ?? ''));
+export const hasRice = (lines: Partial<CookLine>[]) =>
+  batchContainsRice(lines.filter(Boolean).map((l) => ({ foodName: l.foodName ?? '', omitted: l.omitted })));
 
 /** True once anything has been weighed or left out (the plan is then fixed). */
 export const cookStarted = (lines: CookLine[]) => lines.some((l) => l.reading !== '' || l.omitted);
 
-/** Net grams of a weighing, or null until both numbers are sensible. */
+/** Net grams of a weighing (the shared gross − tare rule), or null until both numbers are sensible. */
 export function netOf(w: Weighing): number | null {
   const gross = num(w.gross);
-  const tare = num(w.tare) ?? 0;
-  return gross != null && gross > 0 && tare >= 0 && tare < gross ? gross - tare : null;
+  if (gross == null) return null;
+  try {
+    return netGrams(gross, num(w.tare) ?? 0);
+  } catch {
+    return null;
+  }
+}
+
+/** Each portion of a split in the counted basis (the server's splitBatch), or null when the split is not valid yet. */
+export function previewSplit(batch: BatchComputation, split: BatchSplit, basis: CarbBasis): { netGrams: number; carbGrams: number | null }[] | null {
+  try {
+    return splitBatch(batch, split).map((s) => ({ netGrams: s.netGrams, carbGrams: basis === 'available' ? s.carbAvailable : s.carbTotal }));
+  } catch {
+    return null;
+  }
 }
 
 /** The batch arithmetic for what is typed so far (same shared functions as the server), or null. */
@@ -100,8 +115,10 @@ export function previewBatch(v: Pick<CookFormValues, 'lines' | 'pot'>, basis: Ca
 }
 
 /** Grams not yet put into containers, and each weighed portion's carbohydrate (g) so far. */
-export function previewPortions(portions: Weighing[], batch: BatchComputation | null) {
+export function previewPortions(portions: Weighing[], batch: BatchComputation | null, basis: CarbBasis) {
   const nets = portions.map(netOf);
   const left = batch ? gramsLeftToSplit(batch.cookedGrams, nets.map((n) => n ?? 0)) : null;
-  return { nets, left, carbs: nets.map((n) => (n == null || !batch ? null : weighedPortionCarb(batch.carbPer100g, n))) };
+  const carbOf = (w: Weighing, n: number | null) =>
+    n == null || !batch ? null : (previewSplit(batch, { mode: 'weighed', portions: [{ grossGrams: num(w.gross)!, tareGrams: num(w.tare) ?? 0 }] }, basis)?.[0].carbGrams ?? null);
+  return { nets, left, carbs: portions.map((w, i) => carbOf(w, nets[i])) };
 }

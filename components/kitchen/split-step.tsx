@@ -2,7 +2,7 @@ import { useFieldArray, useFormState, useWatch } from 'react-hook-form';
 import { StyleSheet, View } from 'react-native';
 import { SPLIT_TOLERANCE_GRAMS, type BatchComputation } from '../../shared/compute/batch';
 import type { Container } from '../../shared/schemas/container';
-import type { CarbUnit } from '../../shared/schemas/units';
+import type { CarbBasis, CarbUnit } from '../../shared/schemas/units';
 import { Button } from '../ui/button';
 import { Callout } from '../ui/callout';
 import { Card } from '../ui/card';
@@ -10,7 +10,7 @@ import { FormChoiceGroup } from '../ui/form-choice-group';
 import { FormTextField } from '../ui/form-text-field';
 import { Text } from '../ui/text';
 import type { CookForm } from './cook-batch-screen';
-import { EMPTY_WEIGHING, num, previewPortions } from './cook-state';
+import { EMPTY_WEIGHING, num, previewPortions, previewSplit } from './cook-state';
 import { containerChoices } from './cooked-weight-step';
 import { carbText, gramsText } from './kitchen-format';
 
@@ -18,20 +18,21 @@ type Props = {
   form: CookForm;
   containers: Container[];
   batch: BatchComputation;
+  basis: CarbBasis;
   unit: CarbUnit;
   onBack: () => void;
   onDone: () => void;
 };
 
 /** The split: N equal portions, or containers weighed one by one with the grams left to split. */
-export function SplitStep({ form, containers, batch, unit, onBack, onDone }: Props) {
+export function SplitStep({ form, containers, batch, basis, unit, onBack, onDone }: Props) {
   const { control } = form;
   const portions = useFieldArray({ control, name: 'portions' });
   const [splitMode, countText, weighed] = useWatch({ control, name: ['splitMode', 'count', 'portions'] });
   const { errors } = useFormState({ control, name: 'portions' });
-  const preview = previewPortions(weighed, batch);
+  const preview = previewPortions(weighed, batch, basis);
   const count = num(countText);
-  const equalOk = count != null && Number.isInteger(count) && count >= 1 && count <= 100;
+  const equalShare = count != null && count <= 100 ? previewSplit(batch, { mode: 'equal', count }, basis)?.[0] : undefined;
   const weighedOk = weighed.length > 0 && preview.nets.every((n) => n != null) && (preview.left ?? 0) >= -SPLIT_TOLERANCE_GRAMS;
   const addPortion = () => {
     const prev = weighed.at(-1);
@@ -57,9 +58,9 @@ export function SplitStep({ form, containers, batch, unit, onBack, onDone }: Pro
       {splitMode === 'equal' ? (
         <>
           <FormTextField control={control} name="count" label="Number of portions" keyboardType="number-pad" />
-          {equalOk ? (
+          {equalShare ? (
             <Text variant="lead">
-              Each portion: {gramsText(batch.cookedGrams / count!)} with {carbText(batch.carbTotal == null ? null : batch.carbTotal / count!, unit)}
+              Each portion: {gramsText(equalShare.netGrams)} with {carbText(equalShare.carbGrams, unit)}
             </Text>
           ) : null}
         </>
@@ -111,7 +112,7 @@ export function SplitStep({ form, containers, batch, unit, onBack, onDone }: Pro
       )}
       <View style={styles.row}>
         <Button variant="quiet" label="‹ Back to the pot" onPress={onBack} />
-        <Button size="lg" label="Storage and use-by" disabled={splitMode === 'equal' ? !equalOk : !weighedOk} onPress={onDone} />
+        <Button size="lg" label="Storage and use-by" disabled={splitMode === 'equal' ? !equalShare : !weighedOk} onPress={onDone} />
       </View>
     </Card>
   );
