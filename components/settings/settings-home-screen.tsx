@@ -28,12 +28,12 @@ export function SettingsHomeScreen() {
       )}
       <LinkCard
         title="Units and safety limits"
-        description={`${settings.data.settings ? 'Set.' : 'Not set yet.'} Glucose and carbohydrate units, pen steps, maximum dose, action time, targets and the exercise table.`}
+        description={`${settings.data.settings ? 'Set.' : 'Not set yet.'} Glucose and carbohydrate units, pen step, largest single dose, action time, targets and the exercise table.`}
         links={[{ href: '/settings/units', label: 'Units and safety limits' }]}
       />
       <LinkCard
         title="Day kinds and ratios"
-        description={`${dayKinds.data.length ? dayKinds.data.map((k) => k.name).join(', ') : 'None yet.'} Each kind of day holds its insulin-to-carb ratios and correction factors by time of day.`}
+        description={`${dayKinds.data.length ? `Yours: ${dayKinds.data.map((k) => k.name).join(', ')}.` : 'None yet.'} Each kind of day holds its insulin-to-carb ratios and correction factors by time of day.`}
         links={[{ href: '/settings/day-kinds', label: 'Day kinds and ratios' }]}
       />
       <LinkCard
