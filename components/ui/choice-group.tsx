@@ -61,6 +61,7 @@ export function ChoiceGroup<T extends string | number | boolean>({ label, choice
 const styles = StyleSheet.create({
   wrap: { gap: 6 },
   row: { flexDirection: 'row', flexWrap: 'wrap', gap: 8 },
-  chip: { minHeight: MIN_TOUCH, paddingHorizontal: 14, paddingVertical: 6, borderWidth: 1.5, borderRadius: 10, justifyContent: 'center' },
+  // maxWidth lets a long choice wrap inside a phone-wide row instead of running past the edge.
+  chip: { minHeight: MIN_TOUCH, maxWidth: '100%', paddingHorizontal: 14, paddingVertical: 6, borderWidth: 1.5, borderRadius: 10, justifyContent: 'center' },
   withHint: { flexGrow: 1, flexBasis: 200, gap: 2 },
 });
