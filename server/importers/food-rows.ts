@@ -1,4 +1,4 @@
-import type { Nutrients } from '../../shared/compute/nutrients';
+import { carbInBasis, type Nutrients } from '../../shared/compute/nutrients';
 
 /**
  * Completes the carbohydrate pair from what a source published (see shared/reference/datasets.md §4):
@@ -7,19 +7,12 @@ import type { Nutrients } from '../../shared/compute/nutrients';
 export function deriveCarbs(n: Nutrients, measured: 'available' | 'total'): { nutrients: Nutrients; derived: string[] } {
   const out = { ...n };
   const derived: string[] = [];
-  if (measured === 'total') {
-    out.carbAvailable = null;
-    if (n.carbTotal != null && n.fibre != null) {
-      out.carbAvailable = Math.max(0, roundTo(n.carbTotal - n.fibre, 6));
-      derived.push('carbAvailable');
-    }
-  } else {
-    out.carbTotal = null;
-    if (n.carbAvailable != null && n.fibre != null) {
-      out.carbTotal = roundTo(n.carbAvailable + n.fibre, 6);
-      derived.push('carbTotal');
-    }
-  }
+  // The other basis comes from the one rule in shared/compute, applied to what the source published only.
+  const other = measured === 'total' ? 'carbAvailable' : 'carbTotal';
+  const published = measured === 'total' ? { carbTotal: n.carbTotal, carbAvailable: null } : { carbAvailable: n.carbAvailable, carbTotal: null };
+  const value = carbInBasis({ ...published, fibre: n.fibre }, measured === 'total' ? 'available' : 'total');
+  out[other] = value == null ? null : roundTo(value, 6);
+  if (value != null) derived.push(other);
   return { nutrients: out, derived };
 }
 
