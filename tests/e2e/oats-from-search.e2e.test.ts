@@ -1,6 +1,6 @@
-import type { Page } from 'playwright-core';
 import { restoreShippedFoods } from '../helpers/db';
 import { PHONE, startBrowserRig, type BrowserRig } from '../helpers/browser';
+import { saveBatchAndOpenLabels, signUpInBrowser, weighContainers, weighEachIngredient, weighPot } from '../helpers/kitchen-flow';
 
 let rig: BrowserRig;
 beforeAll(async () => {
@@ -56,19 +56,10 @@ const EXPECT = {
   container: { 226: '39 g', 227: '40 g' } as Record<number, string>,
 };
 
-async function signUp(page: Page) {
-  await page.goto(`${rig.baseUrl}/sign-up`);
-  await page.getByLabel('Your name').fill('Jo');
-  await page.getByLabel('Email').fill('jo-oats@example.test');
-  await page.getByLabel('Password').fill('a long kitchen passphrase');
-  await page.getByRole('button', { name: 'Create account' }).click();
-  await page.waitForURL(`${rig.baseUrl}/`);
-}
-
 describe('a Sunday batch of overnight oats from the USDA table only, on a phone', () => {
   it('finds every food by search, cooks with weights, splits into five weighed containers and prints labels', async () => {
     const page = await rig.newPage(PHONE);
-    await signUp(page);
+    await signUpInBrowser(page, rig.baseUrl, { name: 'Jo', email: 'jo-oats@example.test' });
 
     await page.getByRole('tab', { name: 'Recipes' }).click();
     await page.getByRole('button', { name: 'New recipe' }).click();
@@ -95,44 +86,18 @@ describe('a Sunday batch of overnight oats from the USDA table only, on a phone'
 
     await page.getByRole('button', { name: 'Cook a batch' }).click();
     await page.waitForURL(/\/kitchen\/cook\/\d+$/);
-    for (const [i, f] of FOODS.entries()) {
-      await page.getByText(`Ingredient ${i + 1} of ${FOODS.length}`).waitFor();
-      await page.getByLabel('Scale reading').fill(String(f.actual));
-      const diff = f.actual - f.planned;
-      await page.getByText(`${diff > 0 ? '+' : '−'}${Math.abs(diff)} g`).first().waitFor();
-      if (i === FOODS.length - 1) {
-        await rig.shot(page, 'weighing-last');
-        await page.getByRole('button', { name: 'All weighed: weigh the pot' }).click();
-      } else await page.getByRole('button', { name: 'Next ingredient' }).click();
-    }
-
-    await page.getByLabel('Empty pot (tare)').fill(String(BOWL.tare));
-    await page.getByLabel('Pot with the food (gross)').fill(String(BOWL.gross));
-    const numbers = page.getByLabel('Batch numbers');
-    await numbers.getByText(EXPECT.cooked, { exact: true }).waitFor();
-    await numbers.getByText(EXPECT.batchPer100g, { exact: true }).waitFor();
-    await numbers.getByText(EXPECT.batchTotal, { exact: true }).waitFor();
+    await weighEachIngredient(page, FOODS, async (i) => {
+      if (i === FOODS.length - 1) await rig.shot(page, 'weighing-last');
+    });
+    await weighPot(page, BOWL, [EXPECT.cooked, EXPECT.batchPer100g, EXPECT.batchTotal]);
     await rig.shot(page, 'bowl');
     await page.getByRole('button', { name: 'Split into portions' }).click();
 
-    for (const [i, [tare, gross]] of CONTAINERS.entries()) {
-      if (i > 0) await page.getByRole('button', { name: 'Add a container' }).click();
-      await page.getByLabel(`Empty container ${i + 1} (tare)`).fill(String(tare));
-      await page.getByLabel(`Full container ${i + 1} (gross)`).fill(String(gross));
-      await page.getByText(`Net ${gross - tare} g · ${EXPECT.container[gross - tare]}`).first().waitFor();
-    }
+    await weighContainers(page, CONTAINERS, (net) => EXPECT.container[net]);
     await page.getByText(`Left to split: 0 g of ${BOWL.gross - BOWL.tare} g`).waitFor();
     await rig.shot(page, 'split');
     await page.getByRole('button', { name: 'Storage and use-by' }).click();
-    await page.getByRole('button', { name: 'Save batch and portions' }).click();
-
-    await page.waitForURL(/\/kitchen\/batches\/\d+$/);
-    await page.getByRole('heading', { name: 'Portions' }).waitFor();
-    await rig.shot(page, 'batch');
-    await page.getByRole('button', { name: 'Print labels' }).first().click();
-    await page.waitForURL(/\/batches\/\d+\/labels$/);
-    const labels = page.getByRole('listitem').filter({ hasText: 'Overnight oats' });
-    await labels.first().waitFor();
+    const labels = await saveBatchAndOpenLabels(page, 'Overnight oats', () => rig.shot(page, 'batch'));
     expect(await labels.count()).toBe(PORTIONS);
     for (const net of [226, 227]) {
       const these = labels.filter({ hasText: `Net ${net} g ·` });
