@@ -1,6 +1,7 @@
 import { keepPreviousData, queryOptions, useInfiniteQuery, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 import type { CreateLabelFoodValues, DatasetImport, Food, FoodSearchPage, FoodSource } from '../../shared/schemas/food';
 import { apiFetch, apiFetchBlob } from './client';
+import { recipeKeys } from './recipes';
 
 export type FoodFilters = { q: string; source?: FoodSource; group?: string; limit?: number };
 
@@ -63,6 +64,31 @@ export function useCreateLabelFood() {
     },
     onSuccess: ({ food }) => {
       queryClient.setQueryData(foodKeys.detail(food.id), food);
+      void queryClient.invalidateQueries({ queryKey: foodKeys.lists() });
+    },
+  });
+}
+
+/** Saves new values for one of your pack foods (JSON; the photo stays). Recipes count them from now on. */
+export function useUpdateLabelFood(id: number) {
+  const queryClient = useQueryClient();
+  return useMutation({
+    mutationFn: (values: CreateLabelFoodValues) => apiFetch<{ food: Food }>(`/foods/${id}`, { method: 'PUT', body: values }),
+    onSuccess: ({ food }) => {
+      queryClient.setQueryData(foodKeys.detail(food.id), food);
+      void queryClient.invalidateQueries({ queryKey: foodKeys.lists() });
+      void queryClient.invalidateQueries({ queryKey: recipeKeys.all });
+    },
+  });
+}
+
+/** Deletes one of your pack foods; a 409 names the recipes that still use it (`fieldErrors.recipes`). */
+export function useDeleteLabelFood() {
+  const queryClient = useQueryClient();
+  return useMutation({
+    mutationFn: (id: number) => apiFetch<void>(`/foods/${id}`, { method: 'DELETE' }),
+    onSuccess: (_r, id) => {
+      queryClient.removeQueries({ queryKey: foodKeys.detail(id) });
       void queryClient.invalidateQueries({ queryKey: foodKeys.lists() });
     },
   });

@@ -4,7 +4,7 @@ import type { CarbBasis, CarbUnit } from '../../shared/schemas/units';
 import { MIN_TOUCH } from '../theme/tokens';
 import { useTheme } from '../theme/use-theme';
 import { Text } from '../ui/text';
-import { BASIS_SHORT, carbText, FIBRE_NOT_MEASURED, fibreNotMeasured, sourceShort } from './food-carb';
+import { BASIS_SHORT, carbText, FIBRE_NOT_MEASURED, fibreNotMeasured, rowCaption } from './food-carb';
 
 type Props = {
   food: FoodSummary;
@@ -16,7 +16,7 @@ type Props = {
   onToggleFavourite: () => void;
 };
 
-/** One food in a list on one or two lines: name, source and group, carbohydrate per 100 g in the profile's basis; a star keeps it handy. */
+/** One food in a list on one or two lines: name, group (the source is on the food's page), carbohydrate per 100 g in the profile's basis; a star keeps it handy. */
 export function FoodRow({ food, basis, unit, favourite, selected, onPress, onToggleFavourite }: Props) {
   const t = useTheme();
   const carb = carbText(food, 100, basis, unit);
@@ -34,8 +34,7 @@ export function FoodRow({ food, basis, unit, favourite, selected, onPress, onTog
             {food.name}
           </Text>
           <Text variant="caption" color="textMuted" numberOfLines={1}>
-            {sourceShort(food)}
-            {food.group ? ` · ${food.group}` : ''}
+            {rowCaption(food)}
           </Text>
         </View>
         <View style={styles.carb}>

@@ -1,4 +1,4 @@
-import { createLabelFoodInputSchema } from '../../shared/schemas/food';
+import { createLabelFoodInputSchema, type Food } from '../../shared/schemas/food';
 import { requestFormSchema } from '../ui/request-form-schema';
 
 /** What the form holds: text exactly as typed; turned into numbers only for validation and sending. */
@@ -38,6 +38,30 @@ export const emptyLabelFood: LabelFoodFormValues = {
   energyKcal: '',
   share: 'private',
 };
+
+const typed = (v: number | null) => (v == null ? '' : String(v));
+
+/** The edit form's starting values from a saved pack food: its values per 100 g as stored (a per-serving label was converted on save). */
+export function labelFoodValuesOf(food: Food): LabelFoodFormValues {
+  const brand = food.brand ?? '';
+  const suffix = brand ? ` (${brand})` : '';
+  const us = food.labelConvention === 'us';
+  const own = (k: 'energyKcal') => (food.derived.includes(k) ? null : food.per100g[k]);
+  return {
+    name: suffix && food.name.endsWith(suffix) ? food.name.slice(0, -suffix.length) : food.name,
+    brand,
+    basis: 'per100g',
+    servingGrams: '',
+    convention: us ? 'us' : 'eu',
+    carbohydrate: typed(us ? food.per100g.carbTotal : food.per100g.carbAvailable),
+    fibre: typed(food.per100g.fibre),
+    sugars: typed(food.per100g.sugars),
+    protein: typed(food.per100g.protein),
+    fat: typed(food.per100g.fat),
+    energyKcal: typed(own('energyKcal')),
+    share: food.sharedProfileId == null ? 'private' : String(food.sharedProfileId),
+  };
+}
 
 // "12,5" (decimal comma, as many labels print it) reads as 12.5; blank is "not printed"; anything else stays text so the schema names it.
 const num = (s: string): number | null | string => {

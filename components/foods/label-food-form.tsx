@@ -23,10 +23,13 @@ type Props = {
   submitError?: unknown;
   shareOptions: ShareOption[];
   defaultValues?: LabelFoodFormValues;
+  submitLabel?: string;
+  /** False when editing: the label photo is kept as it is. */
+  withPhoto?: boolean;
 };
 
 /** The add-a-label-food form: values as printed, per 100 g or per serving, with the label's carbohydrate convention. */
-export function LabelFoodForm({ onSubmit, submitting, submitError, shareOptions, defaultValues = emptyLabelFood }: Props) {
+export function LabelFoodForm({ onSubmit, submitting, submitError, shareOptions, defaultValues = emptyLabelFood, submitLabel = 'Save label food', withPhoto = true }: Props) {
   const form = useForm<LabelFoodFormValues, unknown, CreateLabelFoodValues>({ resolver: zodResolver(labelFoodFormSchema), defaultValues, mode: 'onSubmit' });
   const [photo, setPhoto] = useState<LabelPhotoFile | null>(null);
   const [formError, setFormError] = useState<string | undefined>();
@@ -85,23 +88,25 @@ export function LabelFoodForm({ onSubmit, submitting, submitError, shareOptions,
         <FormTextField control={form.control} name="fat" label="Fat" unit="g" keyboardType="decimal-pad" />
         <FormTextField control={form.control} name="energyKcal" label="Energy" unit="kcal" keyboardType="decimal-pad" />
       </Card>
-      <Card>
-        <Text variant="heading">Photo of the label</Text>
-        <PhotoInput value={photo} onChange={setPhoto} />
-        {shareOptions.length > 1 ? (
-          <FormChoiceGroup
-            control={form.control}
-            name="share"
-            label="Who can use this food"
-            choices={shareOptions.map((o) => ({ value: String(o.profileId ?? 'private'), label: o.label }))}
-          />
-        ) : null}
-      </Card>
+      {withPhoto || shareOptions.length > 1 ? (
+        <Card>
+          {withPhoto ? <Text variant="heading">Photo of the label</Text> : null}
+          {withPhoto ? <PhotoInput value={photo} onChange={setPhoto} /> : null}
+          {shareOptions.length > 1 ? (
+            <FormChoiceGroup
+              control={form.control}
+              name="share"
+              label="Who can use this food"
+              choices={shareOptions.map((o) => ({ value: String(o.profileId ?? 'private'), label: o.label }))}
+            />
+          ) : null}
+        </Card>
+      ) : null}
       <Callout tone="info" title="Check against the pack">
         Label values are the maker&apos;s declaration and are rounded; Carbwright uses them exactly as you type them.
       </Callout>
       {formError ? <Callout tone="danger" title="Not saved">{formError}</Callout> : null}
-      <Button label="Save label food" size="lg" loading={submitting} onPress={() => void submit()} />
+      <Button label={submitLabel} size="lg" loading={submitting} onPress={() => void submit()} />
     </View>
   );
 }

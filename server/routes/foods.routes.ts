@@ -6,7 +6,7 @@ import { createLabelFoodInputSchema, foodSchema, foodSearchPageSchema, foodSearc
 import { AppError } from '../errors';
 import { searchFoods } from '../services/food-search.service';
 import { getFood, getFoodPhotoPath } from '../services/foods.service';
-import { createLabelFood, deleteLabelFood, LABEL_PHOTO_MAX_BYTES } from '../services/label-foods.service';
+import { createLabelFood, deleteLabelFood, LABEL_PHOTO_MAX_BYTES, updateLabelFood } from '../services/label-foods.service';
 import { signedPhotoUrl } from '../services/photos.service';
 import { access, defineRoute, type AnyRoute, type AppDeps } from './registry';
 
@@ -60,8 +60,13 @@ export function foodsRoutes(deps: AppDeps): AnyRoute[] {
       },
     }),
     defineRoute({
+      method: 'put', path: '/foods/:id', access: access.signedIn, params: idParamSchema, body: createLabelFoodInputSchema, response: foodBody,
+      summary: 'Edit your pack food (same body as POST, JSON; the photo stays). Recipes count the new values from now on; batches keep theirs.',
+      handler: async ({ params, body, user }, _req, res) => res.json({ food: await updateLabelFood(params.id, user.id, body) }),
+    }),
+    defineRoute({
       method: 'delete', path: '/foods/:id', access: access.signedIn, params: idParamSchema, status: 204,
-      summary: 'Delete your label food (409 while a recipe uses it).',
+      summary: 'Delete your pack food (409 while your recipes use it; `fieldErrors.recipes` lists their titles).',
       handler: async ({ params, user }, _req, res) => {
         await deleteLabelFood(params.id, user.id, deps.storage);
         res.status(204).end();

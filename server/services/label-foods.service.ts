@@ -8,7 +8,7 @@ import { completeEnergy, deriveCarbs, roundTo } from '../importers/food-rows';
 import { isReasonableSize, readImageHeader, type PhotoProcessor } from '../lib/photo-worker';
 import { newStorageKey, type FileStorage } from '../lib/storage';
 import { logger } from '../logger';
-import { FoodModel, ProfileAccessModel } from '../models';
+import { FoodModel, ProfileAccessModel, RecipeIngredientModel, RecipeModel } from '../models';
 import { getFood } from './foods.service';
 
 export const LABEL_ATTRIBUTION = 'Typed from a package label by a Carbwright member; not checked by anyone else.';
@@ -63,50 +63,60 @@ export function labelNutrients(v: CreateLabelFoodValues) {
   return { nutrients, derived, carbMeasured: measured as 'available' | 'total' };
 }
 
-/** Adds a food from a package label, private to the user (or shared with a profile's care team), with its re-encoded photo. */
-export async function createLabelFood(userId: number, input: CreateLabelFoodValues, photo?: LabelPhoto): Promise<Food> {
-  if (input.sharedProfileId != null) {
-    const access = await ProfileAccessModel.findOne({ where: { userId, profileId: input.sharedProfileId } });
-    if (!access || access.role === 'clinician') {
-      throw AppError.validation({ sharedProfileId: ['You can only share with a profile you own or care for.'] });
-    }
+async function checkShare(userId: number, sharedProfileId: number | null): Promise<void> {
+  if (sharedProfileId == null) return;
+  const access = await ProfileAccessModel.findOne({ where: { userId, profileId: sharedProfileId } });
+  if (!access || access.role === 'clinician') {
+    throw AppError.validation({ sharedProfileId: ['You can only share with a profile you own or care for.'] });
   }
-  const photoPath = photo ? await storeLabelPhoto(photo) : null;
+}
+
+/** The stored columns of a pack food from its label values (create and edit use the same rule). */
+function labelFoodColumns(input: CreateLabelFoodValues) {
   const { nutrients, derived, carbMeasured } = labelNutrients(input);
   const servingNote = input.basis === 'perServing' ? ` per ${input.servingGrams} g serving, converted to per 100 g` : ' per 100 g';
+  return {
+    name: input.brand ? `${input.name} (${input.brand})` : input.name,
+    altNames: input.brand ? [input.brand] : [],
+    ...nutrients,
+    carbMeasured,
+    carbNote:
+      input.convention === 'eu'
+        ? `EU/UK label: carbohydrate printed${servingNote} is available carbohydrate (fibre not included).`
+        : `US label: total carbohydrate printed${servingNote} includes fibre; available = total − fibre.`,
+    derived,
+    sharedProfileId: input.sharedProfileId,
+    labelConvention: input.convention,
+    extra: {
+      ...(input.brand ? { brand: input.brand } : {}),
+      printed: {
+        basis: input.basis,
+        servingGrams: input.servingGrams,
+        carbohydrate: input.carbohydrate,
+        fibre: input.fibre,
+        sugars: input.sugars,
+        protein: input.protein,
+        fat: input.fat,
+        energyKcal: input.energyKcal,
+      },
+    },
+  };
+}
+
+/** Adds a food from a package label, private to the user (or shared with a profile's care team), with its re-encoded photo. */
+export async function createLabelFood(userId: number, input: CreateLabelFoodValues, photo?: LabelPhoto): Promise<Food> {
+  await checkShare(userId, input.sharedProfileId);
+  const photoPath = photo ? await storeLabelPhoto(photo) : null;
   try {
     const food = await FoodModel.create({
       source: 'label',
       sourceCode: randomUUID(),
-      name: input.brand ? `${input.name} (${input.brand})` : input.name,
       foodGroup: null,
-      altNames: input.brand ? [input.brand] : [],
-      ...nutrients,
-      carbMeasured,
-      carbNote:
-        input.convention === 'eu'
-          ? `EU/UK label: carbohydrate printed${servingNote} is available carbohydrate (fibre not included).`
-          : `US label: total carbohydrate printed${servingNote} includes fibre; available = total − fibre.`,
-      derived,
+      ...labelFoodColumns(input),
       attribution: LABEL_ATTRIBUTION,
       licence: LABEL_LICENCE,
       ownerUserId: userId,
-      sharedProfileId: input.sharedProfileId,
-      labelConvention: input.convention,
       photoPath,
-      extra: {
-        ...(input.brand ? { brand: input.brand } : {}),
-        printed: {
-          basis: input.basis,
-          servingGrams: input.servingGrams,
-          carbohydrate: input.carbohydrate,
-          fibre: input.fibre,
-          sugars: input.sugars,
-          protein: input.protein,
-          fat: input.fat,
-          energyKcal: input.energyKcal,
-        },
-      },
     });
     return getFood(food.id, userId);
   } catch (err) {
@@ -115,14 +125,39 @@ export async function createLabelFood(userId: number, input: CreateLabelFoodValu
   }
 }
 
-/** Deletes a label food the user owns (404 otherwise) with its photo; 409 while a recipe still uses it. */
+/**
+ * Replaces the values of a pack food the user owns (404 otherwise). Recipes read food rows when they are shown, so they
+ * count the new values from now on; batches keep the values they were cooked with (their ingredients are snapshots).
+ */
+export async function updateLabelFood(id: number, userId: number, input: CreateLabelFoodValues): Promise<Food> {
+  const food = await FoodModel.findOne({ where: { id, source: 'label', ownerUserId: userId } });
+  if (!food) throw AppError.notFound('food');
+  await checkShare(userId, input.sharedProfileId);
+  await food.update(labelFoodColumns(input));
+  return getFood(food.id, userId);
+}
+
+/**
+ * Deletes a pack food the user owns (404 otherwise) with its photo. Refused (409) while the user's own recipes use it,
+ * naming them in the message and in `fieldErrors.recipes`; any other recipe still holding it also refuses (409).
+ */
 export async function deleteLabelFood(id: number, userId: number, storage: FileStorage): Promise<void> {
   const food = await FoodModel.findOne({ where: { id, source: 'label', ownerUserId: userId } });
   if (!food) throw AppError.notFound('food');
+  const own = await RecipeModel.findAll({
+    where: { ownerUserId: userId },
+    attributes: ['title'],
+    include: [{ model: RecipeIngredientModel, as: 'ingredients', where: { foodId: id }, attributes: [], required: true }],
+    order: [['title', 'ASC']],
+  });
+  if (own.length) {
+    const titles = [...new Set(own.map((r) => r.title))];
+    throw AppError.conflict(`This pack food is used in your recipes: ${titles.join(', ')}. Remove it there first.`, { recipes: titles });
+  }
   try {
     await food.destroy();
   } catch (err) {
-    if (err instanceof ForeignKeyConstraintError) throw AppError.conflict('This food is used in a recipe; remove it there first.');
+    if (err instanceof ForeignKeyConstraintError) throw AppError.conflict('This pack food is used in a recipe; remove it there first.');
     throw err;
   }
   if (food.photoPath) await storage.remove(food.photoPath).catch((err: unknown) => logger.warn({ err, key: food.photoPath }, 'could not remove a label photo'));

@@ -6,6 +6,7 @@ import { computeBatch, netGrams, weighedPortionCarb } from '../../shared/compute
 import { emptyNutrients } from '../../shared/compute/nutrients';
 import { computeRecipe } from '../../shared/compute/recipe';
 import { PHONE, startBrowserRig, type BrowserRig } from '../helpers/browser';
+import { saveBatchAndOpenLabels, signUpInBrowser, weighContainers, weighEachIngredient, weighPot } from '../helpers/kitchen-flow';
 
 let rig: BrowserRig;
 beforeAll(async () => {
@@ -57,12 +58,7 @@ const jarCarb = (net: number) => (ACTUAL_TOTAL / COOKED) * net;
 const grams = (g: number) => `${Math.round(g)} g`;
 
 async function signUp(page: Page) {
-  await page.goto(`${rig.baseUrl}/sign-up`);
-  await page.getByLabel('Your name').fill('Meera');
-  await page.getByLabel('Email').fill('meera-morning@example.test');
-  await page.getByLabel('Password').fill('a long kitchen passphrase');
-  await page.getByRole('button', { name: 'Create account' }).click();
-  await page.waitForURL(`${rig.baseUrl}/`);
+  await signUpInBrowser(page, rig.baseUrl, { name: 'Meera', email: 'meera-morning@example.test' });
   await page.getByText('Good to see you, Meera').waitFor();
 }
 
@@ -135,47 +131,21 @@ describe('a morning in the kitchen, from food search to label sheet', () => {
 
     await page.getByRole('button', { name: 'Cook a batch' }).click();
     await page.waitForURL(/\/kitchen\/cook\/\d+$/);
-    for (const [i, f] of INGREDIENTS.entries()) {
-      await page.getByText(`Ingredient ${i + 1} of ${INGREDIENTS.length}`).waitFor();
-      await page.getByLabel('Scale reading').fill(String(f.actual));
-      const diff = f.actual - f.planned;
-      await page.getByText(`${diff > 0 ? '+' : '−'}${Math.abs(diff)} g`).first().waitFor();
+    await weighEachIngredient(page, INGREDIENTS, async (i) => {
       if (i === 0) await rig.shot(page, 'weighing-first');
-      if (i === INGREDIENTS.length - 1) {
-        await rig.shot(page, 'weighing-last');
-        await page.getByRole('button', { name: 'All weighed: weigh the pot' }).click();
-      } else await page.getByRole('button', { name: 'Next ingredient' }).click();
-    }
-
-    await page.getByLabel('Empty pot (tare)').fill(String(POT_TARE));
-    await page.getByLabel('Pot with the food (gross)').fill(String(POT_GROSS));
-    const numbers = page.getByLabel('Batch numbers');
-    await numbers.getByText(grams(COOKED), { exact: true }).waitFor();
-    await numbers.getByText(grams((ACTUAL_TOTAL / COOKED) * 100), { exact: true }).waitFor();
-    await numbers.getByText(grams(ACTUAL_TOTAL), { exact: true }).waitFor();
+      if (i === INGREDIENTS.length - 1) await rig.shot(page, 'weighing-last');
+    });
+    await weighPot(page, { tare: POT_TARE, gross: POT_GROSS }, [grams(COOKED), grams((ACTUAL_TOTAL / COOKED) * 100), grams(ACTUAL_TOTAL)]);
     await rig.shot(page, 'pot');
     await page.getByRole('button', { name: 'Split into portions' }).click();
 
-    for (const [i, [tare, gross]] of JARS.entries()) {
-      if (i > 0) await page.getByRole('button', { name: 'Add a container' }).click();
-      await page.getByLabel(`Empty container ${i + 1} (tare)`).fill(String(tare));
-      await page.getByLabel(`Full container ${i + 1} (gross)`).fill(String(gross));
-      await page.getByText(`Net ${gross - tare} g · ${grams(jarCarb(gross - tare))}`).first().waitFor();
-    }
+    await weighContainers(page, JARS, (net) => grams(jarCarb(net)));
     await page.getByText(`Left to split: 0 g of ${COOKED} g`).waitFor();
     await rig.shot(page, 'split');
     await page.getByRole('button', { name: 'Storage and use-by' }).click();
     await page.getByText(/Default \d{4}-\d{2}-\d{2} — /).waitFor();
     await rig.shot(page, 'storage');
-    await page.getByRole('button', { name: 'Save batch and portions' }).click();
-
-    await page.waitForURL(/\/kitchen\/batches\/\d+$/);
-    await page.getByRole('heading', { name: 'Portions' }).waitFor();
-    await rig.shot(page, 'batch');
-    await page.getByRole('button', { name: 'Print labels' }).first().click();
-    await page.waitForURL(/\/batches\/\d+\/labels$/);
-    const labels = page.getByRole('listitem').filter({ hasText: 'Rice and lentil pot' });
-    await labels.first().waitFor();
+    const labels = await saveBatchAndOpenLabels(page, 'Rice and lentil pot', () => rig.shot(page, 'batch'));
     expect(await labels.count()).toBe(JARS.length);
     const firstJar = labels.filter({ hasText: 'Net 400 g ·' });
     expect(await firstJar.count()).toBe(1);

@@ -67,6 +67,16 @@ describe('food table in the browser', () => {
     await page.getByLabel('60 g per 100 g').waitFor();
     await page.getByText(/EU\/UK label: carbohydrate printed per 30 g serving/).waitFor();
     await rig.shot(page, 'phone-label-food');
+
+    // The owner edits it: 45 g per 100 g as printed (EU label) → 45 g per 100 g available; then deletes it.
+    await page.getByRole('button', { name: 'Edit pack food' }).click();
+    await page.getByLabel('Carbohydrate', { exact: true }).fill('45');
+    await rig.shot(page, 'phone-pack-food-edit');
+    await page.getByRole('button', { name: 'Save pack food' }).click();
+    await page.getByLabel('45 g per 100 g').waitFor();
+    await page.getByRole('button', { name: 'Delete pack food' }).click();
+    await page.getByRole('button', { name: 'Yes, delete it' }).click();
+    await page.waitForURL(/\/foods$/);
   });
 
   it('shows the chosen food beside the list on a wide screen', async () => {
