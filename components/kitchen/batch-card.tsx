@@ -6,7 +6,8 @@ import { Button } from '../ui/button';
 import { Callout } from '../ui/callout';
 import { Card } from '../ui/card';
 import { Text } from '../ui/text';
-import { carbText, gramsText, shortDate, shelfStatus } from './kitchen-format';
+import { formatCarb } from '../../shared/compute/units';
+import { gramsText, shortDate, shelfStatus } from './kitchen-format';
 
 /** One batch on the inventory shelf: where it is, how long it keeps, what is left. */
 export function BatchCard({ batch, today }: { batch: BatchSummary; today: string }) {
@@ -42,7 +43,7 @@ export function BatchCard({ batch, today }: { batch: BatchSummary; today: string
         <View style={styles.portions}>
           {left.map((p) => (
             <Text key={p.code} style={styles.portion}>
-              {formatPortionCode(p.code)} · {gramsText(p.netGrams)} · {carbText(p.carb.grams, batch.unit)}
+              {formatPortionCode(p.code)} · {gramsText(p.netGrams)} · {formatCarb(p.carb.grams, batch.unit, { withGrams: true })}
             </Text>
           ))}
         </View>

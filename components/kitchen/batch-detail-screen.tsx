@@ -8,8 +8,10 @@ import { Card } from '../ui/card';
 import { Screen } from '../ui/screen';
 import { ErrorState, LoadingState } from '../ui/states';
 import { Text } from '../ui/text';
-import { Figure } from './cooked-weight-step';
-import { carbText, gramsText, localToday, shortDate, shelfStatus } from './kitchen-format';
+import { formatCarb } from '../../shared/compute/units';
+import { CarbUnknownCallout, Figure } from './cooked-weight-step';
+import { carbUnderstated } from '../../shared/compute/batch';
+import { gramsText, localToday, shortDate, shelfStatus } from './kitchen-format';
 import { useBatch, useUpdateBatch } from '../api/batches';
 import { useSetPortionStatus } from '../api/portions';
 
@@ -34,13 +36,14 @@ export function BatchDetailScreen({ id }: { id: number }) {
       backHref="/kitchen"
       actions={<Button label="Print labels" onPress={() => router.push(`/batches/${b.id}/labels`)} />}
     >
+      {carbUnderstated(b.totals, b.incomplete, b.basis) ? <CarbUnknownCallout basis={b.basis} /> : null}
       <Card>
         <View style={styles.numbers}>
           <Figure label="Cooked weight" value={gramsText(b.cookedGrams)} />
           <Figure label="Raw ingredients" value={gramsText(b.rawGrams)} />
           <Figure label="Yield (cooked ÷ raw)" value={b.yieldFactor.toFixed(2)} />
-          <Figure label="Carbohydrate per 100 g" value={carbText(b.carbPer100g.grams, b.unit)} />
-          <Figure label="Carbohydrate in the batch" value={carbText(b.carbTotal.grams, b.unit)} />
+          <Figure label="Carbohydrate per 100 g" value={formatCarb(b.carbPer100g.grams, b.unit, { withGrams: true })} />
+          <Figure label="Carbohydrate in the batch" value={formatCarb(b.carbTotal.grams, b.unit, { withGrams: true })} />
         </View>
         <Text color="textMuted">
           Pot {gramsText(b.cookedGrossGrams)} − {b.potName ? `${b.potName} ` : 'empty pot '}
@@ -61,11 +64,6 @@ export function BatchDetailScreen({ id }: { id: number }) {
           />
         ) : null}
       </Card>
-      {b.incomplete.some((k) => k === 'carbAvailable' || k === 'carbTotal') ? (
-        <Callout tone="caution" title="Some values unknown">
-          An ingredient had no carbohydrate value, so these numbers may be too low.
-        </Callout>
-      ) : null}
 
       <Text variant="heading">Portions</Text>
       {mark.isError ? <Callout tone="danger">{mark.error.message}</Callout> : null}
@@ -76,7 +74,7 @@ export function BatchDetailScreen({ id }: { id: number }) {
               {formatPortionCode(p.code)}
             </Text>
             <Text variant="lead" style={styles.grow}>
-              {gramsText(p.netGrams)} · {carbText(p.carb.grams, b.unit)}
+              {gramsText(p.netGrams)} · {formatCarb(p.carb.grams, b.unit, { withGrams: true })}
             </Text>
             <Text color="textMuted">{STATUS_WORD[p.status]}</Text>
           </View>
@@ -107,7 +105,7 @@ export function BatchDetailScreen({ id }: { id: number }) {
             <Text color="textMuted">
               {l.omitted
                 ? 'left out'
-                : `${gramsText(l.actualGrams ?? 0)} (planned ${gramsText(l.plannedGrams)}) · ${carbText(l.carb.grams, b.unit)}`}
+                : `${gramsText(l.actualGrams ?? 0)} (planned ${gramsText(l.plannedGrams)}) · ${formatCarb(l.carb.grams, b.unit, { withGrams: true })}`}
             </Text>
           </View>
         ))}

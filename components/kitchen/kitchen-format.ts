@@ -1,17 +1,9 @@
 import { daysUntil } from '../../shared/compute/use-by';
-import { formatCarb } from '../../shared/compute/units';
-import type { CarbUnit } from '../../shared/schemas/units';
 
 /** Today's local calendar date as YYYY-MM-DD. */
 export function localToday(now: Date = new Date()): string {
   const pad = (n: number) => String(n).padStart(2, '0');
   return `${now.getFullYear()}-${pad(now.getMonth() + 1)}-${pad(now.getDate())}`;
-}
-
-/** Carbohydrate for display in the profile unit (grams shown alongside for counting units), or "unknown". */
-export function carbText(grams: number | null, unit: CarbUnit): string {
-  if (grams == null) return 'unknown';
-  return unit === 'g' ? formatCarb(grams, 'g') : `${formatCarb(grams, unit)} (${formatCarb(grams, 'g')})`;
 }
 
 /** Whole grams for weights. */

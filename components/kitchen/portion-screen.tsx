@@ -7,8 +7,9 @@ import { Card } from '../ui/card';
 import { Screen } from '../ui/screen';
 import { ErrorState, LoadingState } from '../ui/states';
 import { Text } from '../ui/text';
+import { formatCarb } from '../../shared/compute/units';
 import { Figure } from './cooked-weight-step';
-import { carbText, gramsText, localToday, shelfStatus, shortDate } from './kitchen-format';
+import { gramsText, localToday, shelfStatus, shortDate } from './kitchen-format';
 import { usePortion, useSetPortionStatus } from '../api/portions';
 import { doseCheckHref } from '../dose/dose-href';
 
@@ -29,10 +30,10 @@ export function PortionScreen({ code }: { code: string }) {
             <Text variant="label" color="textMuted">
               Carbohydrate in this portion
             </Text>
-            <Text variant="number">{carbText(p.carb.grams, p.unit)}</Text>
+            <Text variant="number">{formatCarb(p.carb.grams, p.unit, { withGrams: true })}</Text>
           </View>
           <Figure label="Net weight" value={gramsText(p.netGrams)} />
-          <Figure label="Per 100 g" value={carbText(p.carbPer100g.grams, p.unit)} />
+          <Figure label="Per 100 g" value={formatCarb(p.carbPer100g.grams, p.unit, { withGrams: true })} />
         </View>
         <Text color="textMuted">
           Counted as {p.basis === 'available' ? 'available carbohydrate (fibre not counted)' : 'total carbohydrate (fibre counted)'}.

@@ -32,7 +32,7 @@ export function availablePortions(batches: BatchSummary[]): Row[] {
 function PortionRow({ row, unit, today }: { row: Row; unit: CarbUnit; today: string }) {
   const t = useTheme();
   const shelf = shelfStatus(row.useBy, today);
-  const carb = row.carbGrams == null ? 'carbohydrate unknown' : formatCarb(row.carbGrams, unit);
+  const carb = formatCarb(row.carbGrams, unit);
   return (
     <View style={[styles.row, { borderColor: t.colors.border }]} role="listitem" aria-label={`${row.title}, portion ${formatPortionCode(row.code)}`}>
       <View style={styles.rowText}>

@@ -9,8 +9,6 @@ export function portionUrl(origin: string, code: string): string {
   return `${origin.replace(/\/+$/, '')}/portions/${code}`;
 }
 
-const unknown = 'unknown';
-
 // A URL's QR code never changes, and drawing one costs a few ms of CPU: keep the most recent ones.
 const QR_CACHE_SIZE = 2000;
 const qrCache = new Map<string, string>();
@@ -49,9 +47,9 @@ export async function buildLabelSheet(profileId: number, batchId: number, origin
         carbPer100g: batch.carbPer100g,
         text: {
           net: `${Math.round(p.netGrams)} g`,
-          carb: p.carb.grams == null ? unknown : formatCarb(p.carb.grams, batch.unit),
-          carbGrams: p.carb.grams == null ? unknown : formatCarb(p.carb.grams, 'g'),
-          carbPer100g: batch.carbPer100g.grams == null ? unknown : formatCarb(batch.carbPer100g.grams, 'g'),
+          carb: formatCarb(p.carb.grams, batch.unit),
+          carbGrams: formatCarb(p.carb.grams, 'g'),
+          carbPer100g: formatCarb(batch.carbPer100g.grams, 'g'),
         },
         status: p.status,
       };
