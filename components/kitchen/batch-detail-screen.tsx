@@ -53,7 +53,7 @@ export function BatchDetailScreen({ id }: { id: number }) {
           {status.tone === 'ok' ? '✓ ' : '! '}Use by {shortDate(b.useBy)}: {status.text}
         </Text>
         <Text variant="caption" color="textMuted">
-          Use-by source: {b.useBySource}. {b.useByNote}
+          {b.useByNote}
         </Text>
         {canEdit ? (
           <Button

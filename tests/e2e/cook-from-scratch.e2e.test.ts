@@ -165,7 +165,7 @@ describe('a morning in the kitchen, from food search to label sheet', () => {
     await page.getByText(`Left to split: 0 g of ${COOKED} g`).waitFor();
     await rig.shot(page, 'split');
     await page.getByRole('button', { name: 'Storage and use-by' }).click();
-    await page.getByText(/Default \d{4}-\d{2}-\d{2} — /).waitFor();
+    await page.getByText(/Default \d{4}-\d{2}-\d{2}\. /).waitFor();
     await rig.shot(page, 'storage');
     await page.getByRole('button', { name: 'Save batch and portions' }).click();
 

@@ -92,7 +92,7 @@ describe('the kitchen in the browser', () => {
     await page.getByText('Net 226 g · 39 g').first().waitFor();
     await rig.shot(page, 'phone-split');
     await page.getByRole('button', { name: 'Storage and use-by' }).click();
-    await page.getByText(/Default \d{4}-\d{2}-\d{2} — /).waitFor();
+    await page.getByText(/Default \d{4}-\d{2}-\d{2}\. /).waitFor();
     await rig.shot(page, 'phone-storage');
     await page.getByRole('button', { name: 'Save batch and portions' }).click();
 
