@@ -7,11 +7,11 @@ import { Callout } from '../ui/callout';
 import { Card } from '../ui/card';
 import { Text } from '../ui/text';
 import { formatCarb } from '../../shared/compute/units';
-import { gramsText, shortDate, shelfStatus } from './kitchen-format';
+import { dateWord, gramsText, shortDate, shelfStatus } from './kitchen-format';
 
 /** One batch on the inventory shelf: where it is, how long it keeps, what is left. */
 export function BatchCard({ batch, today }: { batch: BatchSummary; today: string }) {
-  const status = shelfStatus(batch.useBy, today);
+  const status = shelfStatus(batch.useBy, today, batch.storage);
   const left = batch.portions.filter((p) => p.status === 'available');
   return (
     <Card aria-label={`Batch ${batch.recipeTitle}`}>
@@ -24,7 +24,7 @@ export function BatchCard({ batch, today }: { batch: BatchSummary; today: string
         </Text>
       </View>
       <Text color="textMuted">
-        Cooked {shortDate(batch.cookedOn)} · use by {shortDate(batch.useBy)} · {batch.counts.available} left, {batch.counts.eaten} eaten,{' '}
+        Cooked {shortDate(batch.cookedOn)} · {dateWord(batch.storage)} {shortDate(batch.useBy)} · {batch.counts.available} left, {batch.counts.eaten} eaten,{' '}
         {batch.counts.discarded} thrown away
       </Text>
       {left.length > 0 ? (

@@ -11,11 +11,11 @@ import { Text } from '../ui/text';
 import { formatCarb } from '../../shared/compute/units';
 import { CarbUnknownCallout, Figure } from './cooked-weight-step';
 import { carbUnderstated } from '../../shared/compute/batch';
-import { gramsText, localToday, shortDate, shelfStatus } from './kitchen-format';
+import { dateWord, gramsText, localToday, shortDate, shelfStatus } from './kitchen-format';
 import { useBatch, useUpdateBatch } from '../api/batches';
 import { useSetPortionStatus } from '../api/portions';
 
-const STATUS_WORD = { available: 'available', eaten: 'eaten', discarded: 'thrown away' } as const;
+const STATUS_WORD = { available: 'not eaten yet', eaten: 'eaten', discarded: 'thrown away' } as const;
 
 /** A cooked batch: the weighing record, the batch arithmetic, its portions and their labels. */
 export function BatchDetailScreen({ id }: { id: number }) {
@@ -26,7 +26,8 @@ export function BatchDetailScreen({ id }: { id: number }) {
   if (batch.isPending || !profile) return <LoadingState />;
   if (batch.isError) return <ErrorState error={batch.error} onRetry={batch.refetch} />;
   const b = batch.data;
-  const status = shelfStatus(b.useBy, localToday());
+  const status = shelfStatus(b.useBy, localToday(), b.storage);
+  const when = dateWord(b.storage);
   const canEdit = profile.access !== 'clinician';
 
   return (
@@ -50,7 +51,8 @@ export function BatchDetailScreen({ id }: { id: number }) {
           {gramsText(b.potTareGrams)} = {gramsText(b.cookedGrams)}. Carbohydrate counted as {b.basis === 'available' ? 'available (fibre not counted)' : 'total (fibre counted)'}.
         </Text>
         <Text variant="label" color={status.tone === 'ok' ? 'inRange' : status.tone}>
-          {status.tone === 'ok' ? '✓ ' : '! '}Use by {shortDate(b.useBy)}: {status.text}
+          {status.tone === 'ok' ? '✓ ' : '! '}
+          {when[0].toUpperCase() + when.slice(1)} {shortDate(b.useBy)}: {status.text}
         </Text>
         <Text variant="caption" color="textMuted">
           {b.useByNote}
@@ -62,6 +64,12 @@ export function BatchDetailScreen({ id }: { id: number }) {
             loading={update.isPending}
             onPress={() => update.mutate({ storage: b.storage === 'fridge' ? 'freezer' : 'fridge' })}
           />
+        ) : null}
+        {update.isSuccess ? (
+          <Callout tone="caution" title="Printed labels now show an old date">
+            {`Moved to the ${b.storage}: it is now ${when} ${shortDate(b.useBy)}. Labels printed before show the old date.`}
+            <Button variant="secondary" label="Reprint labels" onPress={() => router.push(`/batches/${b.id}/labels`)} />
+          </Callout>
         ) : null}
       </Card>
 
@@ -86,6 +94,8 @@ export function BatchDetailScreen({ id }: { id: number }) {
                 <Button variant="secondary" label="Eaten" onPress={() => mark.mutate({ code: p.code, status: 'eaten' })} />
                 <Button variant="danger" label="Thrown away" onPress={() => mark.mutate({ code: p.code, status: 'discarded' })} />
               </>
+            ) : canEdit ? (
+              <Button variant="secondary" label="Undo: not eaten yet" onPress={() => mark.mutate({ code: p.code, status: 'available' })} />
             ) : null}
           </View>
         </Card>
