@@ -68,7 +68,7 @@ export function CookedWeightStep({ form, pots, batch, basis, unit, onBack, onDon
       ) : null}
       <View style={styles.row}>
         <Button variant="quiet" label="‹ Back to weighing" onPress={onBack} />
-        <Button size="lg" label="Split into portions" disabled={!batch} onPress={onDone} />
+        <Button size="lg" label="Portion out" disabled={!batch} onPress={onDone} />
       </View>
     </Card>
   );

@@ -42,8 +42,8 @@ export function SplitStep({ form, containers, batch, basis, unit, onBack, onDone
   const portionsError = errors.portions?.message ?? errors.portions?.root?.message;
 
   return (
-    <Card aria-label="Split into portions">
-      <Text variant="heading">Split into portions</Text>
+    <Card aria-label="Portion out">
+      <Text variant="heading">Portion out the batch</Text>
       <FormChoiceGroup
         control={control}
         name="splitMode"
@@ -103,8 +103,8 @@ export function SplitStep({ form, containers, batch, basis, unit, onBack, onDone
                 {`These containers hold ${gramsText(-preview.left)} more than the ${gramsText(batch.cookedGrams)} in the pot. Check the weights and tares.`}
               </Callout>
             ) : (
-              <Text variant="lead" aria-label="Left to split">
-                Left to split: {gramsText(Math.max(0, preview.left))} of {gramsText(batch.cookedGrams)}
+              <Text variant="lead" aria-label="Left to portion out">
+                Left to portion out: {gramsText(Math.max(0, preview.left))} of {gramsText(batch.cookedGrams)}
               </Text>
             )
           ) : null}

@@ -58,7 +58,7 @@ export function StorageStep({ form, containsRice, formError, saving, onBack, onS
       </Callout>
       {formError ? <Callout tone="danger">{formError}</Callout> : null}
       <View style={styles.row}>
-        <Button variant="quiet" label="‹ Back to the split" onPress={onBack} />
+        <Button variant="quiet" label="‹ Back to portioning out" onPress={onBack} />
         <Button size="lg" label="Save batch and portions" loading={saving} onPress={onSave} />
       </View>
     </Card>

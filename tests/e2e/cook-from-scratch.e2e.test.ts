@@ -154,7 +154,7 @@ describe('a morning in the kitchen, from food search to label sheet', () => {
     await numbers.getByText(grams((ACTUAL_TOTAL / COOKED) * 100), { exact: true }).waitFor();
     await numbers.getByText(grams(ACTUAL_TOTAL), { exact: true }).waitFor();
     await rig.shot(page, 'pot');
-    await page.getByRole('button', { name: 'Split into portions' }).click();
+    await page.getByRole('button', { name: 'Portion out', exact: true }).click();
 
     for (const [i, [tare, gross]] of JARS.entries()) {
       if (i > 0) await page.getByRole('button', { name: 'Add a container' }).click();
@@ -162,7 +162,7 @@ describe('a morning in the kitchen, from food search to label sheet', () => {
       await page.getByLabel(`Full container ${i + 1} (gross)`).fill(String(gross));
       await page.getByText(`Net ${gross - tare} g · ${grams(jarCarb(gross - tare))}`).first().waitFor();
     }
-    await page.getByText(`Left to split: 0 g of ${COOKED} g`).waitFor();
+    await page.getByText(`Left to portion out: 0 g of ${COOKED} g`).waitFor();
     await rig.shot(page, 'split');
     await page.getByRole('button', { name: 'Storage and use-by' }).click();
     await page.getByText(/Default \d{4}-\d{2}-\d{2}\. /).waitFor();

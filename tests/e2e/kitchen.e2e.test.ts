@@ -81,14 +81,14 @@ describe('the kitchen in the browser', () => {
     await page.getByText('1132 g').first().waitFor();
     await page.getByText('0.98').waitFor();
     await rig.shot(page, 'phone-pot');
-    await page.getByRole('button', { name: 'Split into portions' }).click();
+    await page.getByRole('button', { name: 'Portion out', exact: true }).click();
 
     for (const [i, [tare, gross]] of JARS.entries()) {
       if (i > 0) await page.getByRole('button', { name: 'Add a container' }).click();
       await page.getByLabel(`Empty container ${i + 1} (tare)`).fill(tare);
       await page.getByLabel(`Full container ${i + 1} (gross)`).fill(gross);
     }
-    await page.getByText('Left to split: 0 g of 1132 g').waitFor();
+    await page.getByText('Left to portion out: 0 g of 1132 g').waitFor();
     await page.getByText('Net 226 g · 39 g').first().waitFor();
     await rig.shot(page, 'phone-split');
     await page.getByRole('button', { name: 'Storage and use-by' }).click();
