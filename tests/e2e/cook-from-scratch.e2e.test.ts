@@ -179,7 +179,7 @@ describe('a morning in the kitchen, from food search to label sheet', () => {
     expect(await labels.count()).toBe(JARS.length);
     const firstJar = labels.filter({ hasText: 'Net 400 g ·' });
     expect(await firstJar.count()).toBe(1);
-    await firstJar.getByText(`${grams(jarCarb(400))} carbohydrate`, { exact: true }).waitFor();
+    await firstJar.getByText(`${grams(jarCarb(400))} carbohydrate (available)`, { exact: true }).waitFor();
     await rig.shot(page, 'labels');
 
     const code = (await firstJar.getAttribute('aria-label'))!.replace('Label ', '');

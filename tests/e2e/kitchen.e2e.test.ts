@@ -106,7 +106,7 @@ describe('the kitchen in the browser', () => {
     await labels.first().waitFor();
     expect(await labels.count()).toBe(5);
     expect(await page.getByRole('img', { name: /QR code for http/ }).count()).toBe(5);
-    await page.getByText('39 g carbohydrate').first().waitFor();
+    await page.getByText('39 g carbohydrate (available)', { exact: true }).first().waitFor();
     await rig.shot(page, 'phone-labels');
     await page.emulateMedia({ media: 'print' });
     await page.getByRole('heading', { name: 'Labels: Overnight oats' }).waitFor({ state: 'hidden' });
