@@ -1,5 +1,5 @@
 import { queryOptions, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
-import type { PortionDetail } from '../../shared/schemas/portion';
+import type { PortionDetail, PortionStatus } from '../../shared/schemas/portion';
 import { batchKeys } from './batches';
 import { apiFetch } from './client';
 
@@ -22,11 +22,11 @@ export function usePortionLookup() {
   return useMutation({ mutationFn: (code: string) => qc.fetchQuery(portionQueryOptions(code)) });
 }
 
-/** Marks a portion eaten or thrown away (the server lets this happen once). */
+/** Marks a portion eaten or thrown away (once), or back to not eaten yet (`available`, the undo). */
 export function useSetPortionStatus() {
   const qc = useQueryClient();
   return useMutation({
-    mutationFn: ({ code, status }: { code: string; status: 'eaten' | 'discarded' }) =>
+    mutationFn: ({ code, status }: { code: string; status: PortionStatus }) =>
       apiFetch<PortionDetail>(`/portions/${encodeURIComponent(code)}/status`, { method: 'POST', body: { status } }),
     onSuccess: (portion) => {
       qc.setQueryData(portionKeys.detail(portion.code), portion);

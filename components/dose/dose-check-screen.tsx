@@ -55,7 +55,7 @@ export function DoseCheckScreen(params: DoseCheckParams) {
           />
           <DoseExtraFields control={form.control} />
           {notWorkedOut ? <Callout tone="danger" title="Not worked out">{notWorkedOut}</Callout> : null}
-          <Button label="Work out a dose" size="lg" loading={suggest.isPending} onPress={() => void submit()} />
+          <Button label="Check a dose" size="lg" loading={suggest.isPending} onPress={() => void submit()} />
         </View>
         <View ref={resultRef} style={[styles.column, isWide && styles.columnWide]} aria-live="polite">
           {isWide ? <DoseCaution /> : null}

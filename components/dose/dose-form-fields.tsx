@@ -117,7 +117,7 @@ export function DoseExtraFields({ control }: { control: DoseControl }) {
       <FormChoiceGroup
         control={control}
         name="splitOn"
-        label="Split the dose (slow or high-fat meal)"
+        label="Two-part dose (slow or high-fat meal)"
         choices={[
           { value: false, label: 'No' },
           { value: true, label: 'Yes' },

@@ -60,7 +60,7 @@ export function useDoseCheck({ carbs, portion, label }: DoseCheckParams) {
     form.clearErrors('portionCode');
     lookup.mutate(code, {
       onSuccess: (p) => {
-        if (p.carb.grams == null) return form.setError('portionCode', { message: 'The carbohydrate of this portion is not known; type it in.' });
+        if (p.carb.grams == null) return form.setError('portionCode', { message: 'The carbohydrate of this portion is unknown; type it in.' });
         form.setValue('carbsGrams', String(Math.round(p.carb.grams * 10) / 10));
         setPicked({ code: p.code, label: p.profileId === profile?.id ? p.recipeTitle : `${p.recipeTitle} — from ${p.profileName}'s batch` });
       },

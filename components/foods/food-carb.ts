@@ -20,12 +20,12 @@ export function carbFor(food: Pick<FoodSummary, 'per100g'>, grams: number, basis
 export const FIBRE_NOT_MEASURED = 'total, fibre not measured';
 
 /**
- * "23.6 g" (or "2.4 CP"…), or "not known". In the available basis a food whose fibre was not measured shows its
- * total instead of "not known" (carbToShow); say so with `fibreNotMeasured` beside it.
+ * "23.6 g" (or "2.4 CP"…), or "unknown". In the available basis a food whose fibre was not measured shows its
+ * total instead of "unknown" (carbToShow); say so with `fibreNotMeasured` beside it.
  */
 export function carbText(food: Pick<FoodSummary, 'per100g'>, grams: number, basis: CarbBasis, unit: CarbUnit): string {
   const shown = carbToShow(food.per100g, basis);
-  return shown.grams == null ? 'not known' : formatCarb((shown.grams * grams) / 100, unit);
+  return formatCarb(shown.grams == null ? null : (shown.grams * grams) / 100, unit);
 }
 
 /** True when the carbohydrate shown in this basis is the total because fibre was not measured. */

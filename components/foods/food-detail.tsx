@@ -1,5 +1,6 @@
 import { Image, StyleSheet, View } from 'react-native';
 import { NUTRIENT_KEYS, type NutrientKey } from '../../shared/compute/nutrients';
+import { UNKNOWN } from '../../shared/compute/units';
 import { FOOD_SOURCE_LABELS, type Food } from '../../shared/schemas/food';
 import type { CarbBasis, CarbUnit } from '../../shared/schemas/units';
 import { useFoodPhoto } from '../api/foods';
@@ -21,7 +22,7 @@ const NUTRIENT_LABELS: Record<NutrientKey, string> = {
 };
 
 function valueText(key: NutrientKey, v: number | null): string {
-  if (v == null) return 'not known';
+  if (v == null) return UNKNOWN;
   if (key === 'energyKcal') return `${Math.round(v)} kcal`;
   if (key === 'energyKj') return `${Math.round(v)} kJ`;
   return `${(Math.round(v * 100) / 100).toString()} g`;
@@ -49,13 +50,13 @@ export function FoodDetail({ food, basis, unit }: { food: Food; basis: CarbBasis
       </Card>
       {fibreNotMeasured(food, basis) ? (
         <Callout tone="caution" title="Fibre not measured">
-          The table gives total carbohydrate (fibre included) but no fibre value, so the available carbohydrate is not known.
+          The table gives total carbohydrate (fibre included) but no fibre value, so the available carbohydrate is unknown.
           The numbers here are the total, which may count some fibre as carbohydrate. You can still use the food knowingly; a
           recipe using it will say its available total is incomplete.
         </Callout>
       ) : null}
-      {carbText(food, 100, basis, unit) === 'not known' ? (
-        <Callout tone="caution" title="Carbohydrate not known">
+      {carbText(food, 100, basis, unit) === UNKNOWN ? (
+        <Callout tone="caution" title="Carbohydrate unknown">
           The source does not give enough to count this food&apos;s carbohydrate in your basis. A recipe using it will say its
           total is incomplete.
         </Callout>

@@ -6,11 +6,12 @@ import { Button } from '../ui/button';
 import { Callout } from '../ui/callout';
 import { Card } from '../ui/card';
 import { Text } from '../ui/text';
-import { carbText, gramsText, shortDate, shelfStatus } from './kitchen-format';
+import { formatCarb } from '../../shared/compute/units';
+import { dateWord, gramsText, shortDate, shelfStatus } from './kitchen-format';
 
 /** One batch on the inventory shelf: where it is, how long it keeps, what is left. */
 export function BatchCard({ batch, today }: { batch: BatchSummary; today: string }) {
-  const status = shelfStatus(batch.useBy, today);
+  const status = shelfStatus(batch.useBy, today, batch.storage);
   const left = batch.portions.filter((p) => p.status === 'available');
   return (
     <Card aria-label={`Batch ${batch.recipeTitle}`}>
@@ -23,7 +24,7 @@ export function BatchCard({ batch, today }: { batch: BatchSummary; today: string
         </Text>
       </View>
       <Text color="textMuted">
-        Cooked {shortDate(batch.cookedOn)} · use by {shortDate(batch.useBy)} · {batch.counts.available} left, {batch.counts.eaten} eaten,{' '}
+        Cooked {shortDate(batch.cookedOn)} · {dateWord(batch.storage)} {shortDate(batch.useBy)} · {batch.counts.available} left, {batch.counts.eaten} eaten,{' '}
         {batch.counts.discarded} thrown away
       </Text>
       {left.length > 0 ? (
@@ -42,7 +43,7 @@ export function BatchCard({ batch, today }: { batch: BatchSummary; today: string
         <View style={styles.portions}>
           {left.map((p) => (
             <Text key={p.code} style={styles.portion}>
-              {formatPortionCode(p.code)} · {gramsText(p.netGrams)} · {carbText(p.carb.grams, batch.unit)}
+              {formatPortionCode(p.code)} · {gramsText(p.netGrams)} · {formatCarb(p.carb.grams, batch.unit, { withGrams: true })}
             </Text>
           ))}
         </View>

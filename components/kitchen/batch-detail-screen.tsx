@@ -8,12 +8,14 @@ import { Card } from '../ui/card';
 import { Screen } from '../ui/screen';
 import { ErrorState, LoadingState } from '../ui/states';
 import { Text } from '../ui/text';
-import { Figure } from './cooked-weight-step';
-import { carbText, gramsText, localToday, shortDate, shelfStatus } from './kitchen-format';
+import { formatCarb } from '../../shared/compute/units';
+import { CarbUnknownCallout, Figure } from './cooked-weight-step';
+import { carbUnderstated } from '../../shared/compute/batch';
+import { dateWord, gramsText, localToday, shortDate, shelfStatus } from './kitchen-format';
 import { useBatch, useUpdateBatch } from '../api/batches';
 import { useSetPortionStatus } from '../api/portions';
 
-const STATUS_WORD = { available: 'available', eaten: 'eaten', discarded: 'thrown away' } as const;
+const STATUS_WORD = { available: 'not eaten yet', eaten: 'eaten', discarded: 'thrown away' } as const;
 
 /** A cooked batch: the weighing record, the batch arithmetic, its portions and their labels. */
 export function BatchDetailScreen({ id }: { id: number }) {
@@ -24,7 +26,8 @@ export function BatchDetailScreen({ id }: { id: number }) {
   if (batch.isPending || !profile) return <LoadingState />;
   if (batch.isError) return <ErrorState error={batch.error} onRetry={batch.refetch} />;
   const b = batch.data;
-  const status = shelfStatus(b.useBy, localToday());
+  const status = shelfStatus(b.useBy, localToday(), b.storage);
+  const when = dateWord(b.storage);
   const canEdit = profile.access !== 'clinician';
 
   return (
@@ -34,23 +37,25 @@ export function BatchDetailScreen({ id }: { id: number }) {
       backHref="/kitchen"
       actions={<Button label="Print labels" onPress={() => router.push(`/batches/${b.id}/labels`)} />}
     >
+      {carbUnderstated(b.totals, b.incomplete, b.basis) ? <CarbUnknownCallout basis={b.basis} /> : null}
       <Card>
         <View style={styles.numbers}>
           <Figure label="Cooked weight" value={gramsText(b.cookedGrams)} />
           <Figure label="Raw ingredients" value={gramsText(b.rawGrams)} />
           <Figure label="Yield (cooked ÷ raw)" value={b.yieldFactor.toFixed(2)} />
-          <Figure label="Carbohydrate per 100 g" value={carbText(b.carbPer100g.grams, b.unit)} />
-          <Figure label="Carbohydrate in the batch" value={carbText(b.carbTotal.grams, b.unit)} />
+          <Figure label="Carbohydrate per 100 g" value={formatCarb(b.carbPer100g.grams, b.unit, { withGrams: true })} />
+          <Figure label="Carbohydrate in the batch" value={formatCarb(b.carbTotal.grams, b.unit, { withGrams: true })} />
         </View>
         <Text color="textMuted">
           Pot {gramsText(b.cookedGrossGrams)} − {b.potName ? `${b.potName} ` : 'empty pot '}
           {gramsText(b.potTareGrams)} = {gramsText(b.cookedGrams)}. Carbohydrate counted as {b.basis === 'available' ? 'available (fibre not counted)' : 'total (fibre counted)'}.
         </Text>
         <Text variant="label" color={status.tone === 'ok' ? 'inRange' : status.tone}>
-          {status.tone === 'ok' ? '✓ ' : '! '}Use by {shortDate(b.useBy)}: {status.text}
+          {status.tone === 'ok' ? '✓ ' : '! '}
+          {when[0].toUpperCase() + when.slice(1)} {shortDate(b.useBy)}: {status.text}
         </Text>
         <Text variant="caption" color="textMuted">
-          Use-by source: {b.useBySource}. {b.useByNote}
+          {b.useByNote}
         </Text>
         {canEdit ? (
           <Button
@@ -60,12 +65,13 @@ export function BatchDetailScreen({ id }: { id: number }) {
             onPress={() => update.mutate({ storage: b.storage === 'fridge' ? 'freezer' : 'fridge' })}
           />
         ) : null}
+        {update.isSuccess ? (
+          <Callout tone="caution" title="Printed labels now show an old date">
+            {`Moved to the ${b.storage}: it is now ${when} ${shortDate(b.useBy)}. Labels printed before show the old date.`}
+            <Button variant="secondary" label="Reprint labels" onPress={() => router.push(`/batches/${b.id}/labels`)} />
+          </Callout>
+        ) : null}
       </Card>
-      {b.incomplete.some((k) => k === 'carbAvailable' || k === 'carbTotal') ? (
-        <Callout tone="caution" title="Some values unknown">
-          An ingredient had no carbohydrate value, so these numbers may be too low.
-        </Callout>
-      ) : null}
 
       <Text variant="heading">Portions</Text>
       {mark.isError ? <Callout tone="danger">{mark.error.message}</Callout> : null}
@@ -76,7 +82,7 @@ export function BatchDetailScreen({ id }: { id: number }) {
               {formatPortionCode(p.code)}
             </Text>
             <Text variant="lead" style={styles.grow}>
-              {gramsText(p.netGrams)} · {carbText(p.carb.grams, b.unit)}
+              {gramsText(p.netGrams)} · {formatCarb(p.carb.grams, b.unit, { withGrams: true })}
             </Text>
             <Text color="textMuted">{STATUS_WORD[p.status]}</Text>
           </View>
@@ -88,6 +94,8 @@ export function BatchDetailScreen({ id }: { id: number }) {
                 <Button variant="secondary" label="Eaten" onPress={() => mark.mutate({ code: p.code, status: 'eaten' })} />
                 <Button variant="danger" label="Thrown away" onPress={() => mark.mutate({ code: p.code, status: 'discarded' })} />
               </>
+            ) : canEdit ? (
+              <Button variant="secondary" label="Undo: not eaten yet" onPress={() => mark.mutate({ code: p.code, status: 'available' })} />
             ) : null}
           </View>
         </Card>
@@ -107,7 +115,7 @@ export function BatchDetailScreen({ id }: { id: number }) {
             <Text color="textMuted">
               {l.omitted
                 ? 'left out'
-                : `${gramsText(l.actualGrams ?? 0)} (planned ${gramsText(l.plannedGrams)}) · ${carbText(l.carb.grams, b.unit)}`}
+                : `${gramsText(l.actualGrams ?? 0)} (planned ${gramsText(l.plannedGrams)}) · ${formatCarb(l.carb.grams, b.unit, { withGrams: true })}`}
             </Text>
           </View>
         ))}

@@ -59,7 +59,7 @@ export function ContainersPanel({ profileId }: { profileId: number }) {
         name="kind"
         label="Kind"
         choices={[
-          { value: 'container', label: 'Container or jar' },
+          { value: 'container', label: 'Container' },
           { value: 'pot', label: 'Cooking pot' },
         ]}
       />

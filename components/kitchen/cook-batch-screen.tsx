@@ -30,7 +30,7 @@ export type CookForm = ReturnType<typeof useForm<CookFormValues, unknown, Create
 const STEPS: { key: CookStep; label: string }[] = [
   { key: 'weigh', label: '1 Weigh' },
   { key: 'cooked', label: '2 Pot' },
-  { key: 'split', label: '3 Split' },
+  { key: 'split', label: '3 Portion out' },
   { key: 'store', label: '4 Store' },
 ];
 

@@ -1,4 +1,4 @@
-import { computeBatch, gramsLeftToSplit, netGrams, splitBatch, type BatchComputation, type BatchSplit } from '../../shared/compute/batch';
+import { carbUnderstated, computeBatch, gramsLeftToSplit, netGrams, splitBatch, type BatchComputation, type BatchSplit } from '../../shared/compute/batch';
 import { batchContainsRice } from '../../shared/compute/use-by';
 import type { Nutrients } from '../../shared/compute/nutrients';
 import { defaultUseBy } from '../../shared/compute/use-by';
@@ -95,8 +95,9 @@ export function netOf(w: Weighing): number | null {
 
 /** Each portion of a split in the counted basis (the server's splitBatch), or null when the split is not valid yet. */
 export function previewSplit(batch: BatchComputation, split: BatchSplit, basis: CarbBasis): { netGrams: number; carbGrams: number | null }[] | null {
+  const unknown = carbUnderstated(batch.totals, batch.incomplete, basis);
   try {
-    return splitBatch(batch, split).map((s) => ({ netGrams: s.netGrams, carbGrams: basis === 'available' ? s.carbAvailable : s.carbTotal }));
+    return splitBatch(batch, split).map((s) => ({ netGrams: s.netGrams, carbGrams: unknown ? null : basis === 'available' ? s.carbAvailable : s.carbTotal }));
   } catch {
     return null;
   }
@@ -108,7 +109,9 @@ export function previewBatch(v: Pick<CookFormValues, 'lines' | 'pot'>, basis: Ca
   const lines = v.lines.map((l) => ({ per100g: l.per100g, actualGrams: num(l.reading) ?? 0, omitted: l.omitted }));
   if (cooked == null) return null;
   try {
-    return computeBatch(lines, cooked, basis);
+    const batch = computeBatch(lines, cooked, basis);
+    // Like the server: a partial sum in the counted basis is shown as unknown, never as a low number.
+    return carbUnderstated(batch.totals, batch.incomplete, basis) ? { ...batch, carbTotal: null, carbPer100g: null } : batch;
   } catch {
     return null;
   }

@@ -1,22 +1,24 @@
 import { useWatch } from 'react-hook-form';
 import { StyleSheet, View } from 'react-native';
-import type { BatchComputation } from '../../shared/compute/batch';
+import { carbUnderstated, type BatchComputation } from '../../shared/compute/batch';
 import type { Container } from '../../shared/schemas/container';
-import type { CarbUnit } from '../../shared/schemas/units';
+import type { CarbBasis, CarbUnit } from '../../shared/schemas/units';
 import { Button } from '../ui/button';
 import { Callout } from '../ui/callout';
 import { Card } from '../ui/card';
 import { FormChoiceGroup } from '../ui/form-choice-group';
 import { FormTextField } from '../ui/form-text-field';
 import { Text } from '../ui/text';
+import { formatCarb } from '../../shared/compute/units';
 import type { CookForm } from './cook-batch-screen';
 import { netOf } from './cook-state';
-import { carbText, gramsText } from './kitchen-format';
+import { gramsText } from './kitchen-format';
 
 type Props = {
   form: CookForm;
   pots: Container[];
   batch: BatchComputation | null;
+  basis: CarbBasis;
   unit: CarbUnit;
   onBack: () => void;
   onDone: () => void;
@@ -28,7 +30,7 @@ export function containerChoices(containers: Container[], other: string) {
 }
 
 /** The cooked weight: the pot's gross weight on the scale minus the pot's tare. */
-export function CookedWeightStep({ form, pots, batch, unit, onBack, onDone }: Props) {
+export function CookedWeightStep({ form, pots, batch, basis, unit, onBack, onDone }: Props) {
   const net = netOf(useWatch({ control: form.control, name: 'pot' }));
   return (
     <Card aria-label="Cooked weight">
@@ -53,24 +55,32 @@ export function CookedWeightStep({ form, pots, batch, unit, onBack, onDone }: Pr
           Enter the gross weight; the empty pot must weigh less than the full one.
         </Callout>
       ) : batch ? (
-        <View style={styles.numbers} aria-label="Batch numbers">
-          <Figure label="Cooked weight" value={gramsText(batch.cookedGrams)} />
-          <Figure label="Raw ingredients" value={gramsText(batch.rawGrams)} />
-          <Figure label="Yield (cooked ÷ raw)" value={batch.yieldFactor.toFixed(2)} />
-          <Figure label="Carbohydrate per 100 g cooked" value={carbText(batch.carbPer100g, unit)} />
-          <Figure label="Carbohydrate in the batch" value={carbText(batch.carbTotal, unit)} />
-        </View>
-      ) : null}
-      {batch && batch.incomplete.some((k) => k === 'carbAvailable' || k === 'carbTotal') ? (
-        <Callout tone="caution" title="Some values unknown">
-          An ingredient has no carbohydrate value in the table, so these numbers may be too low.
-        </Callout>
+        <>
+          {carbUnderstated(batch.totals, batch.incomplete, basis) ? <CarbUnknownCallout basis={basis} /> : null}
+          <View style={styles.numbers} aria-label="Batch numbers">
+            <Figure label="Cooked weight" value={gramsText(batch.cookedGrams)} />
+            <Figure label="Raw ingredients" value={gramsText(batch.rawGrams)} />
+            <Figure label="Yield (cooked ÷ raw)" value={batch.yieldFactor.toFixed(2)} />
+            <Figure label="Carbohydrate per 100 g cooked" value={formatCarb(batch.carbPer100g, unit, { withGrams: true })} />
+            <Figure label="Carbohydrate in the batch" value={formatCarb(batch.carbTotal, unit, { withGrams: true })} />
+          </View>
+        </>
       ) : null}
       <View style={styles.row}>
         <Button variant="quiet" label="‹ Back to weighing" onPress={onBack} />
-        <Button size="lg" label="Split into portions" disabled={!batch} onPress={onDone} />
+        <Button size="lg" label="Portion out" disabled={!batch} onPress={onDone} />
       </View>
     </Card>
+  );
+}
+
+/** The warning above batch numbers whose carbohydrate in the counted basis is unknown (decide with carbUnderstated). */
+export function CarbUnknownCallout({ basis }: { basis: CarbBasis }) {
+  return (
+    <Callout tone="caution" title="Carbohydrate unknown">
+      An ingredient has no {basis} carbohydrate value, so the carbohydrate of this batch and its portions is shown as unknown
+      rather than as a number that would be too low.
+    </Callout>
   );
 }
 

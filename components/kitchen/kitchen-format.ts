@@ -1,6 +1,4 @@
 import { daysUntil } from '../../shared/compute/use-by';
-import { formatCarb } from '../../shared/compute/units';
-import type { CarbUnit } from '../../shared/schemas/units';
 
 /** Today's local calendar date as YYYY-MM-DD. */
 export function localToday(now: Date = new Date()): string {
@@ -8,21 +6,27 @@ export function localToday(now: Date = new Date()): string {
   return `${now.getFullYear()}-${pad(now.getMonth() + 1)}-${pad(now.getDate())}`;
 }
 
-/** Carbohydrate for display in the profile unit (grams shown alongside for counting units), or "unknown". */
-export function carbText(grams: number | null, unit: CarbUnit): string {
-  if (grams == null) return 'unknown';
-  return unit === 'g' ? formatCarb(grams, 'g') : `${formatCarb(grams, unit)} (${formatCarb(grams, 'g')})`;
-}
-
 /** Whole grams for weights. */
 export function gramsText(grams: number): string {
   return `${Math.round(grams)} g`;
 }
 
-/** "2 days left", "last day", "expired 3 days ago" and the tone to show it with. */
-export function shelfStatus(useBy: string, today: string): { text: string; tone: 'ok' | 'caution' | 'danger' } {
+type Storage = 'fridge' | 'freezer';
+
+/** What a batch's date is called (README glossary): the fridge date is a use-by date, the freezer date a best-quality date. */
+export function dateWord(storage: Storage): 'use by' | 'best quality by' {
+  return storage === 'freezer' ? 'best quality by' : 'use by';
+}
+
+/**
+ * "2 days left", "last day", "past its use-by date 3 days ago" and the tone to show it with. Past a freezer
+ * portion's best-quality date is a caution, not a danger: it stays safe while frozen.
+ */
+export function shelfStatus(useBy: string, today: string, storage: Storage = 'fridge'): { text: string; tone: 'ok' | 'caution' | 'danger' } {
   const days = daysUntil(useBy, today);
-  if (days < 0) return { text: `Past its use-by date (${-days} day${days === -1 ? '' : 's'} ago)`, tone: 'danger' };
+  const ago = `${-days} day${days === -1 ? '' : 's'} ago`;
+  if (days < 0 && storage === 'freezer') return { text: `Past its best-quality date (${ago}); safe while it stayed frozen`, tone: 'caution' };
+  if (days < 0) return { text: `Past its use-by date (${ago})`, tone: 'danger' };
   if (days === 0) return { text: 'Use today (last day)', tone: 'caution' };
   if (days === 1) return { text: '1 day left', tone: 'caution' };
   return { text: `${days} days left`, tone: 'ok' };

@@ -39,7 +39,7 @@ export function KitchenScreen() {
     <ErrorState error={batches.error} onRetry={batches.refetch} />
   ) : shown.length === 0 ? (
     <EmptyState title={show === 'all' ? 'No batches cooked yet' : 'Nothing in the fridge or freezer'}>
-      Cooking a batch walks you through weighing each ingredient and the cooked pot, then splits it into containers with
+      Cooking a batch walks you through weighing each ingredient and the cooked pot, then portions it out into containers with
       their carbohydrate and a label.
     </EmptyState>
   ) : (
@@ -49,7 +49,7 @@ export function KitchenScreen() {
   return (
     <Screen
       title="Kitchen"
-      subtitle="Cook a batch by weight and split it into labelled portions."
+      subtitle="Cook a batch by weight and portion it out with labels."
       actions={<Button label="Cook a batch" size="lg" onPress={() => router.push('/kitchen/batches/new')} />}
     >
       <View style={isWide ? styles.columns : styles.stack}>

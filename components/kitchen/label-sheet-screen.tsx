@@ -8,7 +8,7 @@ import { Button } from '../ui/button';
 import { Screen } from '../ui/screen';
 import { ErrorState, LoadingState } from '../ui/states';
 import { Text } from '../ui/text';
-import { shortDate } from './kitchen-format';
+import { dateWord, shortDate } from './kitchen-format';
 import { useLabelSheet } from '../api/batches';
 import { canPrint, printPage, usePrintStyles } from './print';
 
@@ -39,14 +39,14 @@ export function LabelSheetScreen({ id }: { id: number }) {
       </View>
       <View style={styles.grid} role="list" aria-label="Labels">
         {s.labels.map((label) => (
-          <LabelCard key={label.code} label={label} />
+          <LabelCard key={label.code} label={label} personName={s.personName} />
         ))}
       </View>
     </Screen>
   );
 }
 
-function LabelCard({ label }: { label: PortionLabel }) {
+function LabelCard({ label, personName }: { label: PortionLabel; personName: string | null }) {
   const t = useTheme();
   return (
     <View role="listitem" aria-label={`Label ${label.displayCode}`} style={[styles.label, { borderColor: t.colors.text, backgroundColor: t.colors.surface }]} {...keepTogether}>
@@ -54,12 +54,12 @@ function LabelCard({ label }: { label: PortionLabel }) {
         <Text variant="heading" numberOfLines={2}>
           {label.recipeTitle}
         </Text>
+        {personName ? <Text weight="bold">For {personName}</Text> : null}
         <Text variant="caption">
-          Cooked {shortDate(label.cookedOn)} · use by {shortDate(label.useBy)} ({label.storage})
+          Cooked {shortDate(label.cookedOn)} · {dateWord(label.storage)} {shortDate(label.useBy)} ({label.storage})
         </Text>
         <Text variant="lead" weight="bold">
-          {label.text.carb}
-          {label.text.carb !== label.text.carbGrams ? ` · ${label.text.carbGrams}` : ''} carbohydrate
+          {label.text.carbLine}
         </Text>
         <Text variant="caption">
           Net {label.text.net} · {label.text.carbPer100g} per 100 g

@@ -9,10 +9,11 @@ import { Card } from '../ui/card';
 import { FormChoiceGroup } from '../ui/form-choice-group';
 import { FormTextField } from '../ui/form-text-field';
 import { Text } from '../ui/text';
+import { formatCarb } from '../../shared/compute/units';
 import type { CookForm } from './cook-batch-screen';
 import { EMPTY_WEIGHING, num, previewPortions, previewSplit } from './cook-state';
 import { containerChoices } from './cooked-weight-step';
-import { carbText, gramsText } from './kitchen-format';
+import { gramsText } from './kitchen-format';
 
 type Props = {
   form: CookForm;
@@ -41,8 +42,8 @@ export function SplitStep({ form, containers, batch, basis, unit, onBack, onDone
   const portionsError = errors.portions?.message ?? errors.portions?.root?.message;
 
   return (
-    <Card aria-label="Split into portions">
-      <Text variant="heading">Split into portions</Text>
+    <Card aria-label="Portion out">
+      <Text variant="heading">Portion out the batch</Text>
       <FormChoiceGroup
         control={control}
         name="splitMode"
@@ -60,7 +61,7 @@ export function SplitStep({ form, containers, batch, basis, unit, onBack, onDone
           <FormTextField control={control} name="count" label="Number of portions" keyboardType="number-pad" />
           {equalShare ? (
             <Text variant="lead">
-              Each portion: {gramsText(equalShare.netGrams)} with {carbText(equalShare.carbGrams, unit)}
+              Each portion: {gramsText(equalShare.netGrams)} with {formatCarb(equalShare.carbGrams, unit, { withGrams: true })}
             </Text>
           ) : null}
         </>
@@ -90,7 +91,7 @@ export function SplitStep({ form, containers, batch, basis, unit, onBack, onDone
                 </View>
               </View>
               <Text>
-                {preview.nets[i] == null ? 'Net: enter both weights (empty below full).' : `Net ${gramsText(preview.nets[i]!)} · ${carbText(preview.carbs[i], unit)}`}
+                {preview.nets[i] == null ? 'Net: enter both weights (empty below full).' : `Net ${gramsText(preview.nets[i]!)} · ${formatCarb(preview.carbs[i], unit, { withGrams: true })}`}
               </Text>
               {portions.fields.length > 1 ? <Button variant="quiet" label={`Remove container ${i + 1}`} onPress={() => portions.remove(i)} /> : null}
             </View>
@@ -102,8 +103,8 @@ export function SplitStep({ form, containers, batch, basis, unit, onBack, onDone
                 {`These containers hold ${gramsText(-preview.left)} more than the ${gramsText(batch.cookedGrams)} in the pot. Check the weights and tares.`}
               </Callout>
             ) : (
-              <Text variant="lead" aria-label="Left to split">
-                Left to split: {gramsText(Math.max(0, preview.left))} of {gramsText(batch.cookedGrams)}
+              <Text variant="lead" aria-label="Left to portion out">
+                Left to portion out: {gramsText(Math.max(0, preview.left))} of {gramsText(batch.cookedGrams)}
               </Text>
             )
           ) : null}

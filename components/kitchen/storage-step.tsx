@@ -50,7 +50,7 @@ export function StorageStep({ form, containsRice, formError, saving, onBack, onS
         name="useBy"
         label="Use by"
         placeholder="YYYY-MM-DD"
-        hint={rule ? `Default ${rule.useBy} — ${rule.source}. ${rule.note}` : undefined}
+        hint={rule ? `Default ${rule.useBy}. ${rule.note}` : undefined}
       />
       <Callout tone="caution" title="Food safety">
         Cool the food quickly and refrigerate within 2 hours; reheat until steaming hot. These dates follow general advice —
@@ -58,7 +58,7 @@ export function StorageStep({ form, containsRice, formError, saving, onBack, onS
       </Callout>
       {formError ? <Callout tone="danger">{formError}</Callout> : null}
       <View style={styles.row}>
-        <Button variant="quiet" label="‹ Back to the split" onPress={onBack} />
+        <Button variant="quiet" label="‹ Back to portioning out" onPress={onBack} />
         <Button size="lg" label="Save batch and portions" loading={saving} onPress={onSave} />
       </View>
     </Card>

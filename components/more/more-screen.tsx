@@ -49,7 +49,7 @@ export function MoreScreen() {
       />
       <LinkCard
         title="Pots and containers"
-        description="Saved pots and containers with their empty weights, used when you cook and split a batch."
+        description="Saved pots and containers with their empty weights, used when you cook and portion out a batch."
         links={[{ href: '/kitchen', label: 'Kitchen: containers and batches' }]}
       />
       <Card>

@@ -120,7 +120,7 @@ function RecipeBody({ recipe, factor, onScale }: { recipe: Detail; factor: numbe
               </View>
               <Text style={styles.cell}>{showGrams(line.grams)}</Text>
               <Text style={styles.cell} weight="bold">
-                {n.ingredients[i].carb.grams == null ? 'unknown' : showCarb(n.ingredients[i].carb, unit)}
+                {showCarb(n.ingredients[i].carb, unit)}
               </Text>
             </View>
           ))}

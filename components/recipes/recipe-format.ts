@@ -2,10 +2,9 @@ import { formatCarb } from '../../shared/compute/units';
 import type { CarbAmount } from '../../shared/compute/recipe';
 import type { CarbUnit } from '../../shared/schemas/units';
 
-/** Carbohydrate for display (the shared formatCarb rule), or a dash when it cannot be known. */
+/** Carbohydrate for display: the shared formatCarb rule ("unknown" when it cannot be known) on an amount or grams. */
 export function showCarb(amount: CarbAmount | number | null, unit: CarbUnit): string {
-  const grams = typeof amount === 'number' || amount === null ? amount : amount.grams;
-  return grams == null ? '–' : formatCarb(grams, unit);
+  return formatCarb(typeof amount === 'number' || amount === null ? amount : amount.grams, unit);
 }
 
 /** Weights for display: whole grams from 10 g, tenths below (stored values keep full precision). */

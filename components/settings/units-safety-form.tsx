@@ -166,9 +166,8 @@ export function UnitsSafetyForm({
       <Card>
         <Text variant="heading">Exercise after a meal</Text>
         <Text color="textMuted">
-          Percent taken off the meal part when exercise starts within 3 hours of the meal. Starting values: Rabasa-Lhoret
-          et al., Diabetes Care 2001. Empty means no reduction is established (hard exercise for an hour: from the 2017
-          consensus table as remembered, not confirmed).
+          Percent taken off the meal part when exercise starts within 3 hours of the meal. Set these with your diabetes
+          team. Empty means no reduction is made.
         </Text>
         {EXERCISE_INTENSITIES.map((k) => (
           <View key={k} style={[styles.grid, styles.gridWide]}>

@@ -5,7 +5,7 @@ import { formatCarb } from '../../shared/compute/units';
 import type { BatchSummary } from '../../shared/schemas/batch';
 import type { CarbUnit } from '../../shared/schemas/units';
 import { doseCheckHref } from '../dose/dose-href';
-import { shelfStatus, shortDate } from '../kitchen/kitchen-format';
+import { dateWord, shelfStatus, shortDate } from '../kitchen/kitchen-format';
 import { useBatches } from '../api/batches';
 import { useTheme } from '../theme/use-theme';
 import { Button } from '../ui/button';
@@ -31,14 +31,14 @@ export function availablePortions(batches: BatchSummary[]): Row[] {
 
 function PortionRow({ row, unit, today }: { row: Row; unit: CarbUnit; today: string }) {
   const t = useTheme();
-  const shelf = shelfStatus(row.useBy, today);
-  const carb = row.carbGrams == null ? 'carbohydrate unknown' : formatCarb(row.carbGrams, unit);
+  const shelf = shelfStatus(row.useBy, today, row.storage);
+  const carb = formatCarb(row.carbGrams, unit);
   return (
     <View style={[styles.row, { borderColor: t.colors.border }]} role="listitem" aria-label={`${row.title}, portion ${formatPortionCode(row.code)}`}>
       <View style={styles.rowText}>
         <Text weight="bold">{row.title}</Text>
         <Text color="textMuted">
-          {formatPortionCode(row.code)} · {row.storage === 'freezer' ? 'Freezer' : 'Fridge'} · {Math.round(row.netGrams)} g · use by {shortDate(row.useBy)}
+          {formatPortionCode(row.code)} · {row.storage === 'freezer' ? 'Freezer' : 'Fridge'} · {Math.round(row.netGrams)} g · {dateWord(row.storage)} {shortDate(row.useBy)}
         </Text>
         {shelf.tone !== 'ok' ? (
           <Text variant="label" color={shelf.tone === 'danger' ? 'danger' : 'caution'}>

@@ -3,9 +3,9 @@ import { portionCodeParamSchema, portionDetailSchema } from '../../shared/schema
 import { getPortion, setPortionStatus } from '../services/portions.service';
 import { access, defineRoute, type AnyRoute } from './registry';
 
-const statusBodySchema = z.object({ status: z.enum(['eaten', 'discarded'], { error: 'Choose eaten or discarded.' }) });
+const statusBodySchema = z.object({ status: z.enum(['eaten', 'discarded', 'available'], { error: 'Choose eaten, discarded or available.' }) });
 
-/** A portion by its label code: its page, and marking it eaten or thrown away (once). */
+/** A portion by its label code: its page, and marking it eaten or thrown away (once), or undoing that. */
 export function portionsRoutes(): AnyRoute[] {
   return [
     defineRoute({
@@ -15,7 +15,7 @@ export function portionsRoutes(): AnyRoute[] {
     }),
     defineRoute({
       method: 'post', path: '/portions/:code/status', access: access.signedIn, params: portionCodeParamSchema, body: statusBodySchema,
-      response: portionDetailSchema, summary: 'Mark a portion eaten or discarded (once; 409 after). Clinicians may not.',
+      response: portionDetailSchema, summary: 'Mark a portion eaten or discarded (from available only), or back to available (from eaten or discarded only; the undo); 409 otherwise. Clinicians may not.',
       handler: async ({ params, user, body }, _req, res) => res.json(await setPortionStatus(params.code, user.id, body.status)),
     }),
   ];

@@ -2,14 +2,13 @@ import QRCode from 'qrcode';
 import { formatPortionCode } from '../../shared/compute/portion-code';
 import { formatCarb } from '../../shared/compute/units';
 import type { LabelSheet } from '../../shared/schemas/portion';
+import { ProfileModel } from '../models';
 import { getBatch } from './batches.service';
 
 /** The absolute URL a label's QR code opens: the portion page of the web app. */
 export function portionUrl(origin: string, code: string): string {
   return `${origin.replace(/\/+$/, '')}/portions/${code}`;
 }
-
-const unknown = 'unknown';
 
 // A URL's QR code never changes, and drawing one costs a few ms of CPU: keep the most recent ones.
 const QR_CACHE_SIZE = 2000;
@@ -25,16 +24,28 @@ export async function qrPng(url: string): Promise<string> {
   return png;
 }
 
+/** The profile's name when its owner keeps more than one profile (a label must say whose batch it is), else null. */
+export async function householdName(profileId: number): Promise<string | null> {
+  const profile = await ProfileModel.findByPk(profileId);
+  if (!profile || profile.ownerUserId == null) return null;
+  const count = await ProfileModel.count({ where: { ownerUserId: profile.ownerUserId } });
+  return count > 1 ? profile.displayName : null;
+}
+
 /**
  * Builds the label sheet of a batch: one label per portion (eaten and discarded ones too, marked), numbers
- * rounded by the shared display rule (formatCarb), each with a QR code for its portion page.
+ * rounded by the shared display rule (formatCarb) with the basis named, the person's name when the household has
+ * more than one profile, each with a QR code for its portion page.
  */
 export async function buildLabelSheet(profileId: number, batchId: number, origin: string): Promise<LabelSheet> {
   const batch = await getBatch(profileId, batchId);
+  const personName = await householdName(profileId);
   const labels = await Promise.all(
     batch.portions.map(async (p) => {
       const url = portionUrl(origin, p.code);
       const qrDataUrl = await qrPng(url);
+      const carb = formatCarb(p.carb.grams, batch.unit);
+      const carbGrams = formatCarb(p.carb.grams, 'g');
       return {
         code: p.code,
         displayCode: formatPortionCode(p.code),
@@ -49,13 +60,14 @@ export async function buildLabelSheet(profileId: number, batchId: number, origin
         carbPer100g: batch.carbPer100g,
         text: {
           net: `${Math.round(p.netGrams)} g`,
-          carb: p.carb.grams == null ? unknown : formatCarb(p.carb.grams, batch.unit),
-          carbGrams: p.carb.grams == null ? unknown : formatCarb(p.carb.grams, 'g'),
-          carbPer100g: batch.carbPer100g.grams == null ? unknown : formatCarb(batch.carbPer100g.grams, 'g'),
+          carb,
+          carbGrams,
+          carbLine: `${carb}${carb === carbGrams ? '' : ` · ${carbGrams}`} carbohydrate (${batch.basis})`,
+          carbPer100g: formatCarb(batch.carbPer100g.grams, 'g'),
         },
         status: p.status,
       };
     }),
   );
-  return { batchId: batch.id, recipeTitle: batch.recipeTitle, basis: batch.basis, unit: batch.unit, useBySource: batch.useBySource, labels };
+  return { batchId: batch.id, recipeTitle: batch.recipeTitle, basis: batch.basis, unit: batch.unit, useBySource: batch.useBySource, personName, labels };
 }

@@ -70,20 +70,23 @@ export async function getPortion(rawCode: string, userId: number): Promise<Porti
   };
 }
 
+const STATUS_WORDS: Record<PortionStatus, string> = { available: 'not eaten yet', eaten: 'eaten', discarded: 'thrown away' };
+
 /**
- * Marks an available portion eaten or thrown away. One conditional UPDATE, so two people (or two taps)
- * cannot both succeed: the second gets 409. Clinicians may look but not mark.
+ * Marks a portion eaten or thrown away (only from not eaten yet), or undoes that (back to available, only from eaten or
+ * thrown away). One conditional UPDATE, so two people (or two taps) cannot both succeed: the second gets 409.
+ * Clinicians may look but not mark.
  */
-export async function setPortionStatus(rawCode: string, userId: number, status: Exclude<PortionStatus, 'available'>): Promise<PortionDetail> {
+export async function setPortionStatus(rawCode: string, userId: number, status: PortionStatus): Promise<PortionDetail> {
   const portion = await findPortionForUser(rawCode, userId, ['owner', 'carer']);
   const [, affected] = await PortionModel.sequelize!.query(
     `UPDATE portions SET status = :status, status_changed_at = now(), status_changed_by_user_id = :userId, updated_at = now()
-     WHERE id = :id AND status = 'available'`,
+     WHERE id = :id AND ${status === 'available' ? "status IN ('eaten', 'discarded')" : "status = 'available'"}`,
     { replacements: { status, userId, id: portion.id }, type: QueryTypes.UPDATE },
   );
   if (affected !== 1) {
     await portion.reload();
-    throw AppError.conflict(`This portion is already marked ${portion.status}.`);
+    throw AppError.conflict(`This portion is already ${STATUS_WORDS[portion.status as PortionStatus]}.`);
   }
   return getPortion(portion.code, userId);
 }

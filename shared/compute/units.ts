@@ -56,12 +56,18 @@ export function formatGlucose(mmol: number, unit: GlucoseUnit): string {
   return unit === 'mmol_l' ? `${(Math.round(mmol * 10) / 10).toFixed(1)} mmol/L` : `${Math.round(mmolToMgdl(mmol))} mg/dL`;
 }
 
+/** The one word for a value nobody measured (README glossary). */
+export const UNKNOWN = 'unknown';
+
 /**
- * Display rule for carbohydrate: grams ≥ 10 to the nearest 1 g, under 10 g to 0.1 g
- * (the EU label tolerance guidance pattern, from memory); counting units to 0.1.
+ * The one display rule for carbohydrate: grams ≥ 10 to the nearest 1 g, under 10 g to 0.1 g
+ * (the EU label tolerance guidance pattern, from memory); counting units to 0.1; null → "unknown".
+ * `withGrams` adds the grams after a counting unit ("2.4 CP (24 g)").
  */
-export function formatCarb(grams: number, unit: CarbUnit = 'g'): string {
+export function formatCarb(grams: number | null, unit: CarbUnit = 'g', opts: { withGrams?: boolean } = {}): string {
+  if (grams == null) return UNKNOWN;
   if (unit === 'g') return grams >= 10 ? `${Math.round(grams)} g` : `${(Math.round(grams * 10) / 10).toFixed(1)} g`;
   const value = gramsToCarbUnit(grams, unit);
-  return `${(Math.round(value * 10) / 10).toFixed(1)} ${CARB_UNIT_LABEL[unit].short}`;
+  const text = `${(Math.round(value * 10) / 10).toFixed(1)} ${CARB_UNIT_LABEL[unit].short}`;
+  return opts.withGrams ? `${text} (${formatCarb(grams, 'g')})` : text;
 }

@@ -60,7 +60,8 @@ export type PortionLabel = {
   netGrams: number;
   carb: { grams: number | null; inUnit: number | null };
   carbPer100g: { grams: number | null; inUnit: number | null };
-  text: { net: string; carb: string; carbGrams: string; carbPer100g: string };
+  /** carbLine: the label's carbohydrate with its unit and basis, e.g. "2.9 CP · 29 g carbohydrate (available)". */
+  text: { net: string; carb: string; carbGrams: string; carbLine: string; carbPer100g: string };
   status: PortionStatus;
 };
 
@@ -71,5 +72,7 @@ export type LabelSheet = {
   basis: 'available' | 'total';
   unit: 'g' | 'portion10' | 'unit12' | 'exchange15';
   useBySource: string;
+  /** Whose batch it is, when the household has more than one profile; null otherwise. */
+  personName: string | null;
   labels: PortionLabel[];
 };

@@ -72,7 +72,7 @@ describe('a server field error lands under its field', () => {
     type('Carbohydrate (available)', '40');
     type('Glucose now', '6');
     type('Reading taken', '5');
-    press('Work out a dose');
+    press('Check a dose');
 
     await expectErrorUnder('Reading taken', 'The reading is older than the meal by more than a day.');
   });
@@ -95,7 +95,7 @@ describe('a server field error lands under its field', () => {
     press('All weighed: weigh the pot');
     type('Empty pot (tare)', '500');
     type('Pot with the food (gross)', '900');
-    press('Split into portions');
+    press('Portion out');
     type('Full container 1 (gross)', '400');
     press('Storage and use-by');
     press('Save batch and portions');
@@ -118,7 +118,7 @@ describe('the dose check before anything is worked out', () => {
     expect(screen.getByLabelText('Reading taken', { selector: 'input' })).toHaveValue('');
     type('Carbohydrate (available)', '40');
     type('Glucose now', '6');
-    press('Work out a dose');
+    press('Check a dose');
 
     await expectErrorUnder('Reading taken', 'Enter how many minutes ago the reading was taken (0 or more).');
     await waitFor(() => expect(api.mock.calls.some(([, init]) => init?.method === 'POST')).toBe(false));

@@ -137,19 +137,19 @@ describe('a morning in the kitchen, from food search to label sheet', () => {
     });
     await weighPot(page, { tare: POT_TARE, gross: POT_GROSS }, [grams(COOKED), grams((ACTUAL_TOTAL / COOKED) * 100), grams(ACTUAL_TOTAL)]);
     await rig.shot(page, 'pot');
-    await page.getByRole('button', { name: 'Split into portions' }).click();
+    await page.getByRole('button', { name: 'Portion out', exact: true }).click();
 
     await weighContainers(page, JARS, (net) => grams(jarCarb(net)));
-    await page.getByText(`Left to split: 0 g of ${COOKED} g`).waitFor();
+    await page.getByText(`Left to portion out: 0 g of ${COOKED} g`).waitFor();
     await rig.shot(page, 'split');
     await page.getByRole('button', { name: 'Storage and use-by' }).click();
-    await page.getByText(/Default \d{4}-\d{2}-\d{2} — /).waitFor();
+    await page.getByText(/Default \d{4}-\d{2}-\d{2}\. /).waitFor();
     await rig.shot(page, 'storage');
     const labels = await saveBatchAndOpenLabels(page, 'Rice and lentil pot', () => rig.shot(page, 'batch'));
     expect(await labels.count()).toBe(JARS.length);
     const firstJar = labels.filter({ hasText: 'Net 400 g ·' });
     expect(await firstJar.count()).toBe(1);
-    await firstJar.getByText(`${grams(jarCarb(400))} carbohydrate`, { exact: true }).waitFor();
+    await firstJar.getByText(`${grams(jarCarb(400))} carbohydrate (available)`, { exact: true }).waitFor();
     await rig.shot(page, 'labels');
 
     const code = (await firstJar.getAttribute('aria-label'))!.replace('Label ', '');

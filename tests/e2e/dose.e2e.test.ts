@@ -38,7 +38,7 @@ async function addDayKind(page: Page, name: string, ratio: string, factor: strin
 
 async function checkDose(page: Page, kind: string) {
   await page.getByRole('radio', { name: kind }).click();
-  await page.getByRole('button', { name: 'Work out a dose' }).click();
+  await page.getByRole('button', { name: 'Check a dose', exact: true }).click();
   await page.getByText(`ratio for ${kind},`).waitFor();
   await page.getByText('A calculation, not medical advice').scrollIntoViewIfNeeded();
 }
@@ -112,13 +112,13 @@ describe('dose check in the browser', () => {
     await page.getByText('No portion has that code.').waitFor();
     await page.getByLabel('Glucose now').fill('3.4');
     await page.getByLabel('Reading taken').fill('0');
-    await page.getByRole('button', { name: 'Work out a dose' }).click();
+    await page.getByRole('button', { name: 'Check a dose', exact: true }).click();
     await page.getByText('Treat the low first', { exact: false }).waitFor();
     await page.getByText('A calculation, not medical advice').scrollIntoViewIfNeeded();
     await rig.shot(page, 'wide-dose-low');
 
     await page.getByLabel('Glucose now').fill('11');
-    await page.getByRole('button', { name: 'Work out a dose' }).click();
+    await page.getByRole('button', { name: 'Check a dose', exact: true }).click();
     await page.getByText('How it adds up').waitFor();
     // By hand (Rest: 10 g per unit, 2 mmol/L per unit, correct to 6): 55 ÷ 10 = 5.5 + (11 − 6) ÷ 2 = 2.5 → 8 units.
     await expect(page.getByLabel('Suggested dose').innerText()).resolves.toMatch(/(^|\s)8 units(\s|$)/);

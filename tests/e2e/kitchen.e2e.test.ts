@@ -81,18 +81,18 @@ describe('the kitchen in the browser', () => {
     await page.getByText('1132 g').first().waitFor();
     await page.getByText('0.98').waitFor();
     await rig.shot(page, 'phone-pot');
-    await page.getByRole('button', { name: 'Split into portions' }).click();
+    await page.getByRole('button', { name: 'Portion out', exact: true }).click();
 
     for (const [i, [tare, gross]] of JARS.entries()) {
       if (i > 0) await page.getByRole('button', { name: 'Add a container' }).click();
       await page.getByLabel(`Empty container ${i + 1} (tare)`).fill(tare);
       await page.getByLabel(`Full container ${i + 1} (gross)`).fill(gross);
     }
-    await page.getByText('Left to split: 0 g of 1132 g').waitFor();
+    await page.getByText('Left to portion out: 0 g of 1132 g').waitFor();
     await page.getByText('Net 226 g · 39 g').first().waitFor();
     await rig.shot(page, 'phone-split');
     await page.getByRole('button', { name: 'Storage and use-by' }).click();
-    await page.getByText(/Default \d{4}-\d{2}-\d{2} — /).waitFor();
+    await page.getByText(/Default \d{4}-\d{2}-\d{2}\. /).waitFor();
     await rig.shot(page, 'phone-storage');
     await page.getByRole('button', { name: 'Save batch and portions' }).click();
 
@@ -106,7 +106,7 @@ describe('the kitchen in the browser', () => {
     await labels.first().waitFor();
     expect(await labels.count()).toBe(5);
     expect(await page.getByRole('img', { name: /QR code for http/ }).count()).toBe(5);
-    await page.getByText('39 g carbohydrate').first().waitFor();
+    await page.getByText('39 g carbohydrate (available)', { exact: true }).first().waitFor();
     await rig.shot(page, 'phone-labels');
     await page.emulateMedia({ media: 'print' });
     await page.getByRole('heading', { name: 'Labels: Overnight oats' }).waitFor({ state: 'hidden' });

@@ -57,7 +57,7 @@ const EXPECT = {
 };
 
 describe('a Sunday batch of overnight oats from the USDA table only, on a phone', () => {
-  it('finds every food by search, cooks with weights, splits into five weighed containers and prints labels', async () => {
+  it('finds every food by search, cooks with weights, portions it out into five weighed containers and prints labels', async () => {
     const page = await rig.newPage(PHONE);
     await signUpInBrowser(page, rig.baseUrl, { name: 'Jo', email: 'jo-oats@example.test' });
 
@@ -91,10 +91,10 @@ describe('a Sunday batch of overnight oats from the USDA table only, on a phone'
     });
     await weighPot(page, BOWL, [EXPECT.cooked, EXPECT.batchPer100g, EXPECT.batchTotal]);
     await rig.shot(page, 'bowl');
-    await page.getByRole('button', { name: 'Split into portions' }).click();
+    await page.getByRole('button', { name: 'Portion out', exact: true }).click();
 
     await weighContainers(page, CONTAINERS, (net) => EXPECT.container[net]);
-    await page.getByText(`Left to split: 0 g of ${BOWL.gross - BOWL.tare} g`).waitFor();
+    await page.getByText(`Left to portion out: 0 g of ${BOWL.gross - BOWL.tare} g`).waitFor();
     await rig.shot(page, 'split');
     await page.getByRole('button', { name: 'Storage and use-by' }).click();
     const labels = await saveBatchAndOpenLabels(page, 'Overnight oats', () => rig.shot(page, 'batch'));
@@ -103,7 +103,7 @@ describe('a Sunday batch of overnight oats from the USDA table only, on a phone'
       const these = labels.filter({ hasText: `Net ${net} g ·` });
       expect(await these.count()).toBe(net === 226 ? 3 : 2);
       for (let k = 0; k < (await these.count()); k += 1) {
-        await these.nth(k).getByText(`${EXPECT.container[net]} carbohydrate`, { exact: true }).waitFor();
+        await these.nth(k).getByText(`${EXPECT.container[net]} carbohydrate (available)`, { exact: true }).waitFor();
         await these.nth(k).getByText(`Net ${net} g · ${EXPECT.batchPer100g} per 100 g`, { exact: true }).waitFor();
       }
     }

@@ -115,7 +115,7 @@ describe('Today in the browser', () => {
     await page.getByRole('button', { name: 'Add another earlier dose' }).click();
     await page.getByLabel('Earlier dose 2', { exact: true }).fill('1');
     await page.getByLabel('Dose 2 taken').fill('abc');
-    await page.getByRole('button', { name: 'Work out a dose' }).click();
+    await page.getByRole('button', { name: 'Check a dose', exact: true }).click();
     await page.getByText('Enter how long ago, 0 to 1440 minutes.').waitFor();
     await rig.shot(page, 'phone-dose-earlier-error');
     await page.getByLabel('Dose 2 taken').fill('90');
@@ -124,7 +124,7 @@ describe('Today in the browser', () => {
     await page.getByRole('button', { name: 'Remove earlier dose 3' }).click();
     await expect(page.getByLabel('Earlier dose 3', { exact: true }).count()).resolves.toBe(0);
 
-    await page.getByRole('button', { name: 'Work out a dose' }).click();
+    await page.getByRole('button', { name: 'Check a dose', exact: true }).click();
     await page.getByText('ratio for Long ride,', { exact: false }).waitFor();
     // Both doses count, by hand on the default straight line over a 4 h action time (240 minutes):
     // 2 units × (1 − 30/240) = 1.75 plus 1 unit × (1 − 90/240) = 0.625 → 2.375, shown as "2.38 units" (the first alone: 1.75).

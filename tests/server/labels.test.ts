@@ -31,12 +31,30 @@ describe('GET /api/profiles/:profileId/batches/:id/labels', () => {
       cookedOn: '2026-03-10',
       useBy: '2026-03-12',
       netGrams: 226,
-      text: { net: '226 g', carb: '3.9 CP', carbGrams: '39 g', carbPer100g: '17 g' },
+      text: { net: '226 g', carb: '3.9 CP', carbGrams: '39 g', carbLine: '3.9 CP · 39 g carbohydrate (available)', carbPer100g: '17 g' },
     });
+    expect(res.body.personName).toBeNull();
     expect(res.body.labels[2].carb.grams).toBeCloseTo(39.3942, 3);
     for (const label of res.body.labels) {
       expect(label.url).toBe(`https://carbwright.example/portions/${label.code}`);
       expect(decodeQr(label.qrDataUrl)).toBe(label.url);
     }
+  });
+
+  it('names the person whose batch it is once the household has a second profile', async () => {
+    const session = await signUpUser(ctx.app, 'Cook');
+    const profileId = session.me.profiles[0].id;
+    const { input } = await overnightOats(session.me.user.id);
+    const batch = (await postBatch(ctx.app, session.token, profileId, input)).body;
+    const url = `/api/profiles/${profileId}/batches/${batch.id}/labels`;
+
+    const alone = await request(ctx.app).get(url).set(bearer(session.token));
+    await ProfileModel.create({ displayName: 'Sam', ownerUserId: session.me.user.id });
+    const shared = await request(ctx.app).get(url).set(bearer(session.token));
+
+    expect(alone.body.personName).toBeNull();
+    expect(shared.body.personName).toBe(session.me.profiles[0].displayName);
+    // Grams profile: the unit is said once, with the basis the profile counts.
+    expect(shared.body.labels[0].text.carbLine).toBe('39 g carbohydrate (available)');
   });
 });

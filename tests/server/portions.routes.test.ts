@@ -111,10 +111,57 @@ describe('POST /api/portions/:code/status', () => {
 
     const byClinician = await request(ctx.app).post(`/api/portions/${code}/status`).set(bearer(clinician.token)).send({ status: 'eaten' });
     const byStranger = await request(ctx.app).post(`/api/portions/${code}/status`).set(bearer(stranger.token)).send({ status: 'eaten' });
-    const badStatus = await request(ctx.app).post(`/api/portions/${code}/status`).set(bearer(cook.token)).send({ status: 'available' });
+    const badStatus = await request(ctx.app).post(`/api/portions/${code}/status`).set(bearer(cook.token)).send({ status: 'gone' });
 
     expect([byClinician.status, byStranger.status, badStatus.status]).toEqual([403, 404, 400]);
     expect(badStatus.body.error.fieldErrors.status).toBeDefined();
     expect((await PortionModel.findOne({ where: { code } }))!.status).toBe('available');
+  });
+});
+
+describe('POST /api/portions/:code/status back to available (the undo)', () => {
+  it.each([{ from: 'eaten' }, { from: 'discarded' }])('undoes $from: the portion is not eaten yet again and can be marked anew', async ({ from }) => {
+    const { cook, code } = await cookedJars();
+    await request(ctx.app).post(`/api/portions/${code}/status`).set(bearer(cook.token)).send({ status: from });
+
+    const undo = await request(ctx.app).post(`/api/portions/${code}/status`).set(bearer(cook.token)).send({ status: 'available' });
+    const again = await request(ctx.app).post(`/api/portions/${code}/status`).set(bearer(cook.token)).send({ status: 'eaten' });
+
+    expect(undo.status).toBe(200);
+    expect(undo.body.status).toBe('available');
+    expect(again.status).toBe(200);
+    const row = await PortionModel.findOne({ where: { code } });
+    expect(row!.status).toBe('eaten');
+  });
+
+  it('records who undid it in the database and counts the portion as not eaten yet in the inventory', async () => {
+    const { cook, code } = await cookedJars();
+    const carer = await member('Carer');
+    await ProfileAccessModel.create({ profileId: cook.profileId, userId: carer.userId, role: 'carer', grantedByUserId: cook.userId });
+    await request(ctx.app).post(`/api/portions/${code}/status`).set(bearer(cook.token)).send({ status: 'discarded' });
+
+    const undo = await request(ctx.app).post(`/api/portions/${code}/status`).set(bearer(carer.token)).send({ status: 'available' });
+    const list = await request(ctx.app).get(`/api/profiles/${cook.profileId}/batches`).set(bearer(cook.token));
+
+    expect(undo.status).toBe(200);
+    const row = await PortionModel.findOne({ where: { code } });
+    expect(row!.status).toBe('available');
+    expect(row!.statusChangedByUserId).toBe(carer.userId);
+    expect(list.body.items[0].counts).toEqual({ available: 5, eaten: 0, discarded: 0 });
+  });
+
+  it('answers 409 for a portion that is already not eaten yet, and 403 to a clinician, leaving the row as it was', async () => {
+    const { cook, code } = await cookedJars();
+    const clinician = await member('Clinician');
+    await ProfileAccessModel.create({ profileId: cook.profileId, userId: clinician.userId, role: 'clinician', grantedByUserId: cook.userId });
+
+    const notMarked = await request(ctx.app).post(`/api/portions/${code}/status`).set(bearer(cook.token)).send({ status: 'available' });
+    await request(ctx.app).post(`/api/portions/${code}/status`).set(bearer(cook.token)).send({ status: 'eaten' });
+    const byClinician = await request(ctx.app).post(`/api/portions/${code}/status`).set(bearer(clinician.token)).send({ status: 'available' });
+
+    expect(notMarked.status).toBe(409);
+    expect(notMarked.body.error.message).toBe('This portion is already not eaten yet.');
+    expect(byClinician.status).toBe(403);
+    expect((await PortionModel.findOne({ where: { code } }))!.status).toBe('eaten');
   });
 });

@@ -51,8 +51,23 @@ describe('formatCarb', () => {
     { name: 'tenths under 10 g', grams: 7.25, unit: 'g' as const, text: '7.3 g' },
     { name: 'exchanges to a tenth', grams: 48, unit: 'exchange15' as const, text: '3.2 ex' },
     { name: 'portions to a tenth', grams: 48, unit: 'portion10' as const, text: '4.8 CP' },
+    { name: 'exactly 10 g is whole grams', grams: 10, unit: 'g' as const, text: '10 g' },
+    { name: 'just under 10 g keeps a tenth', grams: 9.94, unit: 'g' as const, text: '9.9 g' },
+    { name: 'bread units to a tenth', grams: 30, unit: 'unit12' as const, text: '2.5 BU' },
+    { name: 'unknown grams', grams: null, unit: 'g' as const, text: 'unknown' },
+    { name: 'unknown in a counting unit', grams: null, unit: 'portion10' as const, text: 'unknown' },
   ])('$name', ({ grams, unit, text }) => {
+    // rounding rule from memory (EU label tolerance guidance pattern): ≥ 10 g whole, < 10 g one decimal, counting units one decimal;
+    // CP = 10 g, BU = 12 g, ex = 15 g as CARB_UNIT_GRAMS cites
     expect(formatCarb(grams, unit)).toBe(text);
+  });
+
+  it.each([
+    { name: 'a counting unit with its grams', grams: 48, unit: 'exchange15' as const, text: '3.2 ex (48 g)' },
+    { name: 'grams are not repeated', grams: 7.25, unit: 'g' as const, text: '7.3 g' },
+    { name: 'unknown stays one word', grams: null, unit: 'unit12' as const, text: 'unknown' },
+  ])('withGrams: $name', ({ grams, unit, text }) => {
+    expect(formatCarb(grams, unit, { withGrams: true })).toBe(text);
   });
 });
 
