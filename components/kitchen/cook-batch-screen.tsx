@@ -125,7 +125,7 @@ function CookBatch({ recipe, profileId, basis, unit }: Props) {
       ) : null}
       {step === 'weigh' ? <WeighingStep form={form} index={index} onIndex={setIndex} onDone={() => setStep('cooked')} /> : null}
       {step === 'cooked' ? (
-        <CookedWeightStep form={form} pots={all.filter((c) => c.kind === 'pot')} batch={batch} unit={unit} onBack={() => setStep('weigh')} onDone={() => setStep('split')} />
+        <CookedWeightStep form={form} pots={all.filter((c) => c.kind === 'pot')} batch={batch} basis={basis} unit={unit} onBack={() => setStep('weigh')} onDone={() => setStep('split')} />
       ) : null}
       {step === 'split' && batch ? (
         <SplitStep form={form} containers={all.filter((c) => c.kind === 'container')} batch={batch} basis={basis} unit={unit} onBack={() => setStep('cooked')} onDone={() => setStep('store')} />
