@@ -3,15 +3,15 @@ import { useForm } from 'react-hook-form';
 import { CookedWeightStep } from '@/components/kitchen/cooked-weight-step';
 import type { CookForm } from '@/components/kitchen/cook-batch-screen';
 import { previewBatch, previewSplit, type CookFormValues, type CookLine } from '@/components/kitchen/cook-state';
-import { emptyNutrients } from '@/shared/compute/nutrients';
+import { emptyNutrients, type Nutrients } from '@/shared/compute/nutrients';
 import type { CarbBasis } from '@/shared/schemas/units';
 
 // Overnight oats (check-values §2.4): rolled oats 08120 per 100 g 67.7 g by difference, 10.1 g fibre → 57.6 g available;
 // the yogurt is a pack food whose panel gives 3.6 g carbohydrate (available, as EU panels do) and no fibre, so its
 // total carbohydrate is unknown. Uncooked: 240 g + 240 g = 480 g in a pot of 1000 g tare.
-const oats = { ...emptyNutrients(), carbTotal: 67.7, fibre: 10.1, carbAvailable: 57.6 };
-const yogurt = { ...emptyNutrients(), carbAvailable: 3.6 };
-const line = (foodId: number, foodName: string, per100g: typeof oats): CookLine => ({ foodId, foodName, per100g, plannedGrams: 240, reading: '240', omitted: false, swappedFrom: null });
+const oats: Nutrients = { ...emptyNutrients(), carbTotal: 67.7, fibre: 10.1, carbAvailable: 57.6 };
+const yogurt: Nutrients = { ...emptyNutrients(), carbAvailable: 3.6 };
+const line = (foodId: number, foodName: string, per100g: Nutrients): CookLine => ({ foodId, foodName, per100g, plannedGrams: 240, reading: '240', omitted: false, swappedFrom: null });
 const lines = [line(1, 'Oats, rolled', oats), line(2, 'Greek yogurt (pack)', yogurt)];
 const pot = { containerId: '', gross: '1480', tare: '1000' };
 
