@@ -83,7 +83,7 @@ export function DoseMealFields({ control, kinds, carbBasis, carbUnit, glucoseUni
           hint="How long ago the reading was taken."
         />
       </Pair>
-      <FormTextField control={control} name="localTime" label="Meal time" placeholder="12:30" hint="Chooses the time block of the day kind." />
+      <FormTextField control={control} name="localTime" label="Meal time" placeholder="12:30" hint="Chooses the time of day whose ratio applies." />
       {kinds.length ? <FormChoiceGroup control={control} name="dayKindId" label="Kind of day" choices={kinds.map((k) => ({ value: k.id, label: k.name }))} /> : null}
     </Card>
   );

@@ -12,7 +12,7 @@ import { FormChoiceGroup } from '../ui/form-choice-group';
 
 export type DayKindForm = UseFormReturn<DayKindFormValues, unknown, DayKindInput>;
 
-/** Day kind editor: name, default, planned long-acting dose and the time blocks with their ratios. */
+/** Day kind editor: name, default, planned long-acting dose and the times of day with their ratios. */
 export function DayKindForm({
   defaultValues,
   onSubmit,
@@ -55,7 +55,7 @@ export function DayKindForm({
         />
       </Card>
       <Card>
-        <Text variant="heading">Time blocks</Text>
+        <Text variant="heading">Times of day</Text>
         <Text color="textMuted">
           The blocks must cover the whole day, from 00:00 to 24:00, in order, without gaps or overlaps. Ratio: grams of
           carbohydrate per unit. Correction factor: how far 1 unit lowers glucose, in {unit}.
@@ -66,36 +66,36 @@ export function DayKindForm({
           </Text>
         ) : null}
         {blocks.fields.map((f, i) => (
-          <View key={f.id} style={[styles.block, { borderColor: t.colors.border }, isWide && styles.blockWide]} aria-label={`Block ${i + 1}`}>
-            {isWide ? null : <Text weight="bold">Block {i + 1}</Text>}
+          <View key={f.id} style={[styles.block, { borderColor: t.colors.border }, isWide && styles.blockWide]} aria-label={`Time of day ${i + 1}`}>
+            {isWide ? null : <Text weight="bold">Time of day {i + 1}</Text>}
             <View style={[styles.fields, isWide && styles.fieldsWide]}>
               <View style={styles.field}>
-                <FormTextField control={form.control} name={`blocks.${i}.from`} label={`Block ${i + 1} from`} placeholder="00:00" />
+                <FormTextField control={form.control} name={`blocks.${i}.from`} label={`Time of day ${i + 1} from`} placeholder="00:00" />
               </View>
               <View style={styles.field}>
-                <FormTextField control={form.control} name={`blocks.${i}.to`} label={`Block ${i + 1} to`} placeholder="24:00" />
+                <FormTextField control={form.control} name={`blocks.${i}.to`} label={`Time of day ${i + 1} to`} placeholder="24:00" />
               </View>
               <View style={styles.field}>
-                <FormTextField control={form.control} name={`blocks.${i}.carbRatio`} label={`Block ${i + 1} ratio`} unit="g per unit" inputMode="decimal" style={styles.input} />
+                <FormTextField control={form.control} name={`blocks.${i}.carbRatio`} label={`Time of day ${i + 1} ratio`} unit="g per unit" inputMode="decimal" style={styles.input} />
               </View>
               <View style={styles.field}>
                 <FormTextField
                   control={form.control}
                   name={`blocks.${i}.correctionFactor`}
-                  label={`Block ${i + 1} correction factor`}
+                  label={`Time of day ${i + 1} correction factor`}
                   unit={`${unit} per unit`}
                   inputMode="decimal"
                   style={styles.input}
                 />
               </View>
             </View>
-            {blocks.fields.length > 1 ? <Button variant="quiet" label={`Remove block ${i + 1}`} onPress={() => blocks.remove(i)} /> : null}
+            {blocks.fields.length > 1 ? <Button variant="quiet" label={`Remove time of day ${i + 1}`} onPress={() => blocks.remove(i)} /> : null}
           </View>
         ))}
         <View style={styles.row}>
           <Button
             variant="secondary"
-            label="Add a block"
+            label="Add a time of day"
             onPress={() => {
               const last = form.getValues(`blocks.${blocks.fields.length - 1}`);
               blocks.append({ from: last && last.to !== '24:00' ? last.to : '', to: '24:00', carbRatio: '', correctionFactor: '' });

@@ -28,8 +28,8 @@ async function addDayKind(page: Page, name: string, ratio: string, factor: strin
   await page.getByRole('link', { name: 'Add a day kind' }).first().click();
   await page.getByRole('heading', { name: 'New day kind' }).waitFor();
   await page.getByLabel('Name of this kind of day').fill(name);
-  await page.getByLabel('Block 1 ratio').fill(ratio);
-  await page.getByLabel('Block 1 correction factor').fill(factor);
+  await page.getByLabel('Time of day 1 ratio').fill(ratio);
+  await page.getByLabel('Time of day 1 correction factor').fill(factor);
   await rig.shot(page, `phone-new-day-kind-${name.toLowerCase().replace(/\W+/g, '-')}`);
   await page.getByRole('button', { name: 'Add day kind' }).click();
   await page.getByRole('heading', { name: 'Day kinds and ratios' }).waitFor();
