@@ -3,7 +3,8 @@ import { loadConfig } from './config';
 import { createSequelize } from './db';
 import { logger } from './logger';
 
-async function main() {
+/** Connects to the database and listens; SIGINT/SIGTERM close the server and the pool. */
+export async function startServer(): Promise<void> {
   const config = loadConfig();
   const sequelize = createSequelize(config.DATABASE_URL, { poolMax: config.DB_POOL_MAX, acquireTimeoutMs: config.DB_ACQUIRE_TIMEOUT_MS });
   await sequelize.authenticate();
@@ -21,7 +22,3 @@ async function main() {
   process.on('SIGTERM', shutdown);
 }
 
-main().catch((err) => {
-  logger.fatal({ err }, 'failed to start');
-  process.exit(1);
-});

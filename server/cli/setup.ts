@@ -8,7 +8,8 @@ import { ensureAdmin } from '../services/auth.service';
 import { ensureDefaultDatasets } from '../services/imports.service';
 import { runDemoStep } from '../seed/demo';
 
-async function main() {
+/** Migrates, creates the configured admin, imports the default food tables and seeds the demo; idempotent. */
+export async function prepare(): Promise<void> {
   const config = loadConfig();
   const sequelize = createSequelize(config.DATABASE_URL, { poolMax: 4 });
   try {
@@ -35,7 +36,3 @@ async function main() {
   }
 }
 
-main().catch((err) => {
-  console.error(err instanceof Error ? err.message : err);
-  process.exit(1);
-});

@@ -1,5 +1,5 @@
 #!/usr/bin/env bash
-# npm start: dependencies, PostgreSQL on loopback, migrations, default data, demo, web build, server.
+# npm start: dependencies, PostgreSQL on loopback, the web build, then one server process that migrates, imports the default data, seeds the demo and listens.
 set -euo pipefail
 ROOT="$(cd "$(dirname "${BASH_SOURCE[0]}")/../.." && pwd)"
 cd "$ROOT"
@@ -11,8 +11,7 @@ stop_all() {
   [ -z "${KEEP_DB_RUNNING:-}" ] && bash server/scripts/pg.sh stop && echo "Database stopped."
 }
 trap stop_all INT TERM EXIT
-node_modules/.bin/tsx server/cli/setup.ts
 bash server/scripts/build-web.sh
-node_modules/.bin/tsx server/index.ts &
+node_modules/.bin/tsx server/cli/start.ts &
 SERVER_PID=$!
 wait "$SERVER_PID"
