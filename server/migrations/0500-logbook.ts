@@ -21,6 +21,8 @@ export const up: Migration = async ({ context: qi }) => {
     group_key: { type: DataTypes.UUID, allowNull: true },
     entered_by_user_id: { type: DataTypes.INTEGER, allowNull: true, references: { model: 'users', key: 'id' }, onDelete: 'SET NULL' },
     // meal
+    /** What the meal was called when it was logged (batch or recipe title, food name, typed note). */
+    title: { type: DataTypes.STRING(200), allowNull: true },
     meal_source: { type: DataTypes.ENUM('portion', 'recipe', 'food', 'typed'), allowNull: true },
     portion_id: { type: DataTypes.INTEGER, allowNull: true, references: { model: 'portions', key: 'id' }, onDelete: 'SET NULL' },
     recipe_id: { type: DataTypes.INTEGER, allowNull: true, references: { model: 'recipes', key: 'id' }, onDelete: 'SET NULL' },

@@ -75,6 +75,7 @@ export function initModels(sequelize: Sequelize): void {
   PortionModel.belongsTo(BatchModel, { as: 'batch', foreignKey: 'batchId' });
   LogEntryModel.belongsTo(UserModel, { as: 'enteredBy', foreignKey: 'enteredByUserId' });
   LogEntryModel.belongsTo(PortionModel, { as: 'portion', foreignKey: 'portionId' });
+  LogEntryModel.belongsTo(DayKindModel, { as: 'dayKind', foreignKey: 'dayKindId' });
   LogEntryModel.hasMany(LogEntryChangeModel, { as: 'changes', foreignKey: 'entryId' });
   LogEntryChangeModel.belongsTo(UserModel, { as: 'changedBy', foreignKey: 'changedByUserId' });
 }

@@ -1,5 +1,8 @@
 import { DataTypes, Model } from 'sequelize';
-import type { CreationOptional, InferAttributes, InferCreationAttributes, Sequelize } from 'sequelize';
+import type { CreationOptional, InferAttributes, InferCreationAttributes, NonAttribute, Sequelize } from 'sequelize';
+import type { DayKindModel } from './day-kind.model';
+import type { PortionModel } from './portion.model';
+import type { UserModel } from './user.model';
 import type { LogEntryKind, MealSource, ReadingSource } from '../../shared/schemas/logbook';
 
 /** One thing a person recorded on a profile's timeline (UTC instant + the local date and minute it fell on). */
@@ -14,6 +17,7 @@ export class LogEntryModel extends Model<InferAttributes<LogEntryModel>, InferCr
   declare dayKindId: number | null;
   declare groupKey: string | null;
   declare enteredByUserId: number | null;
+  declare title: string | null;
   declare mealSource: MealSource | null;
   declare portionId: number | null;
   declare recipeId: number | null;
@@ -34,6 +38,9 @@ export class LogEntryModel extends Model<InferAttributes<LogEntryModel>, InferCr
   declare deletedAt: Date | null;
   declare createdAt: CreationOptional<Date>;
   declare updatedAt: CreationOptional<Date>;
+  declare enteredBy?: NonAttribute<UserModel | null>;
+  declare dayKind?: NonAttribute<DayKindModel | null>;
+  declare portion?: NonAttribute<PortionModel | null>;
 
   static initModel(sequelize: Sequelize) {
     const opt = (type: DataTypes.DataType) => ({ type, allowNull: true });
@@ -49,6 +56,7 @@ export class LogEntryModel extends Model<InferAttributes<LogEntryModel>, InferCr
         dayKindId: opt(DataTypes.INTEGER),
         groupKey: opt(DataTypes.UUID),
         enteredByUserId: opt(DataTypes.INTEGER),
+        title: opt(DataTypes.STRING(200)),
         mealSource: opt(DataTypes.ENUM('portion', 'recipe', 'food', 'typed')),
         portionId: opt(DataTypes.INTEGER),
         recipeId: opt(DataTypes.INTEGER),
