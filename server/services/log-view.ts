@@ -1,4 +1,5 @@
 import type { Includeable } from 'sequelize';
+import { minuteToClock } from '../../shared/compute/local-time';
 import { glucoseFromMmol } from '../../shared/compute/units';
 import type { GlucoseUnit } from '../../shared/schemas/units';
 import type { LogEntry } from '../../shared/schemas/logbook';
@@ -12,8 +13,6 @@ export const LOG_ENTRY_INCLUDE: Includeable[] = [
   { model: PortionModel, as: 'portion', attributes: ['id', 'code'] },
 ];
 
-const hhmm = (minute: number) => `${String(Math.floor(minute / 60)).padStart(2, '0')}:${String(minute % 60).padStart(2, '0')}`;
-
 /** One stored entry (loaded with LOG_ENTRY_INCLUDE) as the API answers it, glucose in the profile's unit. */
 export function toLogEntry(row: LogEntryModel, glucoseUnit: GlucoseUnit, changed = false): LogEntry {
   const isDose = row.kind === 'rapid_dose' || row.kind === 'long_dose';
@@ -23,7 +22,7 @@ export function toLogEntry(row: LogEntryModel, glucoseUnit: GlucoseUnit, changed
     kind: row.kind,
     occurredAt: row.occurredAt.toISOString(),
     localDate: row.localDate,
-    localTime: hhmm(row.localMinute),
+    localTime: minuteToClock(row.localMinute),
     timeZone: row.timeZone,
     dayKindId: row.dayKindId,
     dayKindName: row.dayKind?.name ?? null,
