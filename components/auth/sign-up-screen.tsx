@@ -15,6 +15,7 @@ import { Text } from '../ui/text';
 import { TextLink } from '../ui/text-link';
 import { AuthCard } from './auth-card';
 import { safeNext } from './session';
+import { browserTimeZone } from './browser-time-zone';
 
 export function SignUpScreen() {
   const { next } = useLocalSearchParams<{ next?: string }>();
@@ -27,7 +28,7 @@ export function SignUpScreen() {
 
   const onSubmit = form.handleSubmit((values) => {
     setFormError(undefined);
-    signUp.mutate(values, {
+    signUp.mutate({ ...values, timeZone: browserTimeZone() }, {
       onSuccess: () => router.replace(safeNext(next)),
       onError: (error) => setFormError(applyServerErrors(error, form.setError, ['email', 'displayName', 'password', 'preferredFoodTable'])),
     });

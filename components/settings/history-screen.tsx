@@ -19,6 +19,7 @@ const WORDS: Record<string, string> = {
   carbBasis: 'carbohydrate basis',
   carbUnit: 'carbohydrate unit',
   preferredFoodTable: 'food table shown first',
+  timeZone: 'time zone',
   penIncrement: 'pen step',
   rounding: 'rounding',
   maxDoseUnits: 'largest single dose',

@@ -21,7 +21,7 @@ import { FormChoiceGroup } from '../ui/form-choice-group';
 
 const GLUCOSE_FIELDS = ['targetLow', 'targetHigh', 'correctionTarget', 'hypoThreshold', 'veryHigh'] as const;
 export const SETTINGS_FIELDS: FieldPath<ProfileSettingsFormValues>[] = [
-  'glucoseUnit', 'carbBasis', 'carbUnit', 'preferredFoodTable', 'penIncrement', 'rounding', 'maxDoseUnits', 'actionTimeHours', 'activeInsulinModel', ...GLUCOSE_FIELDS,
+  'glucoseUnit', 'carbBasis', 'carbUnit', 'preferredFoodTable', 'timeZone', 'penIncrement', 'rounding', 'maxDoseUnits', 'actionTimeHours', 'activeInsulinModel', ...GLUCOSE_FIELDS,
   'allowNegativeCorrection', 'iobConvention',
   ...EXERCISE_INTENSITIES.flatMap((k) => [`exerciseReductions.${k}.min30`, `exerciseReductions.${k}.min60`] as FieldPath<ProfileSettingsFormValues>[]),
 ];
@@ -95,6 +95,13 @@ export function UnitsSafetyForm({
           label="Food table shown first in search"
           choices={PREFERRED_FOOD_TABLE_CHOICES}
           hint="Both tables are always searched; this one comes first when both have the food."
+        />
+        <FormTextField
+          control={form.control}
+          name="timeZone"
+          label="Time zone"
+          autoCapitalize="none"
+          hint="Where the day starts for your logbook: it decides the day, the kind of day and the time of day whose ratio applies. A name such as Europe/London."
         />
       </Card>
       <Card>

@@ -23,6 +23,7 @@ function formDefaults(view: ProfileSettingsView): ProfileSettingsFormValues {
     carbBasis: view.carbBasis,
     carbUnit: view.carbUnit,
     preferredFoodTable: view.preferredFoodTable,
+    timeZone: view.timeZone,
     penIncrement: s?.penIncrement ?? null,
     rounding: s?.rounding ?? 'down',
     maxDoseUnits: str(s?.maxDoseUnits),

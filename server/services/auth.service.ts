@@ -49,6 +49,7 @@ export async function getMe(userId: number): Promise<Me> {
         carbBasis: profile.carbBasis,
         carbUnit: profile.carbUnit,
         preferredFoodTable: profile.preferredFoodTable,
+        timeZone: profile.timeZone,
       };
     })
     .sort((a, b) => order[a.access] - order[b.access]);
@@ -72,7 +73,7 @@ export async function signUp(config: Config, input: SignUpInput, role: UserRole 
       );
       if (role === 'member') {
         const profile = await ProfileModel.create(
-          { displayName: input.displayName, ownerUserId: created.id, preferredFoodTable: input.preferredFoodTable ?? 'usda_sr28' },
+          { displayName: input.displayName, ownerUserId: created.id, preferredFoodTable: input.preferredFoodTable ?? 'usda_sr28', timeZone: input.timeZone ?? 'UTC' },
           { transaction },
         );
         await ProfileAccessModel.create(

@@ -1,6 +1,9 @@
+import { Op } from 'sequelize';
 import type { DayKindRatios, DoseSettings } from '../../shared/compute/dose';
+import { minuteToClock } from '../../shared/compute/local-time';
+import type { LoggedDose } from '../../shared/schemas/dose';
 import { AppError } from '../errors';
-import { DayKindModel, ProfileModel, ProfileSettingsModel } from '../models';
+import { DayKindModel, LogEntryModel, ProfileModel, ProfileSettingsModel } from '../models';
 import { withBlocks } from './day-kinds.service';
 import { loadProfile } from './profiles.service';
 
@@ -40,4 +43,19 @@ export async function loadDoseContext(
     })),
   };
   return { profile, settings, dayKind };
+}
+
+/**
+ * Rapid-acting doses logged on the profile within the action time before `at` (not deleted), oldest first: what the
+ * dose check counts as insulin still active, listed with their times.
+ */
+export async function loggedRapidDoses(profileId: number, at: Date, actionTimeHours: number): Promise<LoggedDose[]> {
+  const from = new Date(at.getTime() - actionTimeHours * 3_600_000);
+  const rows = await LogEntryModel.findAll({
+    where: { profileId, kind: 'rapid_dose', deletedAt: null, occurredAt: { [Op.gt]: from, [Op.lte]: at } },
+    order: [['occurredAt', 'ASC'], ['id', 'ASC']],
+  });
+  return rows
+    .filter((r) => r.units != null && r.units > 0)
+    .map((r) => ({ entryId: r.id, units: r.units!, takenAt: r.occurredAt.toISOString(), localDate: r.localDate, localTime: minuteToClock(r.localMinute) }));
 }

@@ -1,13 +1,24 @@
 import { computeDose } from '../../shared/compute/dose';
 import { glucoseToMmol } from '../../shared/compute/units';
 import type { DoseRequest, DoseSuggestion } from '../../shared/schemas/dose';
+import type { GlucoseUnit } from '../../shared/schemas/units';
 import { timeToMinutes } from '../../shared/schemas/profile-settings';
 import { AppError } from '../errors';
 import { dayKindIdForDate } from './day-kind-days.service';
-import { loadDoseContext } from './dose-context.service';
+import { loadDoseContext, loggedRapidDoses } from './dose-context.service';
+import { DOSE_CAUTION, DOSE_ENGINE_VERSION } from '../../shared/compute/dose-caution';
 
 /** Plausible glucose readings, mmol/L; anything outside is a typing slip, not a reading. */
 const GLUCOSE_READING_MMOL = [1, 40] as const;
+
+/** A typed glucose reading in mmol/L, or a 422 on `field` when it is outside what a meter shows. */
+export function readingToMmol(value: number, unit: GlucoseUnit, field = 'glucose'): number {
+  const mmol = glucoseToMmol(value, unit);
+  if (mmol < GLUCOSE_READING_MMOL[0] || mmol > GLUCOSE_READING_MMOL[1]) {
+    throw AppError.validation({ [field]: [`That reading is outside what a meter shows. Check the number and the unit (${unit === 'mmol_l' ? 'mmol/L' : 'mg/dL'}).`] });
+  }
+  return mmol;
+}
 
 /**
  * Computes a dose suggestion for a profile with the shared engine (nothing is saved). Glucose comes in
@@ -19,18 +30,16 @@ export async function suggestDose(profileId: number, input: DoseRequest, now: Da
   const unit = input.glucoseUnit ?? profile.glucoseUnit;
   const mealAt = input.mealAt ? new Date(input.mealAt) : now;
   const glucoseTakenAt = input.glucose != null ? (input.glucoseTakenAt ? new Date(input.glucoseTakenAt) : now) : null;
-  if (input.glucose != null) {
-    const mmol = glucoseToMmol(input.glucose, unit);
-    if (mmol < GLUCOSE_READING_MMOL[0] || mmol > GLUCOSE_READING_MMOL[1]) {
-      throw AppError.validation({ glucose: [`That reading is outside what a meter shows. Check the number and the unit (${unit === 'mmol_l' ? 'mmol/L' : 'mg/dL'}).`] });
-    }
-  }
+  if (input.glucose != null) readingToMmol(input.glucose, unit);
+  // Insulin still active: the doses logged in the action time, plus any typed ones given elsewhere.
+  const logged = settings ? await loggedRapidDoses(profileId, mealAt, settings.actionTimeHours) : [];
+  const typed = (input.earlierDoses ?? []).map((d) => ({ units: d.units, takenAt: new Date(d.takenAt).getTime() }));
   const result = computeDose(settings, dayKind, {
     carbsGrams: input.carbsGrams,
     glucose: input.glucose != null ? { value: input.glucose, unit, takenAt: glucoseTakenAt!.getTime() } : null,
     mealAt: mealAt.getTime(),
     mealMinuteOfDay: timeToMinutes(input.localTime),
-    earlierDoses: (input.earlierDoses ?? []).map((d) => ({ units: d.units, takenAt: new Date(d.takenAt).getTime() })),
+    earlierDoses: [...logged.map((d) => ({ units: d.units, takenAt: Date.parse(d.takenAt) })), ...typed],
     exercise: input.exercise ?? null,
     split: input.split ?? null,
     fatGrams: input.fatGrams ?? null,
@@ -38,6 +47,9 @@ export async function suggestDose(profileId: number, input: DoseRequest, now: Da
   });
   return {
     ...result,
+    caution: { ...DOSE_CAUTION },
+    engineVersion: DOSE_ENGINE_VERSION,
+    loggedDoses: logged,
     glucoseUnit: profile.glucoseUnit,
     carbBasis: profile.carbBasis,
     carbUnit: profile.carbUnit,

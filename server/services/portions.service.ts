@@ -39,7 +39,7 @@ export function toPortion(p: PortionModel, units: Units, understated = false): P
  * Finds a portion by its typed or scanned code for someone with access to its profile. Strangers get the
  * same 404 as a code that does not exist; `action` names what they want to do with it.
  */
-async function findPortionForUser(rawCode: string, userId: number, action: ProfileAction = 'kitchen.read') {
+export async function findPortionForUser(rawCode: string, userId: number, action: ProfileAction = 'kitchen.read') {
   const code = normalizePortionCode(rawCode);
   if (!code) throw AppError.notFound('portion');
   const portion = await PortionModel.findOne({ where: { code }, include: [{ model: BatchModel, as: 'batch' }] });

@@ -11,6 +11,7 @@ function toView(profile: ProfileModel, row: ProfileSettingsModel | null): Profil
     carbBasis: profile.carbBasis,
     carbUnit: profile.carbUnit,
     preferredFoodTable: profile.preferredFoodTable,
+    timeZone: profile.timeZone,
     settings: row && {
       penIncrement: row.penIncrement,
       rounding: row.rounding,
@@ -45,7 +46,7 @@ export async function updateSettings(profileId: number, userId: number, input: P
     const before = toView(profile, existing);
     const u = input.glucoseUnit;
     await profile.update(
-      { glucoseUnit: u, carbBasis: input.carbBasis, carbUnit: input.carbUnit, preferredFoodTable: input.preferredFoodTable ?? profile.preferredFoodTable },
+      { glucoseUnit: u, carbBasis: input.carbBasis, carbUnit: input.carbUnit, preferredFoodTable: input.preferredFoodTable ?? profile.preferredFoodTable, timeZone: input.timeZone ?? profile.timeZone },
       { transaction },
     );
     const values = {

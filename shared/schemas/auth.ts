@@ -1,5 +1,5 @@
 import { z } from 'zod';
-import { carbBasisSchema, carbUnitSchema, glucoseUnitSchema, preferredFoodTableSchema } from './units';
+import { carbBasisSchema, carbUnitSchema, glucoseUnitSchema, preferredFoodTableSchema, timeZoneSchema } from './units';
 
 export const userRoleSchema = z.enum(['member', 'clinician', 'admin']);
 export type UserRole = z.infer<typeof userRoleSchema>;
@@ -29,6 +29,8 @@ export const signUpInputSchema = z.object({
   password: newPasswordSchema,
   /** Which food table search shows first; USDA SR28 when not given. */
   preferredFoodTable: preferredFoodTableSchema.optional(),
+  /** The browser's time zone (IANA name); UTC when not given. */
+  timeZone: timeZoneSchema.optional(),
 });
 export type SignUpInput = z.infer<typeof signUpInputSchema>;
 
@@ -61,6 +63,7 @@ export const profileSummarySchema = z.object({
   carbBasis: carbBasisSchema,
   carbUnit: carbUnitSchema,
   preferredFoodTable: preferredFoodTableSchema,
+  timeZone: z.string(),
 });
 export type ProfileSummary = z.infer<typeof profileSummarySchema>;
 

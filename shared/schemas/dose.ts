@@ -54,8 +54,17 @@ export const doseRequestSchema = z
   });
 export type DoseRequest = z.infer<typeof doseRequestSchema>;
 
-/** What the API answers: the engine's result plus the profile's units for display. */
+/** A rapid-acting dose from the logbook that the dose check counted as still active. */
+export type LoggedDose = { entryId: number; units: number; takenAt: string; localDate: string; localTime: string };
+
+/**
+ * What the API answers: the engine's result (every part, warnings), the profile's units for display, the standing
+ * caution with its version, the engine version, and the logged doses counted as insulin still active.
+ */
 export type DoseSuggestion = DoseResult & {
+  caution: { version: string; title: string; text: string };
+  engineVersion: string;
+  loggedDoses: LoggedDose[];
   glucoseUnit: z.infer<typeof glucoseUnitSchema>;
   carbBasis: z.infer<typeof carbBasisSchema>;
   carbUnit: z.infer<typeof carbUnitSchema>;

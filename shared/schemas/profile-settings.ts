@@ -3,7 +3,7 @@ import { positiveIdSchema, profileIdParamSchema } from './common';
 import { ACTIVE_INSULIN_MODELS, RAPID_PEAK_MINUTES } from '../compute/active-insulin';
 import { EXERCISE_INTENSITIES } from '../compute/exercise';
 import { formatGlucose, glucoseToMmol } from '../compute/units';
-import { carbBasisSchema, carbUnitSchema, glucoseUnitSchema, preferredFoodTableSchema, type GlucoseUnit, type PreferredFoodTable } from './units';
+import { carbBasisSchema, carbUnitSchema, glucoseUnitSchema, preferredFoodTableSchema, timeZoneSchema, type GlucoseUnit, type PreferredFoodTable } from './units';
 
 /** A number from JSON or a form field ("4,5" accepted); empty is missing. */
 export function numberField(required: string) {
@@ -89,6 +89,8 @@ export const profileSettingsInputSchema = z
     carbUnit: carbUnitSchema,
     /** Which food table search shows first; unchanged when not given. */
     preferredFoodTable: preferredFoodTableSchema.optional(),
+    /** The profile's IANA time zone; unchanged when not given. */
+    timeZone: timeZoneSchema.optional(),
     penIncrement: numberField('Enter the pen increment.').refine((v) => [0.5, 1].includes(v), 'The pen increment must be 0.5 or 1 unit.'),
     rounding: roundingSchema,
     maxDoseUnits: numberField('Enter the maximum single dose.').refine((v) => v >= 1 && v <= 100, 'Use a maximum from 1 to 100 units.'),
@@ -127,7 +129,8 @@ export type ProfileSettingsView = {
   carbBasis: z.infer<typeof carbBasisSchema>;
   carbUnit: z.infer<typeof carbUnitSchema>;
   preferredFoodTable: PreferredFoodTable;
-  settings: Omit<ProfileSettingsInput, 'glucoseUnit' | 'carbBasis' | 'carbUnit' | 'preferredFoodTable'> | null;
+  timeZone: string;
+  settings: Omit<ProfileSettingsInput, 'glucoseUnit' | 'carbBasis' | 'carbUnit' | 'preferredFoodTable' | 'timeZone'> | null;
   updatedAt: string | null;
 };
 
