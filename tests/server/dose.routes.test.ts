@@ -2,6 +2,8 @@ import request from 'supertest';
 import { ProfileAccessModel } from '../../server/models';
 import { bearer, signUpUser, useTestApp } from '../helpers/api';
 import { TEST_DOSE_SETTINGS } from '../helpers/dose-settings';
+import { activeInsulin } from '../../shared/compute/active-insulin';
+import { DOSE_CAUTION, DOSE_ENGINE_VERSION } from '../../shared/compute/dose-caution';
 
 const ctx = useTestApp();
 
@@ -136,5 +138,68 @@ describe('POST /api/profiles/:profileId/dose-suggestions', () => {
 
     expect(res.status).toBe(400);
     expect(res.body.error.fieldErrors.dayKindId).toBeDefined();
+  });
+});
+
+describe('dose suggestions fed by the logbook', () => {
+  it('counts the rapid-acting doses logged in the action time as insulin still active, lists them, and adds typed ones', async () => {
+    const p = await setUpProfile('Logged');
+    const at = Date.now();
+    const ago = (min: number) => new Date(at - min * 60_000).toISOString();
+    const log = (units: number, minutesAgo: number) =>
+      request(ctx.app).post(`/api/profiles/${p.profileId}/log-entries`).set(bearer(p.token)).send({ kind: 'rapid_dose', units, occurredAt: ago(minutesAgo) }).expect(201);
+    await log(4, 60);
+    await log(2, 120);
+    await log(5, 300); // outside the 4-hour action time: not counted
+    const deleted = await log(3, 30);
+    await request(ctx.app).delete(`/api/profiles/${p.profileId}/log-entries/${deleted.body.entries[0].id}`).set(bearer(p.token)).expect(200);
+
+    const res = await request(ctx.app)
+      .post(`/api/profiles/${p.profileId}/dose-suggestions`)
+      .set(bearer(p.token))
+      .send({ carbsGrams: 40, glucose: 12, glucoseTakenAt: new Date(at).toISOString(), mealAt: new Date(at).toISOString(), localTime: '08:00' });
+    const withTyped = await request(ctx.app)
+      .post(`/api/profiles/${p.profileId}/dose-suggestions`)
+      .set(bearer(p.token))
+      .send({ carbsGrams: 40, mealAt: new Date(at).toISOString(), localTime: '08:00', earlierDoses: [{ units: 2, takenAt: ago(120) }] });
+
+    // Straight line over 4 hours (HSCNI: 50 % still active at 2 hours): 4 U × (1 − 60/240) + 2 U × (1 − 120/240) = 3 + 1 = 4 U.
+    expect(res.body.breakdown.activeInsulinUnits).toBeCloseTo(4, 6);
+    expect(res.body.loggedDoses.map((d: { units: number; takenAt: string }) => [d.units, d.takenAt])).toEqual([[2, ago(120)], [4, ago(60)]]);
+    expect(res.body.loggedDoses[0].localTime).toMatch(/^\d\d:\d\d$/);
+    expect(res.body.warnings.map((w: { code: string }) => w.code)).toContain('recent_insulin');
+    // A typed dose given elsewhere adds its own share: + 2 U × 0.5 = 5 U.
+    expect(withTyped.body.breakdown.activeInsulinUnits).toBeCloseTo(5, 6);
+  });
+
+  it('equals activeInsulin() of the logged doses on the curve model too', async () => {
+    const p = await setUpProfile('Curve');
+    await request(ctx.app).put(`/api/profiles/${p.profileId}/settings`).set(bearer(p.token)).send({ ...SETTINGS, activeInsulinModel: 'curve' }).expect(200);
+    const at = Date.now();
+    const doses = [{ units: 3.5, takenAt: at - 45 * 60_000 }, { units: 1, takenAt: at - 150 * 60_000 }];
+    for (const d of doses) {
+      await request(ctx.app).post(`/api/profiles/${p.profileId}/log-entries`).set(bearer(p.token))
+        .send({ kind: 'rapid_dose', units: d.units, occurredAt: new Date(d.takenAt).toISOString() }).expect(201);
+    }
+
+    const res = await request(ctx.app).post(`/api/profiles/${p.profileId}/dose-suggestions`).set(bearer(p.token))
+      .send({ carbsGrams: 40, mealAt: new Date(at).toISOString(), localTime: '08:00' });
+
+    expect(res.body.breakdown.activeInsulinUnits).toBeCloseTo(activeInsulin(doses, at, 4, 'curve'), 9);
+  });
+
+  it('carries the standing caution, its version and the engine version in every answer, even without settings', async () => {
+    const s = await signUpUser(ctx.app, 'Caution');
+    const p = await setUpProfile('Caution2');
+
+    const none = await request(ctx.app).post(`/api/profiles/${s.me.profiles[0].id}/dose-suggestions`).set(bearer(s.token)).send({ carbsGrams: 60, localTime: '12:00' });
+    const ok = await request(ctx.app).post(`/api/profiles/${p.profileId}/dose-suggestions`).set(bearer(p.token)).send({ carbsGrams: 60, localTime: '12:00' });
+
+    for (const res of [none, ok]) {
+      expect(res.body.caution).toEqual({ version: DOSE_CAUTION.version, title: 'A calculation, not medical advice', text: DOSE_CAUTION.text });
+      expect(res.body.caution.text).toMatch(/must come from your diabetes team/);
+      expect(res.body.engineVersion).toBe(DOSE_ENGINE_VERSION);
+    }
+    expect(ok.body.breakdown).toMatchObject({ carbsGrams: 60, carbRatio: 10, mealUnits: 6 });
   });
 });
