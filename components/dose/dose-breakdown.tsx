@@ -122,6 +122,11 @@ export function DoseBreakdownView({ result }: { result: DoseSuggestion }) {
           <Line label="Rounded to your pen step" amount={formatDoseUnits(b.roundedUnits)} />
           {b.capped ? <Line label="Capped at your largest single dose" amount={formatDoseUnits(b.doseUnits)} /> : null}
         </View>
+        {result.loggedDoses.length ? (
+          <Text color="textMuted" aria-label="Doses from the logbook">
+            From the logbook, still active: {result.loggedDoses.map((d) => `${formatDoseUnits(d.units)} at ${d.localTime}`).join(', ')}.
+          </Text>
+        ) : null}
         <Text color="textMuted">
           Active insulin model: {ACTIVE_INSULIN_MODEL_WORDS[b.activeInsulinModel].toLowerCase()} ({b.actionTimeHours} hours), from your settings.
         </Text>

@@ -9,6 +9,7 @@ import { Text } from '../ui/text';
 import { DoseBreakdownView } from './dose-breakdown';
 import { DoseCaution } from './dose-caution';
 import { DoseExtraFields, DoseMealFields } from './dose-form-fields';
+import { LogMealPanel } from './log-meal-panel';
 import { useDoseCheck, type DoseCheckParams } from './use-dose-check';
 
 export type { DoseCheckParams };
@@ -25,7 +26,7 @@ export function DoseCheckScreen(params: DoseCheckParams) {
   const ready = !!settings.data.settings && kinds.data.length > 0;
   const notWorkedOut = formError ?? form.formState.errors.root?.message;
   return (
-    <Screen title="Check a dose" subtitle={`For ${profile.displayName}`} backHref="/">
+    <Screen title={params.log ? 'Log a meal' : 'Check a dose'} subtitle={`For ${profile.displayName}`} backHref="/">
       {!ready ? (
         <Callout tone="caution" title="No dose can be suggested yet">
           <Text>Carbwright needs the units and safety limits and at least one day kind with the ratios from your diabetes team.</Text>
@@ -60,6 +61,16 @@ export function DoseCheckScreen(params: DoseCheckParams) {
         <View ref={resultRef} style={[styles.column, isWide && styles.columnWide]} aria-live="polite">
           {isWide ? <DoseCaution /> : null}
           {suggest.data ? <DoseBreakdownView result={suggest.data} /> : <Text color="textMuted">The suggestion appears here with every part of the sum.</Text>}
+          {suggest.data && suggest.variables && profile.access !== 'clinician' ? (
+            <LogMealPanel
+              key={suggest.submittedAt}
+              profileId={profile.id}
+              request={suggest.variables}
+              suggestion={suggest.data}
+              portionCode={picked?.code}
+              label={picked?.label}
+            />
+          ) : null}
         </View>
       </View>
     </Screen>

@@ -14,10 +14,11 @@ import { applyServerErrors } from '../ui/form-errors';
 import { scrollIntoView } from '../ui/scroll-into-view';
 import { doseFormDefaults, doseFormSchema, toDoseRequest, type DoseFormValues, type DoseRequestContext } from './dose-request';
 
-export type DoseCheckParams = { carbs?: string; portion?: string; label?: string };
+/** `log`: the log-a-meal flow (the reading counts as taken now unless changed; the result offers Save). */
+export type DoseCheckParams = { carbs?: string; portion?: string; label?: string; log?: string };
 
 /** Everything the dose check needs: its data, the one form, the portion lookup and the server's answer. */
-export function useDoseCheck({ carbs, portion, label }: DoseCheckParams) {
+export function useDoseCheck({ carbs, portion, label, log }: DoseCheckParams) {
   const { profile, isPending } = useActiveProfile();
   const settings = useProfileSettings(profile?.id);
   const kinds = useDayKinds(profile?.id);
@@ -31,7 +32,7 @@ export function useDoseCheck({ carbs, portion, label }: DoseCheckParams) {
   const contextRef = useRef<Omit<DoseRequestContext, 'now'>>({ glucoseUnit: 'mmol_l', date: today });
   contextRef.current = { glucoseUnit: profile?.glucoseUnit ?? 'mmol_l', date: today };
   const resolver = useMemo(() => zodResolver(doseFormSchema(() => ({ ...contextRef.current, now: Date.now() }))), []);
-  const form = useForm<DoseFormValues, unknown, DoseRequest>({ resolver, defaultValues: doseFormDefaults(carbs, new Date()) });
+  const form = useForm<DoseFormValues, unknown, DoseRequest>({ resolver, defaultValues: { ...doseFormDefaults(carbs, new Date()), ...(log ? { glucoseMinutesAgo: '0' } : {}) } });
 
   const defaultKind = todayKind.isPending ? null : (todayKind.data?.[0]?.dayKindId ?? kinds.data?.find((k) => k.isDefault)?.id ?? null);
   useEffect(() => {

@@ -14,7 +14,7 @@ import { dateWord, gramsText, localToday, shelfStatus, shortDate } from './kitch
 import { usePortion, useSetPortionStatus } from '../api/portions';
 import { doseCheckHref } from '../dose/dose-href';
 
-/** How long the portion page offers to undo "Mark eaten" or "Thrown away" (ms); the batch page can always undo. */
+/** How long the portion page offers to undo "Thrown away" (ms); the batch page can always undo. Eating is logged (with its own undo). */
 export const UNDO_MS = 10_000;
 
 /** The page a label's QR code opens: the portion's numbers, its dates, and what to do with it. */
@@ -27,7 +27,7 @@ export function PortionScreen({ code }: { code: string }) {
     const timer = setTimeout(() => setUndoable(false), UNDO_MS);
     return () => clearTimeout(timer);
   }, [undoable]);
-  const markAs = (status: 'eaten' | 'discarded' | 'available') =>
+  const markAs = (status: 'discarded' | 'available') =>
     mark.mutate({ code: portion.data!.code, status }, { onSuccess: () => setUndoable(status !== 'available') });
   if (portion.isPending) return <LoadingState />;
   if (portion.isError) return <ErrorState error={portion.error} onRetry={portion.refetch} />;
@@ -82,8 +82,8 @@ export function PortionScreen({ code }: { code: string }) {
             </>
           )}
           <View style={styles.row}>
-            <Button variant="secondary" label="Mark eaten" loading={mark.isPending} onPress={() => markAs('eaten')} />
-            <Button variant="danger" label="Thrown away" onPress={() => markAs('discarded')} />
+            {shelf.tone === 'danger' ? null : <Button variant="secondary" label="Log this meal" onPress={() => router.push(doseCheckHref({ code: p.code, carbGrams: p.carb.grams, label: p.recipeTitle }, true))} />}
+            <Button variant="danger" label="Thrown away" loading={mark.isPending} onPress={() => markAs('discarded')} />
           </View>
         </Card>
       ) : null}

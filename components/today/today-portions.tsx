@@ -51,8 +51,8 @@ function PortionRow({ row, unit, today }: { row: Row; unit: CarbUnit; today: str
           {carb}
         </Text>
         {row.carbGrams != null && shelf.tone !== 'danger' ? (
-          <Link href={doseCheckHref({ code: row.code, carbGrams: row.carbGrams, label: row.title })} asChild>
-            <Button variant="secondary" label="Check a dose" aria-label={`Check a dose for ${row.title} ${formatPortionCode(row.code)}`} />
+          <Link href={doseCheckHref({ code: row.code, carbGrams: row.carbGrams, label: row.title }, true)} asChild>
+            <Button variant="secondary" label="Log this meal" aria-label={`Log this meal: ${row.title} ${formatPortionCode(row.code)}`} />
           </Link>
         ) : null}
       </View>

@@ -18,10 +18,12 @@ type Saving = { profile: ProfileModel; userId: number; groupKey: string; transac
 
 /** Entries may be logged up to this long ahead of now (clock drift between devices), no more. */
 const FUTURE_SLACK_MS = 5 * 60_000;
+/** The later part of a two-part dose may be logged at its planned time, at most 8 hours ahead (the split's limit). */
+const LATER_PART_MS = 8 * 3_600_000;
 
-function instant(iso: string | undefined, now: Date, field = 'occurredAt'): Date {
+function instant(iso: string | undefined, now: Date, field = 'occurredAt', slack = FUTURE_SLACK_MS): Date {
   const at = iso ? new Date(iso) : now;
-  if (at.getTime() > now.getTime() + FUTURE_SLACK_MS) throw AppError.validation({ [field]: ['That time is in the future.'] });
+  if (at.getTime() > now.getTime() + slack) throw AppError.validation({ [field]: ['That time is in the future.'] });
   return at;
 }
 
@@ -136,7 +138,7 @@ export async function logMeal(profileId: number, userId: number, input: LogMealI
       rows.push(await insertEntry(s, 'reading', instant(input.reading.occurredAt, now, 'reading.occurredAt'), { glucoseMmol: mmol, readingSource: 'typed' }));
     }
     for (const [i, dose] of (input.doses ?? []).entries()) {
-      const at = instant(dose.occurredAt, now, `doses.${i}.occurredAt`);
+      const at = instant(dose.occurredAt, now, `doses.${i}.occurredAt`, i > 0 ? LATER_PART_MS : FUTURE_SLACK_MS);
       rows.push(await insertEntry(s, 'rapid_dose', at, { units: dose.units, suggestion: input.suggestion ?? null }));
     }
     return rows;

@@ -24,19 +24,19 @@ function portion(extra: Partial<PortionDetail> = {}): PortionDetail {
 }
 
 describe('portion page', () => {
-  it('offers Undo for a few seconds after "Mark eaten", and Undo sends the portion back to not eaten yet', async () => {
+  it('offers Undo for a few seconds after "Thrown away", and Undo sends the portion back to not eaten yet', async () => {
     const api = fakeApi({
       'GET /portions/ABC234': [200, portion()],
       'POST /portions/ABC234/status': (body) => [200, portion({ status: (body as { status: PortionDetail['status'] }).status, statusChangedAt: '2026-03-11T08:00:00.000Z' })],
     });
     renderSignedIn(() => <PortionScreen code="ABC234" />);
 
-    fireEvent.click(await screen.findByRole('button', { name: 'Mark eaten' }));
+    fireEvent.click(await screen.findByRole('button', { name: 'Thrown away' }));
     fireEvent.click(await screen.findByRole('button', { name: 'Undo' }));
 
-    await screen.findByRole('button', { name: 'Mark eaten' });
+    await screen.findByRole('button', { name: 'Log this meal' });
     const sent = api.mock.calls.filter(([, init]) => init?.method === 'POST').map(([, init]) => JSON.parse(String(init!.body)));
-    expect(sent).toEqual([{ status: 'eaten' }, { status: 'available' }]);
+    expect(sent).toEqual([{ status: 'discarded' }, { status: 'available' }]);
   });
 
   it('takes the Undo away after UNDO_MS', async () => {
@@ -60,12 +60,14 @@ describe('portion page', () => {
     { name: 'a fridge portion within its use-by date', extra: {}, dose: true },
     { name: 'a fridge portion past its use-by date', extra: { useBy: addDays(-2) }, dose: false },
     { name: 'a freezer portion past its best-quality date (safe while frozen)', extra: { useBy: addDays(-2), storage: 'freezer' as const }, dose: true },
-  ])('offers a dose check for $name: $dose', async ({ extra, dose }) => {
+  ])('offers a dose check and "Log this meal" for $name: $dose', async ({ extra, dose }) => {
     fakeApi({ 'GET /portions/ABC234': [200, portion(extra)] });
     renderSignedIn(() => <PortionScreen code="ABC234" />);
 
-    await screen.findByRole('button', { name: 'Mark eaten' });
+    await screen.findByRole('button', { name: 'Thrown away' });
 
     expect(screen.queryByRole('button', { name: 'Check a dose for this' }) != null).toBe(dose);
+    expect(screen.queryByRole('button', { name: 'Log this meal' }) != null).toBe(dose);
+    expect(screen.queryByRole('button', { name: 'Mark eaten' })).toBeNull();
   });
 });
