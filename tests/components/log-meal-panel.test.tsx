@@ -30,7 +30,7 @@ describe('LogMealPanel', () => {
     expect((screen.getByLabelText(/Later part/) as HTMLInputElement).value).toBe('1.5');
     fireEvent.change(now, { target: { value: '2' } });
     fireEvent.click(screen.getByRole('button', { name: 'Save to the logbook' }));
-    await screen.findByText('Saved in the logbook');
+    await screen.findByText(/Saved in the logbook/);
     fireEvent.click(screen.getByRole('button', { name: 'Undo' }));
     await screen.findByText(/Undone/);
 
@@ -52,6 +52,6 @@ describe('LogMealPanel', () => {
     fireEvent.click(await screen.findByRole('button', { name: 'Save to the logbook' }));
 
     await waitFor(() => expect(screen.getByText(/already been eaten/)).toBeInTheDocument());
-    expect(screen.getByText('Not saved')).toBeInTheDocument();
+    expect(screen.getByText(/Not saved/)).toBeInTheDocument();
   });
 });

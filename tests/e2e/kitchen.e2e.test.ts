@@ -119,8 +119,10 @@ describe('the kitchen in the browser', () => {
     await page.getByText('Carbohydrate in this portion').waitFor();
     await page.getByRole('button', { name: 'Check a dose for this' }).waitFor();
     await rig.shot(page, 'phone-portion');
-    await page.getByRole('button', { name: 'Mark eaten' }).click();
-    await page.getByText('Already eaten').waitFor();
+    await page.getByRole('button', { name: 'Log this meal' }).click();
+    await page.getByRole('button', { name: 'Check a dose', exact: true }).click();
+    await page.getByRole('button', { name: 'Save to the logbook' }).click();
+    await page.getByText('Saved in the logbook').waitFor();
   });
 
   it('shows the inventory beside the code finder and containers on a wide screen', async () => {

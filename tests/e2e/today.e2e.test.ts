@@ -91,7 +91,7 @@ describe('Today in the browser', () => {
     // By hand: available carbohydrate 67.7 − 10.1 = 57.6 g per 100 g (USDA SR Legacy, check-values §11);
     // 150 g × 57.6 / 100 ÷ 3 portions = 28.8 g per portion, shown to whole grams at 10 g and above: "29 g".
     await page.getByText('29 g', { exact: true }).first().waitFor();
-    await expect(page.getByRole('link', { name: /^Check a dose for Porridge base/ }).count()).resolves.toBe(3);
+    await expect(page.getByRole('link', { name: /^Log this meal: Porridge base/ }).count()).resolves.toBe(3);
     await rig.shot(page, 'phone-today-rest');
 
     await page.getByRole('radio', { name: 'Long ride' }).click();
@@ -101,8 +101,8 @@ describe('Today in the browser', () => {
     const days = await request(rig.baseUrl).get(`/api/profiles/${sam.profileId}/days?from=${localToday()}&to=${localToday()}`).set(sam.auth);
     expect(days.body.days[0]).toMatchObject({ dayKindName: 'Long ride', isSet: true });
 
-    await page.getByRole('link', { name: /^Check a dose for Porridge base/ }).first().click();
-    await page.getByRole('heading', { name: 'Check a dose' }).waitFor();
+    await page.getByRole('link', { name: /^Log this meal: Porridge base/ }).first().click();
+    await page.getByRole('heading', { name: 'Log a meal' }).waitFor();
     await page.getByText('For: Porridge base (portion', { exact: false }).waitFor();
     await expect(page.getByLabel('Carbohydrate (available)').inputValue()).resolves.toBe('28.8');
     await expect(page.getByRole('radio', { name: 'Long ride' }).getAttribute('aria-checked')).resolves.toBe('true');
