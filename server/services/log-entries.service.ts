@@ -14,7 +14,7 @@ import { findPortionForUser } from './portions.service';
 import { loadProfile } from './profiles.service';
 
 type NewEntry = Partial<Omit<LogEntryModel['_creationAttributes'], 'profileId' | 'kind' | 'occurredAt'>>;
-type Saving = { profile: ProfileModel; userId: number; groupKey: string; transaction: Transaction; now: Date };
+type Saving = { profile: ProfileModel; userId: number; groupKey: string; transaction: Transaction; now: Date; kinds?: Map<string, Promise<number | null>> };
 
 /** Entries may be logged up to this long ahead of now (clock drift between devices), no more. */
 const FUTURE_SLACK_MS = 5 * 60_000;
@@ -39,7 +39,10 @@ async function dayKindFor(profileId: number, localDate: string, transaction?: Tr
 async function insertEntry(s: Saving, kind: LogEntryModel['kind'], occurredAt: Date, values: NewEntry): Promise<LogEntryModel> {
   const zone = s.profile.timeZone;
   const { localDate, localMinute } = toLocalTime(occurredAt, zone);
-  const dayKindId = await dayKindFor(s.profile.id, localDate, s.transaction);
+  // Entries saved together mostly share a local date: look its day kind up once.
+  s.kinds ??= new Map();
+  if (!s.kinds.has(localDate)) s.kinds.set(localDate, dayKindFor(s.profile.id, localDate, s.transaction));
+  const dayKindId = await s.kinds.get(localDate)!;
   return LogEntryModel.create(
     { ...values, profileId: s.profile.id, kind, occurredAt, localDate, localMinute, timeZone: zone, dayKindId, groupKey: s.groupKey, enteredByUserId: s.userId },
     { transaction: s.transaction },
@@ -111,7 +114,8 @@ async function saveGroup(profileId: number, userId: number, now: Date, write: (s
   const groupKey = randomUUID();
   try {
     const { profile, ids } = await LogEntryModel.sequelize!.transaction(async (transaction) => {
-      const p = await loadProfile(profileId, transaction);
+      // Read, not locked: entries of one profile may be saved side by side (two devices, a carer and the person).
+      const p = await loadProfile(profileId);
       const rows = await write({ profile: p, userId, groupKey, transaction, now });
       return { profile: p, ids: rows.map((r) => r.id) };
     });
