@@ -27,7 +27,7 @@ describe('seedDemo', () => {
     expect(await BatchModel.count({ where: { storage: 'fridge' } })).toBe(2);
     expect(await PortionModel.count()).toBe(9);
     expect(await RecipeModel.count({ where: { visibility: 'public' } })).toBe(1);
-    expect(await FoodModel.count({ where: { source: 'label' } })).toBe(2);
+    expect(await FoodModel.count({ where: { source: 'pack' } })).toBe(2);
 
     const signIn = await request(ctx.app).post('/api/auth/sign-in').send({ email: first.email, password: first.password });
     expect(signIn.status).toBe(200);
@@ -43,7 +43,7 @@ describe('seedDemo', () => {
     expect(first.created).toEqual(expect.arrayContaining(['dose settings', 'day kind Rest day', 'day kind Swim training']));
   }, 120_000);
 
-  it('builds the overnight oats only from generic USDA SR28 foods and splits them into five weighed jars', async () => {
+  it('builds the overnight oats only from generic USDA SR28 foods and portions them out into five weighed portions', async () => {
     const recipe = (await RecipeModel.findOne({ where: { title: 'Sunday overnight oats' } }))!;
     const batch = (await BatchModel.findOne({ where: { recipeId: recipe.id }, include: [{ model: BatchIngredientModel, as: 'ingredients' }] }))!;
     const portions = await PortionModel.findAll({ where: { batchId: batch.id }, order: [['position', 'ASC']] });

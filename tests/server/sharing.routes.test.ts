@@ -139,7 +139,7 @@ describe('revoking and copying', () => {
 });
 
 describe('POST /api/profiles/:profileId/batches (a recipe shared with me)', () => {
-  it('lets the person a recipe was shared with cook it when it uses the owner’s label food', async () => {
+  it('lets the person a recipe was shared with cook it when it uses the owner’s pack food', async () => {
     const owner = await member('Owner');
     const friend = await signUpUser(ctx.app, 'Friend');
     // check-values.md §1.2 worked example label: 60 g available carbohydrate and 10 g fibre per 100 g.
@@ -169,7 +169,7 @@ describe('POST /api/profiles/:profileId/batches (a recipe shared with me)', () =
     expect(cooked.body.portions.map((p: { carb: { grams: number } }) => p.carb.grams)).toEqual([30, 30]);
   });
 
-  it('still refuses another member’s private label food that is not in the recipe', async () => {
+  it('still refuses another member’s private pack food that is not in the recipe', async () => {
     const owner = await member('Owner');
     const stranger = await member('Stranger');
     const hidden = await request(ctx.app)
