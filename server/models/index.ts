@@ -22,7 +22,7 @@ import { SettingsChangeModel } from './settings-change.model';
 
 export { DatasetImportModel, FoodMeasureModel, FoodModel, FoodSynonymModel };
 export { ProfileAccessModel, ProfileModel, RevokedTokenModel, UserModel };
-export { DayKindDayModel, DayKindModel, ProfileSettingsModel, TimeOfDayModel, SettingsChangeModel };
+export { DayKindDayModel, DayKindModel, ProfileSettingsModel, SettingsChangeModel, TimeOfDayModel };
 export { BatchIngredientModel, BatchModel, ContainerModel, PortionModel };
 export { RecipeIngredientModel, RecipeModel, RecipeShareModel };
 

@@ -1,5 +1,5 @@
 import request from 'supertest';
-import { DayKindModel, ProfileAccessModel, ProfileSettingsModel, TimeOfDayModel, SettingsChangeModel } from '../../server/models';
+import { DayKindModel, ProfileAccessModel, ProfileSettingsModel, SettingsChangeModel, TimeOfDayModel } from '../../server/models';
 import { bearer, signUpMember, signUpUser, useTestApp } from '../helpers/api';
 import { TEST_DOSE_SETTINGS } from '../helpers/dose-settings';
 

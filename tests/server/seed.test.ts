@@ -51,7 +51,7 @@ describe('seedDemo', () => {
 
     expect(foods.map((f) => `${f.source} ${f.sourceCode}`).sort()).toEqual(['usda_sr28 01077', 'usda_sr28 01293', 'usda_sr28 08120', 'usda_sr28 09050']);
     expect(foods.some((f) => f.extra.branded)).toBe(false);
-    // Bowl 1790 g − 642 g tare = 1148 g; jars 443, 441, 445, 440, 437 g − 214 g tare each.
+    // Bowl 1790 g − 642 g tare = 1148 g; portions 443, 441, 445, 440, 437 g − 214 g tare each.
     expect(batch.cookedGrams).toBe(1148);
     expect(portions.map((p) => p.netGrams)).toEqual([229, 227, 231, 226, 223]);
     // Available carbohydrate by hand from USDA SR28 per 100 g (205 by difference − 291 fibre, check-values §11 for
@@ -59,7 +59,7 @@ describe('seedDemo', () => {
     // 247 g × (3.98 − 0), blueberries 156 g × (14.49 − 2.4) = 145.152 + 24.24 + 9.8306 + 18.8604 = 198.083 g.
     const available = (252 * 57.6 + 505 * 4.8 + 247 * 3.98 + 156 * 12.09) / 100;
     expect(available).toBeCloseTo(198.083, 3);
-    // First jar: 198.083 g × 229 / 1148 = 39.51 g.
+    // First portion: 198.083 g × 229 / 1148 = 39.51 g.
     expect(portions[0].carbAvailable).toBeCloseTo((available * 229) / 1148, 6);
     expect(portions[0].carbAvailable).toBeCloseTo(39.513, 2);
   });

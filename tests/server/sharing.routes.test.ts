@@ -112,7 +112,7 @@ describe('revoking and copying', () => {
     expect((await request(ctx.app).get(`/api/recipes/${id}`).set(bearer(people.sharedWith.token))).status).toBe(404);
     const mine = await request(ctx.app).get(`/api/recipes/${copy.body.id}`).set(bearer(people.sharedWith.token));
     expect(mine.status).toBe(200);
-    expect(mine.body).toMatchObject({ isOwner: true, title: 'Overnight oats jars', copiedFromRecipeId: id, copiedFrom: null });
+    expect(mine.body).toMatchObject({ isOwner: true, title: 'Overnight oats', copiedFromRecipeId: id, copiedFrom: null });
     expect(mine.body.nutrition.carbPerPortion.grams).toBeCloseTo(36.2, 2);
   });
 
