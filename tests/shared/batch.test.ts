@@ -26,14 +26,14 @@ const line = (n: Nutrients, actualGrams: number, omitted = false): BatchIngredie
 // Worked example A (check-values §2.3), FAO recipe method (Greenfield & Southgate 2003) on SR Legacy.
 const porridge = [line(oats, 500), line(wholeMilk, 1000), line(water, 1000)];
 // Worked example B (check-values §2.4), 1150 g uncooked.
-const oatLines = [line(oats, 240), line(wholeMilk, 480), line(greekYogurt, 240), line(apple, 150), line(raisins, 40)];
+const t4Lines = [line(oats, 240), line(wholeMilk, 480), line(greekYogurt, 240), line(apple, 150), line(raisins, 40)];
 
 describe('computeBatch against the worked examples of check-values §2 (T1–T4)', () => {
   it.each([
     { name: 'T1 porridge, total basis, 8 portions', lines: porridge, cooked: 2200, basis: 'total' as const, n: 8, yf: 0.88, per100: 17.568, perPortion: 48.3125 },
     { name: 'T1 porridge, available basis, 8 portions', lines: porridge, cooked: 2200, basis: 'available' as const, n: 8, yf: 0.88, per100: 15.273, perPortion: 42.0 },
-    { name: 'T4 overnight oats, total basis, 6 portions', lines: oatLines, cooked: 1150, basis: 'total' as const, n: 6, yf: 1, per100: 21.439, perPortion: 41.09 },
-    { name: 'T4 overnight oats, available basis, 6 portions', lines: oatLines, cooked: 1150, basis: 'available' as const, n: 6, yf: 1, per100: 18.889, perPortion: 36.2 },
+    { name: 'T4 overnight oats, total basis, 6 portions', lines: t4Lines, cooked: 1150, basis: 'total' as const, n: 6, yf: 1, per100: 21.439, perPortion: 41.09 },
+    { name: 'T4 overnight oats, available basis, 6 portions', lines: t4Lines, cooked: 1150, basis: 'available' as const, n: 6, yf: 1, per100: 18.889, perPortion: 36.2 },
   ])('$name', ({ lines, cooked, basis, n, yf, per100: expectedPer100, perPortion }) => {
     const batch = computeBatch(lines, cooked, basis);
     const split = splitEqually(batch, n);
@@ -138,7 +138,7 @@ describe('splitBatch: both carbohydrate bases at once, equal and weighed', () =>
   const oatLines = [line(oats, 252), line(wholeMilk, 496), line(greekYogurt, 247), line(apple, 163)];
   it.each([
     { name: 'T1 porridge, 8 equal portions', lines: porridge, cooked: 2200, split: { mode: 'equal' as const, count: 8 }, expected: [{ net: 275, available: 42.0, total: 48.3125 }] },
-    { name: 'T4 portions, 6 equal portions', lines: oatLines, cooked: 1150, split: { mode: 'equal' as const, count: 6 }, expected: [{ net: 1150 / 6, available: 36.2, total: 41.09 }] },
+    { name: 'T4 portions, 6 equal portions', lines: t4Lines, cooked: 1150, split: { mode: 'equal' as const, count: 6 }, expected: [{ net: 1150 / 6, available: 36.2, total: 41.09 }] },
     {
       name: 'T2 / §2.3 porridge, weighed 250 g and 300 g in containers',
       lines: porridge,
