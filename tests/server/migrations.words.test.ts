@@ -1,5 +1,6 @@
 import request from 'supertest';
-import { createMigrator } from '../../server/db';
+import * as m0425 from '../../server/migrations/0425-pack-food-source';
+import * as m0426 from '../../server/migrations/0426-times-of-day';
 import { FoodModel } from '../../server/models';
 import { bearer, signUpMember, useTestApp } from '../helpers/api';
 import { createFood } from '../helpers/foods';
@@ -18,15 +19,17 @@ describe('migrations 0425-pack-food-source and 0426-times-of-day', () => {
     const created = await request(ctx.app).post(`/api/profiles/${cook.profileId}/day-kinds`).set(bearer(cook.token)).send(kind);
     expect(created.status).toBe(201);
     const food = await createFood({ name: 'Oat crackers', carbTotal: 60, fibre: 5, ownerUserId: cook.userId });
-    const migrator = createMigrator(ctx.sequelize);
+    const context = ctx.sequelize.getQueryInterface();
 
-    await migrator.down({ to: '0425-pack-food-source' });
+    await m0426.down({ context });
+    await m0425.down({ context });
     const down = {
       source: await one(`SELECT source FROM foods WHERE id = ${food.id}`),
       ratio: await one('SELECT carb_ratio FROM ratio_blocks'),
       history: await one("SELECT new_value ? 'blocks' AS old_key, new_value ? 'timesOfDay' AS new_key FROM settings_changes WHERE subject = 'day_kind'"),
     };
-    await migrator.up();
+    await m0425.up({ context });
+    await m0426.up({ context });
 
     expect(down).toEqual({ source: { source: 'label' }, ratio: { carb_ratio: 10 }, history: { old_key: true, new_key: false } });
     expect((await FoodModel.findByPk(food.id))!.source).toBe('pack');
