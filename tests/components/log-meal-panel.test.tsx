@@ -8,7 +8,7 @@ jest.setTimeout(30_000);
 // Invented numbers: these tests check what is sent and offered, not the dose arithmetic.
 const request: DoseRequest = { carbsGrams: 39, glucose: 7.2, glucoseUnit: 'mmol_l', glucoseTakenAt: '2026-03-11T07:30:00.000Z', mealAt: '2026-03-11T07:30:00.000Z', localTime: '07:30' };
 const suggestion = {
-  status: 'ok', dayKind: { id: 1, name: 'Rest' }, block: { startMinute: 0, endMinute: 1440 }, warnings: [], recentDoses: [],
+  status: 'ok', dayKind: { id: 1, name: 'Rest' }, timeOfDay: { startMinute: 0, endMinute: 1440 }, warnings: [], recentDoses: [],
   breakdown: { doseUnits: 4 }, split: { nowUnits: 2.5, laterUnits: 1.5, laterMinutes: 60, nowPercent: 60 }, fatProteinUnits: null,
   caution: { version: 'c1', title: 'A calculation, not medical advice', text: 'x' }, engineVersion: 'e1', loggedDoses: [],
   glucoseUnit: 'mmol_l', carbBasis: 'available', carbUnit: 'g', mealAt: request.mealAt, glucoseTakenAt: request.glucoseTakenAt,

@@ -31,7 +31,7 @@ async function breakfastReady() {
   await request(rig.baseUrl)
     .post(`/api/profiles/${profileId}/day-kinds`)
     .set(auth)
-    .send({ name: 'Rest', isDefault: true, longActingUnits: null, glucoseUnit: 'mmol_l', blocks: [{ from: '00:00', to: '24:00', carbRatio: 10, correctionFactor: 3 }] })
+    .send({ name: 'Rest', isDefault: true, longActingUnits: null, glucoseUnit: 'mmol_l', timesOfDay: [{ from: '00:00', to: '24:00', carbRatio: 10, correctionFactor: 3 }] })
     .expect(201);
   // Per 100 g, USDA SR Legacy via check-values §11: rolled oats 67.7 g total carbohydrate, 10.1 g fibre.
   const oats = await createFood(withAvailable(SR_LEGACY.oats));

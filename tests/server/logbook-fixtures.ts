@@ -9,7 +9,7 @@ const kind = (name: string, carbRatio: number, isDefault: boolean) => ({
   isDefault,
   longActingUnits: isDefault ? 14 : 12,
   glucoseUnit: 'mmol_l',
-  blocks: [{ from: '00:00', to: '24:00', carbRatio, correctionFactor: 2 }],
+  timesOfDay: [{ from: '00:00', to: '24:00', carbRatio, correctionFactor: 2 }],
 });
 
 /**
