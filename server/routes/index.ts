@@ -10,6 +10,7 @@ import { foodSynonymsRoutes } from './food-synonyms.routes';
 import { foodsRoutes } from './foods.routes';
 import { healthRoutes } from './health.routes';
 import { importsRoutes } from './imports.routes';
+import { logHistoryRoutes } from './log-history.routes';
 import { photosRoutes } from './photos.routes';
 import { portionsRoutes } from './portions.routes';
 import { profilesRoutes } from './profiles.routes';
@@ -35,6 +36,7 @@ export function apiRoutes(deps: AppDeps): AnyRoute[] {
     ...containersRoutes(),
     ...batchesRoutes(deps),
     ...portionsRoutes(),
+    ...logHistoryRoutes(),
     ...benchRoutes(deps),
   ];
   let document: object | undefined;
