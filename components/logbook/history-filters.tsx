@@ -7,7 +7,7 @@ import { useLayout } from '../theme/use-theme';
 import { Button } from '../ui/button';
 import { Card } from '../ui/card';
 import { FormChoiceGroup } from '../ui/form-choice-group';
-import { FormTextField } from '../ui/form-text-field';
+import { PeriodFields } from './period-form';
 
 const KIND_CHOICES = [{ value: '', label: 'All' }, ...LOG_ENTRY_KINDS.map((k) => ({ value: k, label: LOG_KIND_WORDS[k] }))];
 
@@ -27,12 +27,7 @@ export function HistoryFilters({
   return (
     <Card>
       <View style={[styles.dates, isWide && styles.row]}>
-        <View style={styles.date}>
-          <FormTextField control={form.control} name="from" label="From" hint="YYYY-MM-DD" autoCapitalize="none" />
-        </View>
-        <View style={styles.date}>
-          <FormTextField control={form.control} name="to" label="To" hint="YYYY-MM-DD" autoCapitalize="none" />
-        </View>
+        <PeriodFields control={form.control} />
       </View>
       {dayKinds.length > 1 ? <FormChoiceGroup control={form.control} name="dayKindId" label="Day kind" choices={dayKindChoices} /> : null}
       <FormChoiceGroup control={form.control} name="kind" label="Entry type" choices={KIND_CHOICES} />
@@ -46,6 +41,5 @@ export function HistoryFilters({
 const styles = StyleSheet.create({
   dates: { gap: 12 },
   row: { flexDirection: 'row' },
-  date: { flex: 1 },
   actions: { flexDirection: 'row' },
 });

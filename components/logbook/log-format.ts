@@ -1,3 +1,4 @@
+import { minutesToTime } from '../../shared/schemas/profile-settings';
 import { formatCarb, formatGlucose, glucoseFromMmol, glucoseToMmol } from '../../shared/compute/units';
 import type { LogHistoryRow } from '../../shared/schemas/logbook-read';
 import type { CarbBasis, CarbUnit, GlucoseUnit } from '../../shared/schemas/units';
@@ -51,6 +52,5 @@ export function defaultPeriod(now: Date = new Date()): { from: string; to: strin
 
 /** "07:00–11:00" for a time of day given in minutes. */
 export function minutesRange(start: number | null, end: number | null): string {
-  const hhmm = (m: number) => `${String(Math.floor(m / 60)).padStart(2, '0')}:${String(m % 60).padStart(2, '0')}`;
-  return start == null || end == null ? 'Outside any time of day' : `${hhmm(start)}–${hhmm(end)}`;
+  return start == null || end == null ? 'Outside any time of day' : `${minutesToTime(start)}–${minutesToTime(end)}`;
 }

@@ -23,9 +23,14 @@ export function TodayScreen() {
   const name = me.data?.user.displayName;
   return (
     <Screen title={name ? `Good to see you, ${name}` : 'Today'} subtitle={todayLabel(new Date())}>
-      <Link href="/dose-check" asChild>
-        <Button label="Check a dose" size="lg" />
-      </Link>
+      <View style={styles.actions}>
+        <Link href="/dose-check" asChild>
+          <Button label="Check a dose" size="lg" />
+        </Link>
+        <Link href="/logbook" asChild>
+          <Button variant="secondary" label="Logbook" size="lg" />
+        </Link>
+      </View>
       {me.isPending ? (
         <LoadingState />
       ) : me.isError ? (
@@ -45,6 +50,7 @@ export function TodayScreen() {
 }
 
 const styles = StyleSheet.create({
+  actions: { flexDirection: 'row', flexWrap: 'wrap', gap: 12 },
   columns: { gap: 16 },
   columnsWide: { flexDirection: 'row', alignItems: 'flex-start' },
   column: { gap: 16 },

@@ -1,3 +1,4 @@
+import { minutesToTime } from '../../shared/schemas/profile-settings';
 import { stringify } from 'csv-stringify/sync';
 import { Op } from 'sequelize';
 import { glucoseFromMmol } from '../../shared/compute/units';
@@ -32,7 +33,6 @@ export function exportHeaders(unit: GlucoseUnit): string[] {
   ];
 }
 
-const hhmm = (minute: number) => `${String(Math.floor(minute / 60)).padStart(2, '0')}:${String(minute % 60).padStart(2, '0')}`;
 /** Text a spreadsheet would run as a formula gets a leading apostrophe (OWASP, CSV injection). */
 const text = (v: string | null) => (v && /^[=+\-@\t\r]/.test(v) ? `'${v}` : (v ?? ''));
 const num = (v: number | null, digits = 2) => (v == null ? '' : String(Math.round(v * 10 ** digits) / 10 ** digits));
@@ -48,7 +48,7 @@ export async function exportLogCsv(profileId: number, q: LogPeriodQuery): Promis
   const unit = profile.glucoseUnit;
   const records = rows.map((r) => [
     r.localDate,
-    hhmm(r.localMinute),
+    minutesToTime(r.localMinute),
     r.timeZone,
     r.occurredAt.toISOString(),
     LOG_KIND_WORDS[r.kind],

@@ -1,3 +1,4 @@
+import { minutesToTime } from '../../shared/schemas/profile-settings';
 import { Op, type WhereOptions } from 'sequelize';
 import {
   dailyTotals,
@@ -46,7 +47,6 @@ export function toReviewEntry(row: LogEntryModel, basis: CarbBasis): ReviewEntry
   };
 }
 
-const hhmm = (minute: number) => `${String(Math.floor(minute / 60)).padStart(2, '0')}:${String(minute % 60).padStart(2, '0')}`;
 
 function suggestedUnits(suggestion: Record<string, unknown> | null): number | null {
   const breakdown = suggestion?.breakdown as { doseUnits?: unknown } | undefined;
@@ -78,7 +78,7 @@ async function mealContexts(profileId: number, meals: LogEntryModel[], basis: Ca
     const doses = mealDoses(m, context).map((d) => byId.get(d.id)!);
     const suggested = doses.map((d) => suggestedUnits(d.suggestion)).find((u) => u != null) ?? null;
     out.set(meal.id, {
-      readingBefore: before ? { glucose: glucoseFromMmol(before.glucoseMmol!, unit), localTime: hhmm(before.localMinute) } : null,
+      readingBefore: before ? { glucose: glucoseFromMmol(before.glucoseMmol!, unit), localTime: minutesToTime(before.localMinute) } : null,
       suggestedUnits: suggested,
       takenUnits: doses.length ? doses.reduce((a, d) => a + (d.units ?? 0), 0) : null,
     });

@@ -1,3 +1,4 @@
+import { minutesToTime } from '../../shared/schemas/profile-settings';
 import { randomUUID } from 'node:crypto';
 import { parse } from 'csv-parse/sync';
 import { Op } from 'sequelize';
@@ -117,7 +118,6 @@ async function markDuplicates(profileId: number, readings: Interpreted['readings
   return dups;
 }
 
-const hhmm = (minute: number) => `${String(Math.floor(minute / 60)).padStart(2, '0')}:${String(minute % 60).padStart(2, '0')}`;
 
 /** Reads a file and answers what an import would store: columns, the mapping (chosen or guessed), first rows, problems. */
 export async function previewReadingsImport(profileId: number, bytes: Buffer, chosen: Partial<ReadingsImportColumns>): Promise<ReadingsImportPreview> {
@@ -139,7 +139,7 @@ export async function previewReadingsImport(profileId: number, bytes: Buffer, ch
   const dups = await markDuplicates(profileId, result.readings);
   const firstRows: ImportedRow[] = result.readings.slice(0, PREVIEW_ROWS).map((r) => {
     const local = localParts(r.at, profile.timeZone);
-    return { line: r.line, occurredAt: new Date(r.at).toISOString(), localDate: local.date, localTime: hhmm(local.minute), glucose: glucoseFromMmol(r.mmol, profile.glucoseUnit), duplicate: dups.has(r.line) };
+    return { line: r.line, occurredAt: new Date(r.at).toISOString(), localDate: local.date, localTime: minutesToTime(local.minute), glucose: glucoseFromMmol(r.mmol, profile.glucoseUnit), duplicate: dups.has(r.line) };
   });
   return { ...base, dateOrderNeeded: false, firstRows, duplicates: dups.size, errors: result.errors.slice(0, ERRORS_LISTED) };
 }
