@@ -90,8 +90,9 @@ export type BeforeMealGlucose = { dayKindId: number | null; dayKindName: string 
 /** Glucose before meals, per day kind (the meal's): how many, average, lowest, highest. */
 export function glucoseBeforeMeals(entries: ReviewEntry[], dayKindNames: Map<number, string>): BeforeMealGlucose[] {
   const groups = new Map<number | null, number[]>();
+  const readings = ofKind(entries, 'reading');
   for (const meal of ofKind(entries, 'meal')) {
-    const r = readingBefore(meal, entries);
+    const r = readingBefore(meal, readings);
     if (!r) continue;
     groups.set(meal.dayKindId, [...(groups.get(meal.dayKindId) ?? []), r.glucoseMmol!]);
   }
@@ -134,27 +135,31 @@ type Sums = { meals: number; change: number; carb: number; units: number; withUn
 export function ratioReview(entries: ReviewEntry[], timesOfDay: ReviewTimeOfDay[], minimumMeals = REVIEW_MINIMUM_MEALS): RatioReview {
   const sorted = [...entries].sort((a, b) => a.at - b.at || a.id - b.id);
   const meals = ofKind(sorted, 'meal');
+  // Each rule below looks only at the entries it needs: a year of sensor readings makes the full list long.
+  const readings = ofKind(sorted, 'reading');
+  const doses = ofKind(sorted, 'rapid_dose');
+  const mealsAndDoses = sorted.filter((e) => e.kind === 'meal' || e.kind === 'rapid_dose');
   const skipped = { noReadingBefore: 0, noReadingAfter: 0, somethingBetween: 0 };
   const sums = new Map<string, Sums>();
   const keyOf = (dayKindId: number | null, start: number | null) => `${dayKindId}:${start}`;
   for (const t of timesOfDay) sums.set(keyOf(t.dayKindId, t.startMinute), { meals: 0, change: 0, carb: 0, units: 0, withUnits: 0 });
   for (const meal of meals) {
-    const before = readingBefore(meal, sorted);
+    const before = readingBefore(meal, readings);
     if (!before) {
       skipped.noReadingBefore += 1;
       continue;
     }
-    const after = ofKind(sorted, 'reading').find(
+    const after = readings.find(
       (r) => r.glucoseMmol != null && r.at >= meal.at + READING_AFTER_MINUTES.from * MINUTE && r.at <= meal.at + READING_AFTER_MINUTES.to * MINUTE,
     );
     if (!after) {
       skipped.noReadingAfter += 1;
       continue;
     }
-    const doses = mealDoses(meal, sorted);
-    const own = new Set([meal.id, before.id, ...doses.map((d) => d.id)]);
+    const own = mealDoses(meal, doses);
+    const ownIds = new Set([meal.id, before.id, ...own.map((d) => d.id)]);
     const start = Math.min(before.at, meal.at);
-    const between = sorted.some((e) => !own.has(e.id) && (e.kind === 'meal' || e.kind === 'rapid_dose') && e.at >= start && e.at <= after.at);
+    const between = mealsAndDoses.some((e) => !ownIds.has(e.id) && e.at >= start && e.at <= after.at);
     if (between) {
       skipped.somethingBetween += 1;
       continue;
@@ -165,8 +170,8 @@ export function ratioReview(entries: ReviewEntry[], timesOfDay: ReviewTimeOfDay[
     s.meals += 1;
     s.change += after.glucoseMmol! - before.glucoseMmol!;
     s.carb += meal.carbG ?? 0;
-    if (doses.length) {
-      s.units += doses.reduce((a, d) => a + (d.units ?? 0), 0);
+    if (own.length) {
+      s.units += own.reduce((a, d) => a + (d.units ?? 0), 0);
       s.withUnits += 1;
     }
     sums.set(key, s);
