@@ -2,13 +2,12 @@ import { minutesToTime } from '../../shared/schemas/profile-settings';
 import { formatCarb, formatGlucose, glucoseFromMmol, glucoseToMmol } from '../../shared/compute/units';
 import type { LogHistoryRow } from '../../shared/schemas/logbook-read';
 import type { CarbBasis, CarbUnit, GlucoseUnit } from '../../shared/schemas/units';
+import { formatInsulinUnits } from '../dose/insulin-format';
 import { localToday } from '../kitchen/kitchen-format';
 
-/** Units in full, as dose views write them ("4.5 units", "1 unit"). */
+/** Units in full by the one insulin formatter ("4.5 units", "1 unit"); a dash when there is none. */
 export function unitsText(units: number | null): string {
-  if (units == null) return '—';
-  const n = Math.round(units * 100) / 100;
-  return `${n} ${n === 1 ? 'unit' : 'units'}`;
+  return units == null ? '—' : formatInsulinUnits(units);
 }
 
 /** A glucose value already in the display unit, formatted by the one glucose formatter. */

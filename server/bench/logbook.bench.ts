@@ -31,7 +31,23 @@ async function fillYear(ctx: BenchContext): Promise<{ from: string; to: string }
   }
   for (let i = 0; i < rows.length; i += 5000) await LogEntryModel.bulkCreate(rows.slice(i, i + 5000));
   await ctx.sequelize.query('ANALYZE log_entries');
-  return { from: '2025-12-01', to: '2025-12-31' };
+  const period = { from: '2025-12-01', to: '2025-12-31' };
+  if (process.env.BENCH_EXPLAIN) await explain(ctx, period);
+  return period;
+}
+
+/** BENCH_EXPLAIN=1 prints the plans of the history and period queries on this volume (README, logbook). */
+async function explain(ctx: BenchContext, { from, to }: { from: string; to: string }) {
+  const live = `profile_id = ${ctx.member.profileId} AND deleted_at IS NULL`;
+  const queries = {
+    'history page': `SELECT id FROM log_entries WHERE ${live} ORDER BY occurred_at DESC, id DESC LIMIT 51`,
+    'meals in a month': `SELECT id FROM log_entries WHERE ${live} AND kind IN ('meal') AND local_date BETWEEN '${from}' AND '${to}' ORDER BY occurred_at DESC, id DESC LIMIT 51`,
+    'period (charts, review)': `SELECT id FROM log_entries WHERE ${live} AND local_date BETWEEN '${from}' AND '${to}' ORDER BY occurred_at, id`,
+  };
+  for (const [name, sql] of Object.entries(queries)) {
+    const [plan] = await ctx.sequelize.query(`EXPLAIN (ANALYZE, BUFFERS) ${sql}`);
+    console.log(`-- ${name}\n${(plan as { 'QUERY PLAN': string }[]).map((r) => r['QUERY PLAN']).join('\n')}`);
+  }
 }
 
 /** The logbook's reading side on a year of entries: a history page, a filtered page, charts and review for a month. */
