@@ -51,7 +51,7 @@ describe('logbook in the browser', () => {
     const wide = await rig.newPage(WIDE);
     await personWithLog(wide, email);
 
-    await wide.getByRole('button', { name: 'Logbook', exact: true }).click();
+    await wide.getByRole('main').getByText('Logbook', { exact: true }).click();
     await wide.waitForURL(/\/logbook$/);
     const table = wide.getByRole('table', { name: 'Logbook history' });
     await table.getByText('Porridge day 1 · 42 g').waitFor();
