@@ -23,7 +23,7 @@ import {
 } from '../../shared/schemas/logbook-read';
 import type { CarbBasis } from '../../shared/schemas/units';
 import { DayKindModel, LogEntryChangeModel, LogEntryModel, ProfileSettingsModel } from '../models';
-import { listDayKinds, withBlocks } from './day-kinds.service';
+import { listDayKinds, withTimesOfDay } from './day-kinds.service';
 import { LOG_ENTRY_INCLUDE, toLogEntry } from './log-view';
 import { loadProfile } from './profiles.service';
 
@@ -160,12 +160,12 @@ export async function logCharts(profileId: number, q: LogPeriodQuery): Promise<L
 export async function logReview(profileId: number, q: LogPeriodQuery): Promise<LogReview> {
   const profile = await loadProfile(profileId);
   const [kinds, views, entries] = await Promise.all([
-    DayKindModel.findAll({ where: { profileId }, ...withBlocks, order: [['isDefault', 'DESC'], ['name', 'ASC']] }),
+    DayKindModel.findAll({ where: { profileId }, ...withTimesOfDay, order: [['isDefault', 'DESC'], ['name', 'ASC']] }),
     listDayKinds(profileId),
     periodEntries(profileId, q, profile.carbBasis),
   ]);
   const times: ReviewTimeOfDay[] = kinds.flatMap((k) =>
-    [...(k.blocks ?? [])].sort((a, b) => a.startMinute - b.startMinute).map((b) => ({ dayKindId: k.id, dayKindName: k.name, startMinute: b.startMinute, endMinute: b.endMinute })),
+    [...(k.timesOfDay ?? [])].sort((a, b) => a.startMinute - b.startMinute).map((b) => ({ dayKindId: k.id, dayKindName: k.name, startMinute: b.startMinute, endMinute: b.endMinute })),
   );
   return {
     from: q.from,
@@ -175,6 +175,6 @@ export async function logReview(profileId: number, q: LogPeriodQuery): Promise<L
     minimumMeals: REVIEW_MINIMUM_MEALS,
     caution: RATIO_REVIEW_CAUTION,
     ...ratioReview(entries, times),
-    dayKinds: views.map((v) => ({ id: v.id, name: v.name, isDefault: v.isDefault, longActingUnits: v.longActingUnits, timesOfDay: v.blocks })),
+    dayKinds: views.map((v) => ({ id: v.id, name: v.name, isDefault: v.isDefault, longActingUnits: v.longActingUnits, timesOfDay: v.timesOfDay })),
   };
 }

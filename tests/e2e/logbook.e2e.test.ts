@@ -30,7 +30,7 @@ async function personWithLog(page: Page, email: string) {
   await request(rig.baseUrl)
     .post(`/api/profiles/${profileId}/day-kinds`)
     .set(auth)
-    .send({ name: 'Rest', isDefault: true, longActingUnits: 14, glucoseUnit: 'mmol_l', blocks: [{ from: '00:00', to: '24:00', carbRatio: 10, correctionFactor: 2 }] })
+    .send({ name: 'Rest', isDefault: true, longActingUnits: 14, glucoseUnit: 'mmol_l', timesOfDay: [{ from: '00:00', to: '24:00', carbRatio: 10, correctionFactor: 2 }] })
     .expect(201);
   for (const n of [1, 2]) {
     const d = daysAgo(n);

@@ -7,12 +7,12 @@ import { addLogEntries, setProfileTimeZone } from '../helpers/logbook';
 
 const ctx = useTestApp();
 
-const kind = (name: string, isDefault: boolean, blocks: { from: string; to: string }[]) => ({
+const kind = (name: string, isDefault: boolean, times: { from: string; to: string }[]) => ({
   name,
   isDefault,
   longActingUnits: null,
   glucoseUnit: 'mmol_l',
-  blocks: blocks.map((b) => ({ ...b, carbRatio: 10, correctionFactor: 2 })),
+  timesOfDay: times.map((b) => ({ ...b, carbRatio: 10, correctionFactor: 2 })),
 });
 
 async function member(name = 'Reader') {
