@@ -35,7 +35,8 @@ function ChartCard({ title, note, children, summary }: { title: string; note?: s
 
 function dayLabels(days: LogCharts['days']): string[] {
   const step = Math.max(1, Math.ceil(days.length / 7));
-  return days.map((d, i) => (i % step === 0 ? dayText(d.date).replace(/^\w+,?\s*/, '') : ''));
+  // The day of the month under every few bars; the summary under the chart has the full dates.
+  return days.map((d, i) => (i % step === 0 ? String(Number(d.date.slice(8))) : ''));
 }
 
 /** Bar geometry that fits `count` bars in the width given (gifted-charts draws scrollable charts otherwise). */
@@ -63,20 +64,24 @@ export function LogChartsPanel({ data }: { data: LogCharts }) {
   const pct = (v: number | null) => (v == null ? '—' : `${Math.round(v)} %`);
   const totalCarb = data.days.reduce((a, d) => a + d.carbG, 0);
   const totalUnits = data.days.reduce((a, d) => a + d.rapidUnits, 0);
+  const eaten = data.days.filter((d) => d.carbG > 0);
+  const dosed = data.days.filter((d) => d.rapidUnits > 0);
+  // Whole-unit steps on the insulin axis: four sections up to a multiple of four units.
+  const insulinMax = Math.max(4, Math.ceil(Math.max(...data.days.map((d) => d.rapidUnits), 0) / 4) * 4);
   return (
     <View style={styles.list}>
       <ChartCard
         title="Carbohydrate per day"
         note={`${data.carbBasis === 'available' ? 'Available' : 'Total'} carbohydrate, ${CARB_UNIT_LABEL[data.carbUnit].long}.`}
-        summary={`${formatCarb(totalCarb, data.carbUnit)} over ${data.days.length} days; ${data.days.map((d) => `${d.date}: ${formatCarb(d.carbG, data.carbUnit)}`).join('; ')}`}
+        summary={`${formatCarb(totalCarb, data.carbUnit)} over ${data.days.length} days${eaten.map((d) => `; ${dayText(d.date)}: ${formatCarb(d.carbG, data.carbUnit)}`).join('')}`}
       >
         {(w) => <BarChart data={carbBars} height={CHART_HEIGHT} {...bars(w, carbBars.length)} noOfSections={4} yAxisLabelSuffix={` ${unitShort}`} yAxisLabelWidth={52} disableScroll {...axis} />}
       </ChartCard>
       <ChartCard
         title="Rapid-acting insulin per day"
-        summary={`${unitsText(totalUnits)} over ${data.days.length} days; ${data.days.map((d) => `${d.date}: ${unitsText(d.rapidUnits)}`).join('; ')}`}
+        summary={`${unitsText(totalUnits)} over ${data.days.length} days${dosed.map((d) => `; ${dayText(d.date)}: ${unitsText(d.rapidUnits)}`).join('')}`}
       >
-        {(w) => <BarChart data={insulinBars} height={CHART_HEIGHT} {...bars(w, insulinBars.length)} noOfSections={4} yAxisLabelWidth={52} disableScroll {...axis} />}
+        {(w) => <BarChart data={insulinBars} height={CHART_HEIGHT} {...bars(w, insulinBars.length)} maxValue={insulinMax} noOfSections={4} yAxisLabelWidth={52} disableScroll {...axis} />}
       </ChartCard>
       <ChartCard
         title="Glucose before meals, by day kind"
