@@ -1,6 +1,7 @@
 import { Text } from '../ui/text';
+import type { FileInputProps } from './file-input.web';
 
-/** Dataset files are uploaded from a computer's browser; the native apps point there. */
-export function FileInput(_props: { files: File[]; onChange: (files: File[]) => void; accept: string }) {
-  return <Text color="textMuted">Upload dataset files from the web app on a computer.</Text>;
+/** Files are uploaded from a computer's browser; the native apps point there. */
+export function FileInput({ label = 'Dataset files' }: FileInputProps) {
+  return <Text color="textMuted">Upload {label.toLowerCase()} from the web app on a computer.</Text>;
 }

@@ -3,22 +3,24 @@ import { StyleSheet, View } from 'react-native';
 import { Button } from '../ui/button';
 import { Text } from '../ui/text';
 
-/** Chooses several files from the computer. */
-export function FileInput({ files, onChange, accept }: { files: File[]; onChange: (files: File[]) => void; accept: string }) {
+export type FileInputProps = { files: File[]; onChange: (files: File[]) => void; accept: string; label?: string; multiple?: boolean; testId?: string };
+
+/** Chooses files (several unless `multiple` is false) from the computer. */
+export function FileInput({ files, onChange, accept, label = 'Dataset files', multiple = true, testId = 'dataset-files-input' }: FileInputProps) {
   const input = useRef<HTMLInputElement | null>(null);
   return (
     <View style={styles.wrap}>
       <input
         ref={input}
         type="file"
-        multiple
+        multiple={multiple}
         accept={accept}
-        aria-label="Dataset files"
-        data-testid="dataset-files-input"
+        aria-label={label}
+        data-testid={testId}
         style={{ display: 'none' }}
         onChange={(e) => onChange(Array.from(e.currentTarget.files ?? []))}
       />
-      <Button variant="secondary" label={files.length ? 'Choose other files' : 'Choose files'} onPress={() => input.current?.click()} />
+      <Button variant="secondary" label={files.length ? (multiple ? 'Choose other files' : 'Choose another file') : multiple ? 'Choose files' : 'Choose a file'} onPress={() => input.current?.click()} />
       {files.map((f) => (
         <Text key={f.name} color="textMuted">
           {f.name} · {(f.size / 1024).toFixed(0)} KB

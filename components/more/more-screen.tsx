@@ -35,6 +35,14 @@ export function MoreScreen() {
         )}
       </Card>
       <LinkCard
+        title="Logbook"
+        description="History of meals, readings and doses, charts, the ratio review, export and the readings import."
+        links={[
+          { href: '/logbook', label: 'Logbook' },
+          { href: '/logbook/review', label: 'Ratio review' },
+        ]}
+      />
+      <LinkCard
         title="Settings"
         description="Units, safety limits, day kinds with their ratios, and the change history."
         links={[{ href: '/settings', label: 'Settings' }]}

@@ -10,7 +10,7 @@ import { Brand } from './mark';
 
 /** The five areas in the tab bar; `also` names the pages outside the bar that belong to an area (it stays lit there). */
 export const TABS: { name: string; href: Extract<Href, string>; label: string; icon: IconName; also: string[] }[] = [
-  { name: 'index', href: '/', label: 'Today', icon: 'today', also: ['dose-check'] },
+  { name: 'index', href: '/', label: 'Today', icon: 'today', also: ['dose-check', 'logbook'] },
   { name: 'recipes', href: '/recipes', label: 'Recipes', icon: 'recipes', also: [] },
   { name: 'kitchen', href: '/kitchen', label: 'Kitchen', icon: 'kitchen', also: ['portions', 'batches'] },
   { name: 'plan', href: '/plan', label: 'Plan', icon: 'plan', also: [] },
@@ -28,6 +28,7 @@ const HIDDEN = [
   { name: 'settings', href: '/settings' },
   { name: 'foods', href: '/foods' },
   { name: 'admin/imports', href: '/admin/imports' },
+  { name: 'logbook', href: '/logbook' },
 ];
 
 type Triggers = Parameters<typeof useTabsWithTriggers>[0]['triggers'];

@@ -30,6 +30,9 @@ export function TodayScreen() {
         <Link href="/dose-check" asChild>
           <Button label="Check a dose" size="lg" variant="secondary" />
         </Link>
+        <Link href="/logbook" asChild>
+          <Button variant="secondary" label="Logbook" size="lg" />
+        </Link>
       </View>
       {me.isPending ? (
         <LoadingState />

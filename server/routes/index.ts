@@ -11,6 +11,7 @@ import { foodsRoutes } from './foods.routes';
 import { healthRoutes } from './health.routes';
 import { importsRoutes } from './imports.routes';
 import { logbookRoutes } from './logbook.routes';
+import { logHistoryRoutes } from './log-history.routes';
 import { photosRoutes } from './photos.routes';
 import { portionsRoutes } from './portions.routes';
 import { profilesRoutes } from './profiles.routes';
@@ -37,6 +38,7 @@ export function apiRoutes(deps: AppDeps): AnyRoute[] {
     ...batchesRoutes(deps),
     ...portionsRoutes(),
     ...logbookRoutes(),
+    ...logHistoryRoutes(),
     ...benchRoutes(deps),
   ];
   let document: object | undefined;

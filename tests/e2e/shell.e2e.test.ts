@@ -41,6 +41,10 @@ const PLACES: { name: string; path: (ids: Ids) => string }[] = [
   { name: 'food', path: (i) => `/foods/${i.food}` },
   { name: 'food-new', path: () => '/foods/new' },
   { name: 'imports', path: () => '/admin/imports' },
+  { name: 'logbook', path: () => '/logbook' },
+  { name: 'ratio-review', path: () => '/logbook/review' },
+  { name: 'readings-import', path: () => '/logbook/import' },
+  { name: 'review-sheet', path: () => '/logbook/print' },
 ];
 
 const SIGNED_OUT = ['/sign-in', '/sign-up'];
