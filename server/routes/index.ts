@@ -11,6 +11,7 @@ import { foodsRoutes } from './foods.routes';
 import { healthRoutes } from './health.routes';
 import { importsRoutes } from './imports.routes';
 import { photosRoutes } from './photos.routes';
+import { planRoutes } from './plan.routes';
 import { portionsRoutes } from './portions.routes';
 import { profilesRoutes } from './profiles.routes';
 import { recipesRoutes } from './recipes.routes';
@@ -35,6 +36,7 @@ export function apiRoutes(deps: AppDeps): AnyRoute[] {
     ...containersRoutes(),
     ...batchesRoutes(deps),
     ...portionsRoutes(),
+    ...planRoutes(),
     ...benchRoutes(deps),
   ];
   let document: object | undefined;
