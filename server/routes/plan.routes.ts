@@ -1,6 +1,6 @@
 import { z } from 'zod';
 import { profileIdParamSchema } from '../../shared/schemas/common';
-import { planItemParamSchema, planMealInputSchema, planSettingsInputSchema, planWeekQuerySchema, plannedCookInputSchema, shoppingTickInputSchema } from '../../shared/schemas/plan';
+import { planItemParamSchema, planMealCreatedSchema, planMealInputSchema, planSettingsInputSchema, planWeekQuerySchema, plannedCookInputSchema, shoppingTickInputSchema } from '../../shared/schemas/plan';
 import { getPlanSettings, savePlanSettings } from '../services/plan-settings.service';
 import { getNextPlanMeal, getPlanWeek } from '../services/plan-week.service';
 import { createPlanMeal, deletePlanMeal, deletePlannedCook, savePlannedCook, updatePlanMeal } from '../services/plan.service';
@@ -41,8 +41,8 @@ export function planRoutes(): AnyRoute[] {
       handler: async ({ params, body }, _req, res) => res.json(await savePlanSettings(params.profileId, body)),
     }),
     defineRoute({
-      method: 'post', path: `${base}/meals`, access: write, params: profileIdParamSchema, body: planMealInputSchema, status: 201, response: idResponse,
-      summary: 'Plan a meal on a date: a portion, a planned cook’s portion, a recipe amount, a pack food or plain carbohydrate.',
+      method: 'post', path: `${base}/meals`, access: write, params: profileIdParamSchema, body: planMealInputSchema, status: 201, response: planMealCreatedSchema,
+      summary: 'Plan a meal on a date (or `repeatDays` days in a row): a portion, a planned cook’s portion, a recipe amount, a pack food or plain carbohydrate.',
       handler: async ({ params, body, user }, _req, res) => res.status(201).json(await createPlanMeal(params.profileId, user.id, body)),
     }),
     defineRoute({

@@ -1,4 +1,5 @@
-import { Op, type Transaction } from 'sequelize';
+import { Op, QueryTypes, type Transaction } from 'sequelize';
+import { addDaysIso } from '../../shared/compute/plan';
 import { timeToMinutes } from '../../shared/schemas/profile-settings';
 import type { PlanMealInput, PlannedCookInput } from '../../shared/schemas/plan';
 import { AppError } from '../errors';
@@ -60,10 +61,33 @@ async function findMeal(profileId: number, id: number) {
   return row;
 }
 
-/** Plans a meal on a date; returns its id (the week answer carries its numbers). */
-export async function createPlanMeal(profileId: number, userId: number, input: PlanMealInput): Promise<{ id: number }> {
-  const row = await PlanMealModel.create(await mealValues(profileId, userId, input));
-  return { id: row.id };
+/** The next available portions of a batch after `first` (by position) that no meal not yet logged holds. */
+async function freePortionsAfter(profileId: number, first: number, count: number): Promise<number[]> {
+  const portion = (await PortionModel.findByPk(first))!;
+  const free = await PortionModel.sequelize!.query<{ id: number }>(
+    `SELECT p.id FROM portions p WHERE p.batch_id = :batchId AND p.profile_id = :profileId AND p.status = 'available' AND p.position > :position
+       AND NOT EXISTS (SELECT 1 FROM plan_meals m WHERE m.portion_id = p.id
+                       AND NOT EXISTS (SELECT 1 FROM log_entries e WHERE e.plan_meal_id = m.id AND e.deleted_at IS NULL))
+     ORDER BY p.position LIMIT :count`,
+    { replacements: { batchId: portion.batchId, profileId, position: portion.position, count }, type: QueryTypes.SELECT },
+  );
+  return free.map((r) => r.id);
+}
+
+/**
+ * Plans a meal on a date, or on `repeatDays` days in a row (a batch portion: the batch's next portions not planned
+ * yet, 400 when it has too few); returns the new ids (the week answer carries their numbers).
+ */
+export async function createPlanMeal(profileId: number, userId: number, input: PlanMealInput): Promise<{ ids: number[] }> {
+  const values = await mealValues(profileId, userId, input);
+  const extra = input.repeatDays - 1;
+  const more = values.portionId && extra > 0 ? await freePortionsAfter(profileId, values.portionId, extra) : [];
+  if (values.portionId && more.length < extra) {
+    throw AppError.validation({ repeatDays: [`The batch has only ${more.length + 1} portions after this one that are not planned yet.`] });
+  }
+  const rows = Array.from({ length: input.repeatDays }, (_, i) => ({ ...values, date: addDaysIso(input.date, i), portionId: i === 0 ? values.portionId : (more[i - 1] ?? null) }));
+  const created = await PlanMealModel.bulkCreate(rows);
+  return { ids: created.map((r) => r.id) };
 }
 
 /** Replaces a planned meal. */

@@ -19,8 +19,10 @@ const requiredId = (message: string) => z.preprocess((v) => (v === '' || v == nu
 /** PUT /profiles/:profileId/plan/settings — the week start, the weekly pattern and the named meals in one go. */
 export const planSettingsInputSchema = z.object({
   weekStart: z.coerce.number().int().min(1, 'Pick a weekday.').max(7, 'Pick a weekday.'),
-  /** Seven lines, Monday first: the kind of day each weekday usually is (null: the default kind). */
-  pattern: z.array(z.object({ weekday: z.number().int().min(1).max(7), dayKindId: optionalId })).length(7, 'Give all seven weekdays.'),
+  /** Seven lines, Monday first: the kind of day each weekday usually is (null or 0: the default kind). */
+  pattern: z
+    .array(z.object({ weekday: z.number().int().min(1).max(7), dayKindId: z.preprocess((v) => (v === 0 ? null : v), optionalId) }))
+    .length(7, 'Give all seven weekdays.'),
   mealNames: z
     .array(
       z.object({
@@ -57,6 +59,8 @@ export const planMealInputSchema = z
     carbGrams: optionalNumberField('Enter the carbohydrate in grams.').optional(),
     thawOn: z.preprocess((v) => (v === '' ? null : v), isoDateSchema.nullish()).transform((v) => v ?? null),
     note: z.string().trim().max(200, 'At most 200 characters.').nullish().transform((v) => v || null),
+    /** Plan the same meal on this many days in a row (a batch: its next portions not planned yet). */
+    repeatDays: z.preprocess((v) => (v === '' || v == null ? 1 : typeof v === 'string' ? Number(v) : v), z.number().int('Use a whole number of days.').min(1, 'At least 1 day.').max(7, 'At most 7 days.')),
   })
   .superRefine((m, ctx) => {
     const need = (field: keyof typeof m, message: string) => {
@@ -82,6 +86,7 @@ export const planMealInputSchema = z
     positive('carbGrams', 500);
   });
 export type PlanMealInput = z.infer<typeof planMealInputSchema>;
+export const planMealCreatedSchema = z.object({ ids: z.array(z.number().int()) });
 export type PlanMealFormValues = z.input<typeof planMealInputSchema>;
 
 /** POST/PUT /profiles/:profileId/plan/cooks — a recipe to cook on a date (or no date yet) into portions. */

@@ -37,9 +37,11 @@ describe('the week plan', () => {
     const batch = await postBatch(ctx.app, p.token, p.profileId, { ...oats.input, cookedOn: '2026-03-08', useBy: '2026-03-14' }).expect(201);
     await p.api('put', '/days/2026-03-13').send({ dayKindId: p.trainingId }).expect(200);
     const portions = batch.body.portions as { id: number; carb: { grams: number } }[];
-    for (const [i, date] of WEEK.slice(0, 5).entries()) {
-      await p.api('post', '/plan/meals').send({ date, mealNameId: p.breakfastId, source: 'portion', portionId: portions[i].id }).expect(201);
-    }
+    // One request places the batch's first jar on Monday and its next four on the days after.
+    const placed = await p.api('post', '/plan/meals').send({ date: WEEK[0], mealNameId: p.breakfastId, source: 'portion', portionId: portions[0].id, repeatDays: 5 }).expect(201);
+    expect(placed.body.ids).toHaveLength(5);
+    const sixth = await p.api('post', '/plan/meals').send({ date: WEEK[5], mealNameId: p.breakfastId, source: 'portion', portionId: portions[4].id, repeatDays: 2 });
+    expect(sixth.body.error.fieldErrors.repeatDays).toEqual(['The batch has only 1 portions after this one that are not planned yet.']);
 
     const week = (await p.api('get', '/plan/week?date=2026-03-11').expect(200)).body;
 
@@ -101,14 +103,14 @@ describe('the week plan', () => {
   it('logging a planned meal marks it done and the next meal moves on', async () => {
     const p = await setUp();
     const today = new Date().toISOString().slice(0, 10);
-    const m1 = await p.api('post', '/plan/meals').send({ date: today, mealNameId: p.breakfastId, time: '00:00', source: 'carb', carbGrams: 40 }).expect(201);
-    const m2 = await p.api('post', '/plan/meals').send({ date: today, mealNameId: p.lunchId, time: '23:59', source: 'carb', carbGrams: 55 }).expect(201);
-    expect((await p.api('get', '/plan/next-meal').expect(200)).body.meal.id).toBe(m1.body.id);
+    const [m1] = (await p.api('post', '/plan/meals').send({ date: today, mealNameId: p.breakfastId, time: '00:00', source: 'carb', carbGrams: 40 }).expect(201)).body.ids;
+    const [m2] = (await p.api('post', '/plan/meals').send({ date: today, mealNameId: p.lunchId, time: '23:59', source: 'carb', carbGrams: 55 }).expect(201)).body.ids;
+    expect((await p.api('get', '/plan/next-meal').expect(200)).body.meal.id).toBe(m1);
 
     await LogEntryModel.create({
       profileId: p.profileId, kind: 'meal', occurredAt: new Date(), localDate: today, localMinute: 5, timeZone: 'UTC', dayKindId: null, groupKey: null,
       enteredByUserId: p.userId, title: 'Breakfast', mealSource: 'typed', portionId: null, recipeId: null, foodId: null, grams: null, plateTareGrams: null,
-      carbAvailableG: 42, carbTotalG: 42, planMealId: m1.body.id, glucoseMmol: null, readingSource: null, units: null, plannedUnits: null, suggestion: null,
+      carbAvailableG: 42, carbTotalG: 42, planMealId: m1, glucoseMmol: null, readingSource: null, units: null, plannedUnits: null, suggestion: null,
       intensity: null, durationMinutes: null, note: null, deletedAt: null,
     });
 
@@ -116,7 +118,7 @@ describe('the week plan', () => {
     const day = week.days.find((d: { date: string }) => d.date === today);
     expect(day.meals[0].logged).toMatchObject({ carbGrams: 42 });
     expect(day.meals[1].logged).toBeNull();
-    expect((await p.api('get', '/plan/next-meal').expect(200)).body.meal.id).toBe(m2.body.id);
+    expect((await p.api('get', '/plan/next-meal').expect(200)).body.meal.id).toBe(m2);
   });
 });
 
@@ -136,7 +138,7 @@ describe('plan warnings, each by its own case', () => {
     const batch = await postBatch(ctx.app, p.token, p.profileId, { ...oats.input, storage: 'freezer' }).expect(201);
     const meal = await p.api('post', '/plan/meals').send({ date: '2026-03-13', mealNameId: p.breakfastId, source: 'portion', portionId: batch.body.portions[0].id }).expect(201);
     expect((await p.api('get', '/plan/week?date=2026-03-13')).body.warnings.map((w: { code: string }) => w.code)).toEqual(['needs_thaw']);
-    await p.api('put', `/plan/meals/${meal.body.id}`).send({ date: '2026-03-13', mealNameId: p.breakfastId, source: 'portion', portionId: batch.body.portions[0].id, thawOn: '2026-03-12' }).expect(200);
+    await p.api('put', `/plan/meals/${meal.body.ids[0]}`).send({ date: '2026-03-13', mealNameId: p.breakfastId, source: 'portion', portionId: batch.body.portions[0].id, thawOn: '2026-03-12' }).expect(200);
     expect((await p.api('get', '/plan/week?date=2026-03-13')).body.warnings).toEqual([]);
   });
 
