@@ -125,6 +125,7 @@ export async function getPlanWeek(profileId: number, date: string | undefined, n
       title,
       detail,
       portionId: m.portionId,
+      portionCode: portion?.code ?? null,
       batchId: batch?.id ?? null,
       plannedCookId: m.plannedCookId,
       recipeId: m.recipeId ?? cook?.recipeId ?? null,

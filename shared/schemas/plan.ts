@@ -121,6 +121,8 @@ export type PlanMealView = {
   /** What it is in a few words: "portion K7P-2Q", "150 g", "1.5 portions", "typed amount". */
   detail: string;
   portionId: number | null;
+  /** The portion's label code, for the dose check and the logging flow. */
+  portionCode: string | null;
   batchId: number | null;
   plannedCookId: number | null;
   recipeId: number | null;
