@@ -1,5 +1,5 @@
 import { zodResolver } from '@hookform/resolvers/zod';
-import { router } from 'expo-router';
+import { backToPlan } from './back-to-plan';
 import { useState } from 'react';
 import { useForm, useWatch, type FieldPath } from 'react-hook-form';
 import { StyleSheet, View } from 'react-native';
@@ -73,7 +73,7 @@ function PlanMealForm(props: { profileId: number; date: string; settings: PlanSe
   const cooks = week.cooks.filter((c) => !c.batchId).map((c) => ({ value: c.id, label: `${c.recipeTitle} · ${c.cookOn ?? 'no date yet'} · ${c.portions} portions` }));
   const submit = form.handleSubmit((values) =>
     create.mutate(values, {
-      onSuccess: () => router.replace('/plan'),
+      onSuccess: backToPlan,
       onError: (err) => setFormError(applyServerErrors(err, form.setError, (path) => path as FieldPath<PlanMealFormValues>)),
     }),
   );

@@ -1,5 +1,5 @@
 import { zodResolver } from '@hookform/resolvers/zod';
-import { router } from 'expo-router';
+import { backToPlan } from './back-to-plan';
 import { useState } from 'react';
 import { useFieldArray, useForm, type FieldPath } from 'react-hook-form';
 import { StyleSheet, View } from 'react-native';
@@ -51,7 +51,7 @@ function PlanSettingsForm({ profileId, defaultValues, kinds }: { profileId: numb
   const fieldOf = (path: string) => path as FieldPath<PlanSettingsFormValues>;
   const submit = form.handleSubmit((values) =>
     save.mutate(values, {
-      onSuccess: () => router.replace('/plan'),
+      onSuccess: backToPlan,
       onError: (err) => setFormError(applyServerErrors(err, form.setError, fieldOf)),
     }),
   );

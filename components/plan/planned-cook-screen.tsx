@@ -1,5 +1,5 @@
 import { zodResolver } from '@hookform/resolvers/zod';
-import { router } from 'expo-router';
+import { backToPlan } from './back-to-plan';
 import { useState } from 'react';
 import { useForm } from 'react-hook-form';
 import { StyleSheet, View } from 'react-native';
@@ -36,7 +36,7 @@ function PlannedCookForm({ profileId, date, recipes }: { profileId: number; date
   const create = useCreatePlannedCook(profileId);
   const [formError, setFormError] = useState<string>();
   const submit = form.handleSubmit((values) =>
-    create.mutate(values, { onSuccess: () => router.replace('/plan'), onError: (err) => setFormError(applyServerErrors(err, form.setError, FIELDS)) }),
+    create.mutate(values, { onSuccess: backToPlan, onError: (err) => setFormError(applyServerErrors(err, form.setError, FIELDS)) }),
   );
   if (!recipes.length) return <Callout tone="info" title="No recipes yet">Add a recipe to plan a cook.</Callout>;
   return (
