@@ -28,7 +28,7 @@ export const scenarios: BenchModule['scenarios'] = async (ctx: BenchContext) => 
   const kinds: number[] = [];
   // Not default kinds, and every weekday given one, so other bench files' day kinds do not change these numbers.
   for (const [name, ratio] of [['Plan rest', 10], ['Plan training', 15]] as const) {
-    kinds.push((await api('post', '/day-kinds', { name, isDefault: false, longActingUnits: 14, glucoseUnit: 'mmol_l', blocks: [{ from: '00:00', to: '11:00', carbRatio: ratio, correctionFactor: 2 }, { from: '11:00', to: '24:00', carbRatio: ratio + 2, correctionFactor: 2 }] })).id);
+    kinds.push((await api('post', '/day-kinds', { name, isDefault: false, longActingUnits: 14, glucoseUnit: 'mmol_l', timesOfDay: [{ from: '00:00', to: '11:00', carbRatio: ratio, correctionFactor: 2 }, { from: '11:00', to: '24:00', carbRatio: ratio + 2, correctionFactor: 2 }] })).id);
   }
   const settings = await api('put', '/plan/settings', {
     weekStart: 1,

@@ -17,14 +17,14 @@ import { UserModel } from './user.model';
 import { DayKindDayModel } from './day-kind-day.model';
 import { DayKindModel } from './day-kind.model';
 import { ProfileSettingsModel } from './profile-settings.model';
-import { RatioBlockModel } from './ratio-block.model';
+import { TimeOfDayModel } from './time-of-day.model';
 import { SettingsChangeModel } from './settings-change.model';
 import { LogEntryChangeModel, LogEntryModel } from './log-entry.model';
 import { PlanMealModel, PlanMealNameModel, PlannedCookModel, PlanSettingsModel, PlanWeekdayModel, ShoppingTickModel } from './plan.model';
 
 export { DatasetImportModel, FoodMeasureModel, FoodModel, FoodSynonymModel };
 export { ProfileAccessModel, ProfileModel, RevokedTokenModel, UserModel };
-export { DayKindDayModel, DayKindModel, ProfileSettingsModel, RatioBlockModel, SettingsChangeModel };
+export { DayKindDayModel, DayKindModel, ProfileSettingsModel, SettingsChangeModel, TimeOfDayModel };
 export { BatchIngredientModel, BatchModel, ContainerModel, PortionModel };
 export { RecipeIngredientModel, RecipeModel, RecipeShareModel };
 export { LogEntryChangeModel, LogEntryModel };
@@ -39,7 +39,7 @@ export function initModels(sequelize: Sequelize): void {
   ProfileSettingsModel.initModel(sequelize);
   DayKindModel.initModel(sequelize);
   DayKindDayModel.initModel(sequelize);
-  RatioBlockModel.initModel(sequelize);
+  TimeOfDayModel.initModel(sequelize);
   SettingsChangeModel.initModel(sequelize);
   ContainerModel.initModel(sequelize);
   BatchModel.initModel(sequelize);
@@ -60,7 +60,7 @@ export function initModels(sequelize: Sequelize): void {
   ProfileAccessModel.belongsTo(ProfileModel, { as: 'profile', foreignKey: 'profileId' });
   ProfileAccessModel.belongsTo(UserModel, { as: 'user', foreignKey: 'userId' });
   ProfileModel.hasMany(ProfileAccessModel, { as: 'accesses', foreignKey: 'profileId' });
-  DayKindModel.hasMany(RatioBlockModel, { as: 'blocks', foreignKey: 'dayKindId' });
+  DayKindModel.hasMany(TimeOfDayModel, { as: 'timesOfDay', foreignKey: 'dayKindId' });
   DayKindDayModel.belongsTo(DayKindModel, { as: 'dayKind', foreignKey: 'dayKindId' });
   SettingsChangeModel.belongsTo(UserModel, { as: 'user', foreignKey: 'userId' });
   RecipeModel.belongsTo(UserModel, { as: 'owner', foreignKey: 'ownerUserId' });

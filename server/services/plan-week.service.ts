@@ -10,7 +10,7 @@ import { formatPortionCode } from '../../shared/compute/portion-code';
 import { minutesToTime } from '../../shared/schemas/profile-settings';
 import type { NextPlanMeal, PlanDay, PlanMealView, PlanWeek, PlannedCookView } from '../../shared/schemas/plan';
 import { BatchIngredientModel, BatchModel, DayKindDayModel, DayKindModel, LogEntryModel, PlanMealModel, PlanMealNameModel, PlannedCookModel, PortionModel } from '../models';
-import { withBlocks } from './day-kinds.service';
+import { withTimesOfDay } from './day-kinds.service';
 import { loadDoseContext } from './dose-context.service';
 import { getPlanSettings } from './plan-settings.service';
 import { loadFoodRows, foodCarbPer100g, loadRecipeCarbs } from './plan-recipes';
@@ -29,14 +29,14 @@ export async function getPlanWeek(profileId: number, date: string | undefined, n
   const unit = profile.carbUnit;
 
   const [kinds, setDays, mealRows, names, cookRows] = await Promise.all([
-    DayKindModel.findAll({ where: { profileId }, ...withBlocks }),
+    DayKindModel.findAll({ where: { profileId }, ...withTimesOfDay }),
     DayKindDayModel.findAll({ where: { profileId, date: { [Op.between]: [from, to] } } }),
     PlanMealModel.findAll({ where: { profileId, date: { [Op.between]: [from, to] } }, order: [['date', 'ASC'], ['minute', 'ASC'], ['id', 'ASC']] }),
     PlanMealNameModel.findAll({ where: { profileId } }),
     PlannedCookModel.findAll({ where: { profileId, [Op.or]: [{ cookOn: { [Op.between]: [from, to] } }, { cookOn: null }] }, order: [['cookOn', 'ASC'], ['id', 'ASC']] }),
   ]);
   const ratios = new Map<number, DayKindRatios & { longActingUnits: number | null }>(
-    kinds.map((k) => [k.id, { id: k.id, name: k.name, longActingUnits: k.longActingUnits, blocks: (k.blocks ?? []).map((b) => ({ startMinute: b.startMinute, endMinute: b.endMinute, carbRatio: b.carbRatio, correctionFactorMmol: b.correctionFactorMmol })) }]),
+    kinds.map((k) => [k.id, { id: k.id, name: k.name, longActingUnits: k.longActingUnits, timesOfDay: (k.timesOfDay ?? []).map((b) => ({ startMinute: b.startMinute, endMinute: b.endMinute, carbRatio: b.carbRatio, correctionFactorMmol: b.correctionFactorMmol })) }]),
   );
   const defaultId = kinds.find((k) => k.isDefault)?.id ?? null;
   const setForDate = new Map(setDays.map((d) => [d.date, d.dayKindId]));

@@ -4,7 +4,7 @@
  * YYYY-MM-DD strings and `now` is passed in.
  */
 import type { CarbBasis } from '../schemas/units';
-import { findBlock, roundToIncrement, type DayKindRatios, type Rounding } from './dose';
+import { findTimeOfDay, roundToIncrement, type DayKindRatios, type Rounding } from './dose';
 import { defaultUseBy, type FoodSafetyRegion, type Storage } from './use-by';
 
 const DAY_MS = 86_400_000;
@@ -91,14 +91,14 @@ export function plannedMealDose(
   settings: PlanDoseSettings | null,
 ): PlannedDose {
   if (!settings) return { status: 'no_settings' };
-  const block = dayKind ? findBlock(dayKind.blocks, minute) : undefined;
-  if (!block) return { status: 'no_ratio' };
+  const timeOfDay = dayKind ? findTimeOfDay(dayKind.timesOfDay, minute) : undefined;
+  if (!timeOfDay) return { status: 'no_ratio' };
   if (carbGrams == null) return { status: 'unknown_carb' };
-  const exactUnits = carbGrams / block.carbRatio;
+  const exactUnits = carbGrams / timeOfDay.carbRatio;
   const rounded = roundToIncrement(exactUnits, settings.penIncrement, settings.rounding);
   const cap = roundToIncrement(settings.maxDoseUnits, settings.penIncrement, 'down');
   const capped = rounded > cap + EPS;
-  return { status: 'ok', carbRatio: block.carbRatio, startMinute: block.startMinute, endMinute: block.endMinute, exactUnits, units: capped ? cap : rounded, capped };
+  return { status: 'ok', carbRatio: timeOfDay.carbRatio, startMinute: timeOfDay.startMinute, endMinute: timeOfDay.endMinute, exactUnits, units: capped ? cap : rounded, capped };
 }
 
 /** Where a planned portion comes from, for its safe-until date. */

@@ -27,7 +27,7 @@ async function setUpHousehold() {
   const api = (method: 'post' | 'put', path: string, body: object) => request(rig.baseUrl)[method](`/api/profiles/${profileId}${path}`).set(auth).send(body);
   await api('put', '/settings', TEST_DOSE_SETTINGS).expect(200);
   for (const [name, carbRatio, isDefault, longActingUnits] of [['Rest', 10, true, 14], ['Training', 15, false, 12]] as const) {
-    await api('post', '/day-kinds', { name, isDefault, longActingUnits, glucoseUnit: 'mmol_l', blocks: [{ from: '00:00', to: '24:00', carbRatio, correctionFactor: 2 }] }).expect(201);
+    await api('post', '/day-kinds', { name, isDefault, longActingUnits, glucoseUnit: 'mmol_l', timesOfDay: [{ from: '00:00', to: '24:00', carbRatio, correctionFactor: 2 }] }).expect(201);
   }
   // Per 100 g, USDA SR Legacy via check-values §11: rolled oats 67.7 g total, 10.1 g fibre; whole milk 4.8 g.
   const [oats, milk] = await Promise.all([createFood(withAvailable(SR_LEGACY.oats)), createFood(withAvailable(SR_LEGACY.wholeMilk))]);

@@ -9,7 +9,7 @@ const ctx = useTestApp();
 
 // Ratios as check-values T15 (user-set): rest 10 g/unit, training 15 g/unit; invented long-acting doses 14 and 12 units.
 const kind = (name: string, carbRatio: number, isDefault: boolean, longActingUnits: number) => ({
-  name, isDefault, longActingUnits, glucoseUnit: 'mmol_l', blocks: [{ from: '00:00', to: '24:00', carbRatio, correctionFactor: 2 }],
+  name, isDefault, longActingUnits, glucoseUnit: 'mmol_l', timesOfDay: [{ from: '00:00', to: '24:00', carbRatio, correctionFactor: 2 }],
 });
 
 async function setUp(opts: { dayKinds?: boolean } = {}) {

@@ -19,13 +19,13 @@ import {
 const REST: DayKindRatios = {
   id: 1,
   name: 'Rest',
-  blocks: [
+  timesOfDay: [
     { startMinute: 0, endMinute: 660, carbRatio: 10, correctionFactorMmol: 2 },
     { startMinute: 660, endMinute: 1440, carbRatio: 12, correctionFactorMmol: 2.5 },
   ],
 };
-const TRAINING: DayKindRatios = { id: 2, name: 'Training', blocks: [{ startMinute: 0, endMinute: 1440, carbRatio: 15, correctionFactorMmol: 3 }] };
-const GAP: DayKindRatios = { id: 3, name: 'Gap', blocks: [{ startMinute: 600, endMinute: 1440, carbRatio: 10, correctionFactorMmol: 2 }] };
+const TRAINING: DayKindRatios = { id: 2, name: 'Training', timesOfDay: [{ startMinute: 0, endMinute: 1440, carbRatio: 15, correctionFactorMmol: 3 }] };
+const GAP: DayKindRatios = { id: 3, name: 'Gap', timesOfDay: [{ startMinute: 600, endMinute: 1440, carbRatio: 10, correctionFactorMmol: 2 }] };
 const HALF_DOWN = { penIncrement: 0.5, rounding: 'down' as const, maxDoseUnits: 30 };
 const ONE_NEAREST = { penIncrement: 1, rounding: 'nearest' as const, maxDoseUnits: 30 };
 
