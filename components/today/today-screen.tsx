@@ -8,6 +8,7 @@ import { Button } from '../ui/button';
 import { Screen } from '../ui/screen';
 import { ErrorState, LoadingState } from '../ui/states';
 import { TodayDayKindCard } from './today-day-kind';
+import { TodayNextMealCard } from './today-next-meal';
 import { TodayPortionsCard } from './today-portions';
 
 function todayLabel(now: Date) {
@@ -41,6 +42,7 @@ export function TodayScreen() {
       ) : profile ? (
         <View style={[styles.columns, isWide && styles.columnsWide]}>
           <View style={[styles.column, isWide && styles.side]}>
+            <TodayNextMealCard profileId={profile.id} unit={profile.carbUnit} />
             <TodayDayKindCard profileId={profile.id} today={today} />
           </View>
           <View style={[styles.column, isWide && styles.main]}>

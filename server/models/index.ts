@@ -20,6 +20,7 @@ import { ProfileSettingsModel } from './profile-settings.model';
 import { TimeOfDayModel } from './time-of-day.model';
 import { SettingsChangeModel } from './settings-change.model';
 import { LogEntryChangeModel, LogEntryModel } from './log-entry.model';
+import { PlanMealModel, PlanMealNameModel, PlannedCookModel, PlanSettingsModel, PlanWeekdayModel, ShoppingTickModel } from './plan.model';
 
 export { DatasetImportModel, FoodMeasureModel, FoodModel, FoodSynonymModel };
 export { ProfileAccessModel, ProfileModel, RevokedTokenModel, UserModel };
@@ -27,6 +28,7 @@ export { DayKindDayModel, DayKindModel, ProfileSettingsModel, SettingsChangeMode
 export { BatchIngredientModel, BatchModel, ContainerModel, PortionModel };
 export { RecipeIngredientModel, RecipeModel, RecipeShareModel };
 export { LogEntryChangeModel, LogEntryModel };
+export { PlanMealModel, PlanMealNameModel, PlannedCookModel, PlanSettingsModel, PlanWeekdayModel, ShoppingTickModel };
 
 /** Initialises every model once, then wires every association in one place. */
 export function initModels(sequelize: Sequelize): void {
@@ -52,6 +54,7 @@ export function initModels(sequelize: Sequelize): void {
   FoodSynonymModel.initModel(sequelize);
   LogEntryModel.initModel(sequelize);
   LogEntryChangeModel.initModel(sequelize);
+  for (const m of [PlanSettingsModel, PlanWeekdayModel, PlanMealNameModel, PlannedCookModel, PlanMealModel, ShoppingTickModel]) m.initModel(sequelize);
 
   ProfileModel.belongsTo(UserModel, { as: 'owner', foreignKey: 'ownerUserId' });
   ProfileAccessModel.belongsTo(ProfileModel, { as: 'profile', foreignKey: 'profileId' });

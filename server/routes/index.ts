@@ -13,6 +13,7 @@ import { importsRoutes } from './imports.routes';
 import { logbookRoutes } from './logbook.routes';
 import { logHistoryRoutes } from './log-history.routes';
 import { photosRoutes } from './photos.routes';
+import { planRoutes } from './plan.routes';
 import { portionsRoutes } from './portions.routes';
 import { profilesRoutes } from './profiles.routes';
 import { recipesRoutes } from './recipes.routes';
@@ -39,6 +40,7 @@ export function apiRoutes(deps: AppDeps): AnyRoute[] {
     ...portionsRoutes(),
     ...logbookRoutes(),
     ...logHistoryRoutes(),
+    ...planRoutes(),
     ...benchRoutes(deps),
   ];
   let document: object | undefined;

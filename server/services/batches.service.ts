@@ -11,6 +11,7 @@ import { AppError, type FieldErrors } from '../errors';
 import { BatchIngredientModel, BatchModel, FoodModel, PortionModel, ProfileModel, RecipeIngredientModel, UserModel } from '../models';
 import { findContainer } from './containers.service';
 import { getUsableFoods, toFood } from './foods.service';
+import { fillPlannedCook } from './plan.service';
 import { carbOf, toPortion } from './portions.service';
 import { findViewableRecipe } from './recipes.service';
 
@@ -261,6 +262,7 @@ export async function createBatch(profileId: number, userId: number, input: Crea
       portions.map((p, i) => ({ ...p, batchId: row.id, profileId, code: codes[i], position: i + 1 })),
       { transaction },
     );
+    if (input.plannedCookId) await fillPlannedCook(profileId, input.plannedCookId, row.id, transaction);
     return row.id;
   });
   return getBatch(profileId, id);

@@ -86,6 +86,8 @@ export const createBatchInputSchema = z
     cookedWeight: weighingSchema,
     split: splitInputSchema,
     note: z.string().trim().max(500, 'At most 500 characters.').default(''),
+    /** The week plan's planned cook this batch fulfils: its planned meals get these portions. */
+    plannedCookId: optionalId,
   })
   .superRefine((input, ctx) => {
     if (input.ingredients.length && input.ingredients.every((l) => l.omitted)) {
