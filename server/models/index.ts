@@ -19,12 +19,14 @@ import { DayKindModel } from './day-kind.model';
 import { ProfileSettingsModel } from './profile-settings.model';
 import { RatioBlockModel } from './ratio-block.model';
 import { SettingsChangeModel } from './settings-change.model';
+import { CapturedMailModel, MailOutboxModel } from './mail-outbox.model';
 
 export { DatasetImportModel, FoodMeasureModel, FoodModel, FoodSynonymModel };
 export { ProfileAccessModel, ProfileModel, RevokedTokenModel, UserModel };
 export { DayKindDayModel, DayKindModel, ProfileSettingsModel, RatioBlockModel, SettingsChangeModel };
 export { BatchIngredientModel, BatchModel, ContainerModel, PortionModel };
 export { RecipeIngredientModel, RecipeModel, RecipeShareModel };
+export { CapturedMailModel, MailOutboxModel };
 
 /** Initialises every model once, then wires every association in one place. */
 export function initModels(sequelize: Sequelize): void {
@@ -48,6 +50,8 @@ export function initModels(sequelize: Sequelize): void {
   FoodMeasureModel.initModel(sequelize);
   DatasetImportModel.initModel(sequelize);
   FoodSynonymModel.initModel(sequelize);
+  MailOutboxModel.initModel(sequelize);
+  CapturedMailModel.initModel(sequelize);
 
   ProfileModel.belongsTo(UserModel, { as: 'owner', foreignKey: 'ownerUserId' });
   ProfileAccessModel.belongsTo(ProfileModel, { as: 'profile', foreignKey: 'profileId' });
