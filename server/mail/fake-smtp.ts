@@ -18,6 +18,7 @@ export async function startFakeSmtp(options: { port?: number; onMessage: (mail: 
     banner: 'Carbwright local fake SMTP (captures mail, delivers nothing)',
     size: 1024 * 1024,
     logger: false,
+    closeTimeout: 1000,
     onData(stream, session, callback) {
       simpleParser(stream)
         .then(async (parsed) => {

@@ -20,13 +20,14 @@ import { ProfileSettingsModel } from './profile-settings.model';
 import { RatioBlockModel } from './ratio-block.model';
 import { SettingsChangeModel } from './settings-change.model';
 import { CapturedMailModel, MailOutboxModel } from './mail-outbox.model';
+import { AccountTokenModel } from './account-token.model';
 
 export { DatasetImportModel, FoodMeasureModel, FoodModel, FoodSynonymModel };
 export { ProfileAccessModel, ProfileModel, RevokedTokenModel, UserModel };
 export { DayKindDayModel, DayKindModel, ProfileSettingsModel, RatioBlockModel, SettingsChangeModel };
 export { BatchIngredientModel, BatchModel, ContainerModel, PortionModel };
 export { RecipeIngredientModel, RecipeModel, RecipeShareModel };
-export { CapturedMailModel, MailOutboxModel };
+export { AccountTokenModel, CapturedMailModel, MailOutboxModel };
 
 /** Initialises every model once, then wires every association in one place. */
 export function initModels(sequelize: Sequelize): void {
@@ -52,6 +53,7 @@ export function initModels(sequelize: Sequelize): void {
   FoodSynonymModel.initModel(sequelize);
   MailOutboxModel.initModel(sequelize);
   CapturedMailModel.initModel(sequelize);
+  AccountTokenModel.initModel(sequelize);
 
   ProfileModel.belongsTo(UserModel, { as: 'owner', foreignKey: 'ownerUserId' });
   ProfileAccessModel.belongsTo(ProfileModel, { as: 'profile', foreignKey: 'profileId' });

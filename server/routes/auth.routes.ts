@@ -1,7 +1,17 @@
 import { rateLimit } from 'express-rate-limit';
-import { changePasswordInputSchema, meSchema, sessionSchema, signInInputSchema, signUpInputSchema } from '../../shared/schemas/auth';
+import {
+  changePasswordInputSchema,
+  meSchema,
+  passwordResetInputSchema,
+  passwordResetRequestedSchema,
+  passwordResetRequestInputSchema,
+  sessionSchema,
+  signInInputSchema,
+  signUpInputSchema,
+} from '../../shared/schemas/auth';
 import { AppError } from '../errors';
 import { changePassword, getMe, signIn, signOut, signUp } from '../services/auth.service';
+import { requestPasswordReset, resetPassword, RESET_REQUESTED_MESSAGE } from '../services/password-reset.service';
 import { access, defineRoute, type AnyRoute, type AppDeps } from './registry';
 
 /** Sign-up, sign-in, sign-out, password change and /me. */
@@ -36,6 +46,19 @@ export function authRoutes({ config }: AppDeps): AnyRoute[] {
       method: 'post', path: '/auth/password', access: access.signedIn, before: [limiter], body: changePasswordInputSchema, response: sessionSchema,
       summary: 'Change the password (rate-limited) and get a new session; older tokens stop working.',
       handler: async ({ user, body }, _req, res) => res.json(await changePassword(config, user.id, body)),
+    }),
+    defineRoute({
+      method: 'post', path: '/auth/password-reset', access: access.public, before: [limiter], body: passwordResetRequestInputSchema, status: 202, response: passwordResetRequestedSchema,
+      summary: 'Ask for a password reset link by e-mail (rate-limited). The same 202 whether or not an account uses the address.',
+      handler: async ({ body }, _req, res) => {
+        await requestPasswordReset(body.email);
+        res.status(202).json({ message: RESET_REQUESTED_MESSAGE });
+      },
+    }),
+    defineRoute({
+      method: 'post', path: '/auth/password-reset/confirm', access: access.public, before: [limiter], body: passwordResetInputSchema, response: sessionSchema,
+      summary: 'Set a new password with the token from the reset link (single use, one hour); ends every other session and signs in.',
+      handler: async ({ body }, _req, res) => res.json(await resetPassword(config, body)),
     }),
     defineRoute({
       method: 'get', path: '/me', access: access.signedIn, response: meSchema, summary: 'The signed-in account and the profiles it may open.',
