@@ -19,6 +19,8 @@ const envSchema = z.object({
   BCRYPT_COST: z.coerce.number().int().min(4).max(15).default(12),
   AUTH_RATE_LIMIT: z.coerce.number().int().positive().default(20),
   AUTH_RATE_WINDOW_SECONDS: z.coerce.number().int().positive().default(15 * 60),
+  ACCOUNT_RATE_LIMIT: z.coerce.number().int().positive().default(10),
+  MAIL_RATE_LIMIT: z.coerce.number().int().positive().default(5),
   LOG_LEVEL: z.enum(['fatal', 'error', 'warn', 'info', 'debug', 'trace', 'silent']).optional(),
   DB_POOL_MAX: z.coerce.number().int().min(1).default(10),
   DB_ACQUIRE_TIMEOUT_MS: z.coerce.number().int().min(100).default(5_000),

@@ -1,4 +1,3 @@
-import { rateLimit } from 'express-rate-limit';
 import {
   changePasswordInputSchema,
   meSchema,
@@ -9,21 +8,15 @@ import {
   signInInputSchema,
   signUpInputSchema,
 } from '../../shared/schemas/auth';
-import { AppError } from '../errors';
+import { authLimits } from '../middleware/rate-limit';
 import { changePassword, getMe, signIn, signOut, signUp } from '../services/auth.service';
 import { requestPasswordReset, resetPassword, RESET_REQUESTED_MESSAGE } from '../services/password-reset.service';
 import { access, defineRoute, type AnyRoute, type AppDeps } from './registry';
 
 /** Sign-up, sign-in, sign-out, password change and /me. */
-export function authRoutes({ config }: AppDeps): AnyRoute[] {
-  const limiter = rateLimit({
-    windowMs: config.AUTH_RATE_WINDOW_SECONDS * 1000,
-    limit: config.AUTH_RATE_LIMIT,
-    standardHeaders: 'draft-8',
-    legacyHeaders: false,
-    handler: (_req, _res, next) =>
-      next(new AppError(429, 'rate_limited', 'Too many attempts. Please wait a few minutes and try again.')),
-  });
+export function authRoutes({ config, sequelize }: AppDeps): AnyRoute[] {
+  const limits = authLimits(config, sequelize);
+  const limiter = limits.perAddress;
   return [
     defineRoute({
       method: 'post', path: '/auth/sign-up', access: access.public, before: [limiter], body: signUpInputSchema, status: 201, response: sessionSchema,
@@ -32,8 +25,8 @@ export function authRoutes({ config }: AppDeps): AnyRoute[] {
     }),
     defineRoute({
       method: 'post', path: '/auth/sign-in', access: access.public, before: [limiter], body: signInInputSchema, response: sessionSchema,
-      summary: 'Sign in (rate-limited); the same 401 for an unknown email or a wrong password.',
-      handler: async ({ body }, _req, res) => res.json(await signIn(config, body)),
+      summary: 'Sign in (rate-limited per address, and per account after ACCOUNT_RATE_LIMIT failures); the same 401 for an unknown email or a wrong password.',
+      handler: async ({ body }, _req, res) => res.json(await limits.guardAccount(body.email, res, () => signIn(config, body))),
     }),
     defineRoute({
       method: 'post', path: '/auth/sign-out', access: access.signedIn, status: 204, summary: 'Revoke this token.',
@@ -51,7 +44,8 @@ export function authRoutes({ config }: AppDeps): AnyRoute[] {
       method: 'post', path: '/auth/password-reset', access: access.public, before: [limiter], body: passwordResetRequestInputSchema, status: 202, response: passwordResetRequestedSchema,
       summary: 'Ask for a password reset link by e-mail (rate-limited). The same 202 whether or not an account uses the address.',
       handler: async ({ body }, _req, res) => {
-        await requestPasswordReset(body.email);
+        // Past MAIL_RATE_LIMIT mails an hour to one address, nothing more is sent, and the answer stays the same.
+        if (await limits.mayMail(body.email)) await requestPasswordReset(body.email);
         res.status(202).json({ message: RESET_REQUESTED_MESSAGE });
       },
     }),
