@@ -26,7 +26,7 @@ function useStartSession() {
   return (session: Session) => {
     queryClient.clear();
     queryClient.setQueryData(authKeys.me(), session.me);
-    signIn(session.token);
+    signIn();
   };
 }
 

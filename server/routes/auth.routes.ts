@@ -9,6 +9,7 @@ import {
   signUpInputSchema,
 } from '../../shared/schemas/auth';
 import { authLimits } from '../middleware/rate-limit';
+import { clearSessionCookies, sendSession } from '../middleware/session-cookie';
 import { changePassword, getMe, signIn, signOut, signUp } from '../services/auth.service';
 import { requestPasswordReset, resetPassword, RESET_REQUESTED_MESSAGE } from '../services/password-reset.service';
 import { access, defineRoute, type AnyRoute, type AppDeps } from './registry';
@@ -21,24 +22,25 @@ export function authRoutes({ config, sequelize }: AppDeps): AnyRoute[] {
     defineRoute({
       method: 'post', path: '/auth/sign-up', access: access.public, before: [limiter], body: signUpInputSchema, status: 201, response: sessionSchema,
       summary: 'Create an account (rate-limited): a member also gets their own profile. 409 when the email is taken.',
-      handler: async ({ body }, _req, res) => res.status(201).json(await signUp(config, body)),
+      handler: async ({ body }, req, res) => sendSession(config, req, res, await signUp(config, body), 201),
     }),
     defineRoute({
       method: 'post', path: '/auth/sign-in', access: access.public, before: [limiter], body: signInInputSchema, response: sessionSchema,
       summary: 'Sign in (rate-limited per address, and per account after ACCOUNT_RATE_LIMIT failures); the same 401 for an unknown email or a wrong password.',
-      handler: async ({ body }, _req, res) => res.json(await limits.guardAccount(body.email, res, () => signIn(config, body))),
+      handler: async ({ body }, req, res) => sendSession(config, req, res, await limits.guardAccount(body.email, res, () => signIn(config, body))),
     }),
     defineRoute({
-      method: 'post', path: '/auth/sign-out', access: access.signedIn, status: 204, summary: 'Revoke this token.',
-      handler: async ({ auth }, _req, res) => {
+      method: 'post', path: '/auth/sign-out', access: access.signedIn, status: 204, summary: 'Revoke this token and clear the session cookies.',
+      handler: async ({ auth }, req, res) => {
         await signOut(auth.jti, auth.expiresAt);
+        clearSessionCookies(req, res);
         res.status(204).end();
       },
     }),
     defineRoute({
       method: 'post', path: '/auth/password', access: access.signedIn, before: [limiter], body: changePasswordInputSchema, response: sessionSchema,
       summary: 'Change the password (rate-limited) and get a new session; older tokens stop working.',
-      handler: async ({ user, body }, _req, res) => res.json(await changePassword(config, user.id, body)),
+      handler: async ({ user, body }, req, res) => sendSession(config, req, res, await changePassword(config, user.id, body)),
     }),
     defineRoute({
       method: 'post', path: '/auth/password-reset', access: access.public, before: [limiter], body: passwordResetRequestInputSchema, status: 202, response: passwordResetRequestedSchema,
@@ -52,7 +54,7 @@ export function authRoutes({ config, sequelize }: AppDeps): AnyRoute[] {
     defineRoute({
       method: 'post', path: '/auth/password-reset/confirm', access: access.public, before: [limiter], body: passwordResetInputSchema, response: sessionSchema,
       summary: 'Set a new password with the token from the reset link (single use, one hour); ends every other session and signs in.',
-      handler: async ({ body }, _req, res) => res.json(await resetPassword(config, body)),
+      handler: async ({ body }, req, res) => sendSession(config, req, res, await resetPassword(config, body)),
     }),
     defineRoute({
       method: 'get', path: '/me', access: access.signedIn, response: meSchema, summary: 'The signed-in account and the profiles it may open.',
