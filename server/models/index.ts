@@ -21,13 +21,14 @@ import { RatioBlockModel } from './ratio-block.model';
 import { SettingsChangeModel } from './settings-change.model';
 import { CapturedMailModel, MailOutboxModel } from './mail-outbox.model';
 import { AccountTokenModel } from './account-token.model';
+import { AccountAuditModel } from './account-audit.model';
 
 export { DatasetImportModel, FoodMeasureModel, FoodModel, FoodSynonymModel };
 export { ProfileAccessModel, ProfileModel, RevokedTokenModel, UserModel };
 export { DayKindDayModel, DayKindModel, ProfileSettingsModel, RatioBlockModel, SettingsChangeModel };
 export { BatchIngredientModel, BatchModel, ContainerModel, PortionModel };
 export { RecipeIngredientModel, RecipeModel, RecipeShareModel };
-export { AccountTokenModel, CapturedMailModel, MailOutboxModel };
+export { AccountAuditModel, AccountTokenModel, CapturedMailModel, MailOutboxModel };
 
 /** Initialises every model once, then wires every association in one place. */
 export function initModels(sequelize: Sequelize): void {
@@ -54,6 +55,7 @@ export function initModels(sequelize: Sequelize): void {
   MailOutboxModel.initModel(sequelize);
   CapturedMailModel.initModel(sequelize);
   AccountTokenModel.initModel(sequelize);
+  AccountAuditModel.initModel(sequelize);
 
   ProfileModel.belongsTo(UserModel, { as: 'owner', foreignKey: 'ownerUserId' });
   ProfileAccessModel.belongsTo(ProfileModel, { as: 'profile', foreignKey: 'profileId' });
@@ -75,4 +77,6 @@ export function initModels(sequelize: Sequelize): void {
   BatchModel.hasMany(PortionModel, { as: 'portions', foreignKey: 'batchId' });
   BatchModel.belongsTo(UserModel, { as: 'cookedBy', foreignKey: 'cookedByUserId' });
   PortionModel.belongsTo(BatchModel, { as: 'batch', foreignKey: 'batchId' });
+  AccountAuditModel.belongsTo(UserModel, { as: 'user', foreignKey: 'userId' });
+  AccountAuditModel.belongsTo(UserModel, { as: 'actor', foreignKey: 'actorUserId' });
 }

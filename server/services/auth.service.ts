@@ -102,6 +102,8 @@ export async function signIn(config: Config, input: SignInInput): Promise<Sessio
   // bcrypt reads only 72 bytes: a longer password is never the right one, however it starts.
   const fits = utf8Bytes(input.password) <= PASSWORD_MAX_BYTES;
   if (!user || !ok || !fits) throw AppError.unauthorized('Email or password is not right.');
+  // Only after the right password, so the answer tells nothing to someone guessing.
+  if (user.disabledAt) throw AppError.forbidden('This account is disabled. Ask the person who runs your Carbwright.');
   return sessionFor(config, user);
 }
 
@@ -115,7 +117,7 @@ export async function verifyToken(config: Config, token: string) {
     throw AppError.unauthorized(expired ? 'Your session has expired. Please sign in again.' : 'Please sign in.');
   }
   const user = await UserModel.findByPk(Number(claims.sub));
-  if (!user || user.tokenVersion !== claims.tv) throw AppError.unauthorized('Please sign in again.');
+  if (!user || user.tokenVersion !== claims.tv || user.disabledAt) throw AppError.unauthorized('Please sign in again.');
   if (await RevokedTokenModel.findByPk(claims.jti)) throw AppError.unauthorized('Please sign in again.');
   return { user, jti: claims.jti, expiresAt: new Date(claims.exp * 1000) };
 }

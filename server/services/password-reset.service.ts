@@ -20,7 +20,7 @@ export const RESET_REQUESTED_MESSAGE = 'If an account uses that address, we have
 export async function requestPasswordReset(email: string): Promise<void> {
   await UserModel.sequelize!.transaction(async () => {
     const user = await UserModel.findOne({ where: { email } });
-    if (!user) return;
+    if (!user || user.disabledAt) return;
     const token = await issueAccountToken(user.id, 'password_reset', RESET_TTL_MINUTES);
     await queueMail('password_reset', user.email, { link: mailLink('/reset-password', { token }), expiresInMinutes: RESET_TTL_MINUTES });
   });
@@ -31,7 +31,7 @@ export async function resetPassword(config: Config, input: PasswordResetInput): 
   const user = await UserModel.sequelize!.transaction(async () => {
     const token = await consumeAccountToken(input.token, 'password_reset');
     const found = await UserModel.findByPk(token.userId, { lock: true });
-    if (!found) throw invalidLink();
+    if (!found || found.disabledAt) throw invalidLink();
     const problem = passwordProblem(input.password, [found.email, found.displayName]);
     if (problem) throw AppError.validation({ password: [problem] });
     found.passwordHash = await bcrypt.hash(input.password, config.BCRYPT_COST);
