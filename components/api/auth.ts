@@ -1,5 +1,5 @@
 import { queryOptions, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
-import type { ChangePasswordInput, Me, Session, SignInInput, SignUpInput } from '../../shared/schemas/auth';
+import type { ChangePasswordInput, Me, PasswordResetInput, PasswordResetRequestInput, Session, SignInInput, SignUpInput } from '../../shared/schemas/auth';
 import { useSession } from '../auth/session';
 import { apiFetch } from './client';
 
@@ -26,7 +26,7 @@ function useStartSession() {
   return (session: Session) => {
     queryClient.clear();
     queryClient.setQueryData(authKeys.me(), session.me);
-    signIn(session.token);
+    signIn();
   };
 }
 
@@ -50,6 +50,22 @@ export function useChangePassword() {
   const start = useStartSession();
   return useMutation({
     mutationFn: (input: ChangePasswordInput) => apiFetch<Session>('/auth/password', { method: 'POST', body: input }),
+    onSuccess: start,
+  });
+}
+
+/** Asks for a reset link; the answer is the same whether or not an account uses the address. */
+export function useRequestPasswordReset() {
+  return useMutation({
+    mutationFn: (input: PasswordResetRequestInput) => apiFetch<{ message: string }>('/auth/password-reset', { method: 'POST', body: input }),
+  });
+}
+
+/** Sets a new password with the token from the mailed link, and signs in. */
+export function useResetPassword() {
+  const start = useStartSession();
+  return useMutation({
+    mutationFn: (input: PasswordResetInput) => apiFetch<Session>('/auth/password-reset/confirm', { method: 'POST', body: input }),
     onSuccess: start,
   });
 }

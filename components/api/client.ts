@@ -1,5 +1,5 @@
 import { apiErrorSchema } from '../../shared/schemas/api-error';
-import { tokenStore } from '../auth/token-store';
+import { sessionCookie } from '../auth/session-cookie';
 
 /** An error answer from the API, in the one shape the server sends. */
 export class ApiError extends Error {
@@ -33,7 +33,7 @@ export function queryString(params: Record<string, string | number | undefined |
   return parts.length ? `?${parts.join('&')}` : '';
 }
 
-/** The one fetch wrapper: JSON in and out, bearer token, errors as ApiError. */
+/** The one fetch wrapper: JSON in and out, the session cookie and its CSRF header, errors as ApiError. */
 export async function apiFetch<T>(path: string, init: Init = {}): Promise<T> {
   const res = await send(path, init);
   if (res.status === 204) return undefined as T;
@@ -41,23 +41,25 @@ export async function apiFetch<T>(path: string, init: Init = {}): Promise<T> {
   return (text ? safeJson(text) : undefined) as T;
 }
 
-/** The same call for a binary answer (a photo behind the bearer token). */
+/** The same call for a binary answer (a photo behind the session). */
 export async function apiFetchBlob(path: string, init: Init = {}): Promise<Blob> {
   return (await send(path, init)).blob();
 }
 
 async function send(path: string, init: Init): Promise<Response> {
-  const token = tokenStore.get();
+  const csrf = sessionCookie.csrf();
   const headers = new Headers(init.headers);
   headers.set('Accept', 'application/json');
   const isForm = typeof FormData !== 'undefined' && init.body instanceof FormData;
   if (init.body !== undefined && !isForm) headers.set('Content-Type', 'application/json');
-  if (token) headers.set('Authorization', `Bearer ${token}`);
+  const method = (init.method ?? 'GET').toUpperCase();
+  if (csrf && method !== 'GET' && method !== 'HEAD') headers.set('X-CSRF-Token', csrf);
   let res: Response;
   try {
     res = await fetch(`${API_BASE}/api${path}`, {
       ...init,
       headers,
+      credentials: 'same-origin',
       body: init.body === undefined ? undefined : isForm ? (init.body as FormData) : JSON.stringify(init.body),
     });
   } catch (err) {
@@ -66,7 +68,7 @@ async function send(path: string, init: Init): Promise<Response> {
   }
   if (res.ok) return res;
   const text = await res.text();
-  if (res.status === 401 && token) onUnauthorized?.();
+  if (res.status === 401 && csrf) onUnauthorized?.();
   const parsed = apiErrorSchema.safeParse(text ? safeJson(text) : undefined);
   if (parsed.success) {
     const { code, message, fieldErrors } = parsed.data.error;

@@ -1,28 +1,27 @@
 import { createContext, useCallback, useContext, useEffect, useMemo, useState, type ReactNode } from 'react';
 import { useQueryClient } from '@tanstack/react-query';
 import { setUnauthorizedHandler } from '../api/client';
-import { tokenStore } from './token-store';
+import { sessionCookie } from './session-cookie';
 
 type Status = 'loading' | 'signed-in' | 'signed-out';
-type SessionValue = { status: Status; signIn: (token: string) => void; signOut: () => void };
+type SessionValue = { status: Status; signIn: () => void; signOut: () => void };
 
 const SessionContext = createContext<SessionValue | null>(null);
 
-/** Holds whether someone is signed in; any 401 from the API signs out. */
+/** Holds whether someone is signed in (the session itself is an HttpOnly cookie); any 401 from the API signs out. */
 export function SessionProvider({ children }: { children: ReactNode }) {
   const queryClient = useQueryClient();
   const [status, setStatus] = useState<Status>('loading');
 
   useEffect(() => {
-    setStatus(tokenStore.get() ? 'signed-in' : 'signed-out');
+    setStatus(sessionCookie.csrf() ? 'signed-in' : 'signed-out');
   }, []);
 
-  const signIn = useCallback((token: string) => {
-    tokenStore.set(token);
+  const signIn = useCallback(() => {
     setStatus('signed-in');
   }, []);
   const signOut = useCallback(() => {
-    tokenStore.clear();
+    sessionCookie.clear();
     setStatus('signed-out');
     queryClient.clear();
   }, [queryClient]);

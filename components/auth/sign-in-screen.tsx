@@ -34,6 +34,7 @@ export function SignInScreen() {
       <FormTextField control={form.control} name="email" label="Email" autoComplete="email" keyboardType="email-address" autoCapitalize="none" inputMode="email" />
       <FormTextField control={form.control} name="password" label="Password" secureTextEntry autoComplete="current-password" onSubmitEditing={onSubmit} />
       <Button label="Sign in" size="lg" loading={signIn.isPending} onPress={onSubmit} />
+      <TextLink href="/forgot-password" label="Forgotten your password?" />
       <View style={styles.switch}>
         <Text color="textMuted">New here?</Text>
         <TextLink href={{ pathname: '/sign-up', params: next ? { next } : {} }} label="Create an account" />

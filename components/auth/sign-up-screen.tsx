@@ -43,7 +43,7 @@ export function SignUpScreen() {
         control={form.control}
         name="password"
         label="Password"
-        hint={`At least ${PASSWORD_MIN_LENGTH} characters. A few unrelated words work well.`}
+        hint={`At least ${PASSWORD_MIN_LENGTH} characters, not a common password or your e-mail address. A few unrelated words work well.`}
         secureTextEntry
         autoComplete="new-password"
         onSubmitEditing={onSubmit}

@@ -5,6 +5,7 @@ import { AppError } from '../errors';
 import type { ProfileAccessModel, UserModel } from '../models';
 import { findProfileAccess, verifyToken } from '../services/auth.service';
 import type { Config } from '../config';
+import { csrfMatches, CSRF_HEADER, readCookie, SESSION_COOKIE } from './session-cookie';
 
 export type AuthContext = { user: UserModel; jti: string; expiresAt: Date };
 
@@ -15,13 +16,22 @@ declare module 'express-serve-static-core' {
   }
 }
 
-/** Requires a valid bearer token; sets req.auth. */
+const SAFE_METHODS = new Set(['GET', 'HEAD', 'OPTIONS']);
+
+/**
+ * Requires a valid session: a bearer token (API clients, tests) or the web app's session cookie. A request that
+ * changes something on the strength of the cookie must also carry the CSRF header (double submit), or it gets 403.
+ */
 export function requireAuth(config: Config) {
   return async (req: Request, _res: Response, next: NextFunction) => {
-    const header = req.get('authorization') ?? '';
-    const match = /^Bearer\s+(.+)$/i.exec(header);
-    if (!match) return next(AppError.unauthorized());
-    req.auth = await verifyToken(config, match[1].trim());
+    const match = /^Bearer\s+(.+)$/i.exec(req.get('authorization') ?? '');
+    const cookie = match ? undefined : readCookie(req, SESSION_COOKIE);
+    const token = match?.[1].trim() ?? cookie;
+    if (!token) return next(AppError.unauthorized());
+    req.auth = await verifyToken(config, token);
+    if (cookie && !SAFE_METHODS.has(req.method) && !csrfMatches(config, req.auth.jti, req.get(CSRF_HEADER))) {
+      return next(AppError.forbidden('This request did not come from the Carbwright page. Reload the page and try again.'));
+    }
     next();
   };
 }

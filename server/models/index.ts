@@ -21,6 +21,9 @@ import { TimeOfDayModel } from './time-of-day.model';
 import { SettingsChangeModel } from './settings-change.model';
 import { LogEntryChangeModel, LogEntryModel } from './log-entry.model';
 import { PlanMealModel, PlanMealNameModel, PlannedCookModel, PlanSettingsModel, PlanWeekdayModel, ShoppingTickModel } from './plan.model';
+import { CapturedMailModel, MailOutboxModel } from './mail-outbox.model';
+import { AccountTokenModel } from './account-token.model';
+import { AccountAuditModel } from './account-audit.model';
 
 export { DatasetImportModel, FoodMeasureModel, FoodModel, FoodSynonymModel };
 export { ProfileAccessModel, ProfileModel, RevokedTokenModel, UserModel };
@@ -29,6 +32,7 @@ export { BatchIngredientModel, BatchModel, ContainerModel, PortionModel };
 export { RecipeIngredientModel, RecipeModel, RecipeShareModel };
 export { LogEntryChangeModel, LogEntryModel };
 export { PlanMealModel, PlanMealNameModel, PlannedCookModel, PlanSettingsModel, PlanWeekdayModel, ShoppingTickModel };
+export { AccountAuditModel, AccountTokenModel, CapturedMailModel, MailOutboxModel };
 
 /** Initialises every model once, then wires every association in one place. */
 export function initModels(sequelize: Sequelize): void {
@@ -55,6 +59,10 @@ export function initModels(sequelize: Sequelize): void {
   LogEntryModel.initModel(sequelize);
   LogEntryChangeModel.initModel(sequelize);
   for (const m of [PlanSettingsModel, PlanWeekdayModel, PlanMealNameModel, PlannedCookModel, PlanMealModel, ShoppingTickModel]) m.initModel(sequelize);
+  MailOutboxModel.initModel(sequelize);
+  CapturedMailModel.initModel(sequelize);
+  AccountTokenModel.initModel(sequelize);
+  AccountAuditModel.initModel(sequelize);
 
   ProfileModel.belongsTo(UserModel, { as: 'owner', foreignKey: 'ownerUserId' });
   ProfileAccessModel.belongsTo(ProfileModel, { as: 'profile', foreignKey: 'profileId' });
@@ -81,4 +89,6 @@ export function initModels(sequelize: Sequelize): void {
   LogEntryModel.belongsTo(DayKindModel, { as: 'dayKind', foreignKey: 'dayKindId' });
   LogEntryModel.hasMany(LogEntryChangeModel, { as: 'changes', foreignKey: 'entryId' });
   LogEntryChangeModel.belongsTo(UserModel, { as: 'changedBy', foreignKey: 'changedByUserId' });
+  AccountAuditModel.belongsTo(UserModel, { as: 'user', foreignKey: 'userId' });
+  AccountAuditModel.belongsTo(UserModel, { as: 'actor', foreignKey: 'actorUserId' });
 }

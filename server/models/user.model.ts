@@ -9,6 +9,8 @@ export class UserModel extends Model<InferAttributes<UserModel>, InferCreationAt
   declare passwordHash: string;
   declare role: CreationOptional<UserRole>;
   declare tokenVersion: CreationOptional<number>;
+  declare disabledAt: CreationOptional<Date | null>;
+  declare disabledReason: CreationOptional<string | null>;
   declare createdAt: CreationOptional<Date>;
   declare updatedAt: CreationOptional<Date>;
 
@@ -32,6 +34,8 @@ export class UserModel extends Model<InferAttributes<UserModel>, InferCreationAt
         passwordHash: { type: DataTypes.STRING(100), allowNull: false },
         role: { type: DataTypes.ENUM('member', 'clinician', 'admin'), allowNull: false, defaultValue: 'member' },
         tokenVersion: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 0 },
+        disabledAt: { type: DataTypes.DATE, allowNull: true },
+        disabledReason: { type: DataTypes.STRING(500), allowNull: true },
         createdAt: DataTypes.DATE,
         updatedAt: DataTypes.DATE,
       },

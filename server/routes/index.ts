@@ -12,6 +12,7 @@ import { healthRoutes } from './health.routes';
 import { importsRoutes } from './imports.routes';
 import { logbookRoutes } from './logbook.routes';
 import { logHistoryRoutes } from './log-history.routes';
+import { mailRoutes } from './mail.routes';
 import { photosRoutes } from './photos.routes';
 import { planRoutes } from './plan.routes';
 import { portionsRoutes } from './portions.routes';
@@ -28,6 +29,7 @@ export function apiRoutes(deps: AppDeps): AnyRoute[] {
     ...healthRoutes(deps),
     ...authRoutes(deps),
     ...adminRoutes(),
+    ...mailRoutes(),
     ...foodsRoutes(deps),
     ...foodSynonymsRoutes(),
     ...importsRoutes(deps),

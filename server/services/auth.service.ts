@@ -4,6 +4,7 @@ import jwt from 'jsonwebtoken';
 import { Op, UniqueConstraintError } from 'sequelize';
 import type { ChangePasswordInput, Me, Session, SignInInput, SignUpInput, UserRole } from '../../shared/schemas/auth';
 import type { Config } from '../config';
+import { passwordProblem, utf8Bytes, PASSWORD_MAX_BYTES } from '../../shared/compute/password';
 import { AppError } from '../errors';
 import { ProfileAccessModel, ProfileModel, RevokedTokenModel, UserModel } from '../models';
 
@@ -56,7 +57,8 @@ export async function getMe(userId: number): Promise<Me> {
   return { user: user.toUser(), profiles };
 }
 
-async function sessionFor(config: Config, user: UserModel): Promise<Session> {
+/** A fresh session (token and /me) for a user who has just proved who they are. */
+export async function sessionFor(config: Config, user: UserModel): Promise<Session> {
   const { token, expiresAt } = issueToken(config, user);
   return { token, expiresAt: expiresAt.toISOString(), me: await getMe(user.id) };
 }
@@ -98,7 +100,11 @@ export async function signUp(config: Config, input: SignUpInput, role: UserRole 
 export async function signIn(config: Config, input: SignInInput): Promise<Session> {
   const user = await UserModel.findOne({ where: { email: input.email } });
   const ok = await bcrypt.compare(input.password, user?.passwordHash ?? (await getDummyHash(config.BCRYPT_COST)));
-  if (!user || !ok) throw AppError.unauthorized('Email or password is not right.');
+  // bcrypt reads only 72 bytes: a longer password is never the right one, however it starts.
+  const fits = utf8Bytes(input.password) <= PASSWORD_MAX_BYTES;
+  if (!user || !ok || !fits) throw AppError.unauthorized('Email or password is not right.');
+  // Only after the right password, so the answer tells nothing to someone guessing.
+  if (user.disabledAt) throw AppError.forbidden('This account is disabled. Ask the person who runs your Carbwright.');
   return sessionFor(config, user);
 }
 
@@ -112,7 +118,7 @@ export async function verifyToken(config: Config, token: string) {
     throw AppError.unauthorized(expired ? 'Your session has expired. Please sign in again.' : 'Please sign in.');
   }
   const user = await UserModel.findByPk(Number(claims.sub));
-  if (!user || user.tokenVersion !== claims.tv) throw AppError.unauthorized('Please sign in again.');
+  if (!user || user.tokenVersion !== claims.tv || user.disabledAt) throw AppError.unauthorized('Please sign in again.');
   if (await RevokedTokenModel.findByPk(claims.jti)) throw AppError.unauthorized('Please sign in again.');
   return { user, jti: claims.jti, expiresAt: new Date(claims.exp * 1000) };
 }
@@ -130,6 +136,8 @@ export async function changePassword(config: Config, userId: number, input: Chan
   if (!(await bcrypt.compare(input.currentPassword, user.passwordHash))) {
     throw AppError.validation({ currentPassword: ['That is not your current password.'] });
   }
+  const problem = passwordProblem(input.newPassword, [user.email, user.displayName]);
+  if (problem) throw AppError.validation({ newPassword: [problem] });
   user.passwordHash = await bcrypt.hash(input.newPassword, config.BCRYPT_COST);
   user.tokenVersion += 1;
   await user.save();

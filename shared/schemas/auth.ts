@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { PASSWORD_MIN_LENGTH, passwordProblem } from '../compute/password';
 import { carbBasisSchema, carbUnitSchema, glucoseUnitSchema, preferredFoodTableSchema, timeZoneSchema } from './units';
 
 export const userRoleSchema = z.enum(['member', 'clinician', 'admin']);
@@ -8,9 +9,9 @@ export type UserRole = z.infer<typeof userRoleSchema>;
 export const profileAccessRoleSchema = z.enum(['owner', 'carer', 'clinician']);
 export type ProfileAccessRole = z.infer<typeof profileAccessRoleSchema>;
 
-export const PASSWORD_MIN_LENGTH = 10;
+export { PASSWORD_MIN_LENGTH };
 
-const emailSchema = z
+export const emailSchema = z
   .string()
   .trim()
   .min(1, 'Enter your email address.')
@@ -18,10 +19,23 @@ const emailSchema = z
   .pipe(z.email('Enter a valid email address.'))
   .transform((value) => value.toLowerCase());
 
-const newPasswordSchema = z
-  .string()
-  .min(PASSWORD_MIN_LENGTH, `Use at least ${PASSWORD_MIN_LENGTH} characters.`)
-  .max(200, 'Use at most 200 characters.');
+/** A new password: the shared rules (shared/compute/password.ts) without the person's own words. */
+export const newPasswordSchema = z.string().superRefine((value, ctx) => {
+  const problem = passwordProblem(value);
+  if (problem) ctx.addIssue({ code: 'custom', message: problem });
+});
+
+/** The same rules with the person's e-mail address and name, on the object that holds them. */
+function refusePersonal<T extends Record<string, unknown>>(passwordKey: keyof T & string, personalKeys: (keyof T & string)[]) {
+  return (value: T, ctx: z.RefinementCtx) => {
+    const personal = personalKeys.map((k): unknown => value[k]).filter((v): v is string => typeof v === 'string');
+    const password = String(value[passwordKey]);
+    // The field's own schema has already reported a problem that does not depend on these words.
+    if (passwordProblem(password)) return;
+    const problem = passwordProblem(password, personal);
+    if (problem) ctx.addIssue({ code: 'custom', path: [passwordKey], message: problem });
+  };
+}
 
 export const signUpInputSchema = z.object({
   email: emailSchema,
@@ -31,7 +45,7 @@ export const signUpInputSchema = z.object({
   preferredFoodTable: preferredFoodTableSchema.optional(),
   /** The browser's time zone (IANA name); UTC when not given. */
   timeZone: timeZoneSchema.optional(),
-});
+}).superRefine(refusePersonal('password', ['email', 'displayName']));
 export type SignUpInput = z.infer<typeof signUpInputSchema>;
 
 export const signInInputSchema = z.object({
@@ -40,10 +54,12 @@ export const signInInputSchema = z.object({
 });
 export type SignInInput = z.infer<typeof signInInputSchema>;
 
-export const changePasswordInputSchema = z.object({
-  currentPassword: z.string().min(1, 'Enter your current password.').max(200),
-  newPassword: newPasswordSchema,
-});
+export const changePasswordInputSchema = z
+  .object({
+    currentPassword: z.string().min(1, 'Enter your current password.').max(200),
+    newPassword: newPasswordSchema,
+  })
+  .refine((v) => v.newPassword !== v.currentPassword, { path: ['newPassword'], message: 'Choose a password different from your current one.' });
 export type ChangePasswordInput = z.infer<typeof changePasswordInputSchema>;
 
 export const userSchema = z.object({
@@ -79,3 +95,17 @@ export const sessionSchema = z.object({
   me: meSchema,
 });
 export type Session = z.infer<typeof sessionSchema>;
+
+/** Ask for a password reset link. */
+export const passwordResetRequestInputSchema = z.object({ email: emailSchema });
+export type PasswordResetRequestInput = z.infer<typeof passwordResetRequestInputSchema>;
+
+/** The token from the reset link and the new password. */
+export const passwordResetInputSchema = z.object({
+  token: z.string().min(1, 'This link is incomplete. Ask for a new one.').max(200),
+  password: newPasswordSchema,
+});
+export type PasswordResetInput = z.infer<typeof passwordResetInputSchema>;
+
+/** The one answer to a reset request, whether or not an account uses the address. */
+export const passwordResetRequestedSchema = z.object({ message: z.string() });

@@ -5,7 +5,6 @@ import { getMockContext } from 'expo-router/build/testing-library/mock-config';
 import type { ReactElement } from 'react';
 import { createQueryClient } from '@/components/api/query-client';
 import { SessionProvider } from '@/components/auth/session';
-import { tokenStore } from '@/components/auth/token-store';
 import type { Me } from '@/shared/schemas/auth';
 
 /** One answer of the fake API: a status and a JSON body. */
@@ -53,7 +52,7 @@ export function AppRoot() {
 
 /** Renders `Screen` signed in, inside the router, the query client and the session, as the app does. */
 export function renderSignedIn(Screen: () => ReactElement) {
-  tokenStore.set('test-token');
+  document.cookie = 'cw_csrf=test-csrf; path=/';
   return render(<ExpoRoot context={getMockContext({ _layout: AppRoot, index: Screen })} location="/" />);
 }
 

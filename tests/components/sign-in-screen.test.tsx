@@ -3,7 +3,7 @@ import { ExpoRoot } from 'expo-router';
 import { getMockContext } from 'expo-router/build/testing-library/mock-config';
 import { Text } from 'react-native';
 import { SignInScreen } from '@/components/auth/sign-in-screen';
-import { tokenStore } from '@/components/auth/token-store';
+import { sessionCookie } from '@/components/auth/session-cookie';
 import { AppRoot } from './render-with-api';
 
 function renderAt(location: string) {
@@ -21,7 +21,7 @@ function respond(status: number, body: unknown) {
 }
 
 beforeEach(() => {
-  tokenStore.clear();
+  sessionCookie.clear();
 });
 
 describe('SignInScreen', () => {
@@ -45,10 +45,10 @@ describe('SignInScreen', () => {
     fireEvent.click(screen.getByRole('button', { name: 'Sign in' }));
 
     expect(await screen.findByText('Email or password is not right.')).toBeInTheDocument();
-    expect(tokenStore.get()).toBeNull();
+    expect(sessionCookie.csrf()).toBeNull();
   });
 
-  it('keeps the token and goes to the page asked for after signing in', async () => {
+  it('goes to the page asked for after signing in, keeping no token in the page', async () => {
     const me = { user: { id: 1, email: 'cook@example.test', displayName: 'Cook', role: 'member', createdAt: '2026-01-01T00:00:00.000Z' }, profiles: [] };
     respond(200, { token: 'token-abc', expiresAt: '2026-12-31T00:00:00.000Z', me });
     renderAt('/sign-in?next=%2Fplan');
@@ -58,8 +58,10 @@ describe('SignInScreen', () => {
     fireEvent.click(screen.getByRole('button', { name: 'Sign in' }));
 
     expect(await screen.findByText('Plan page')).toBeInTheDocument();
-    expect(tokenStore.get()).toBe('token-abc');
     const [, init] = (globalThis.fetch as jest.Mock).mock.calls[0];
+    expect(init.credentials).toBe('same-origin');
+    expect(new Headers(init.headers).get('Authorization')).toBeNull();
+    expect(JSON.stringify(globalThis.localStorage ?? {})).not.toContain('token-abc');
     expect(JSON.parse(init.body)).toEqual({ email: 'cook@example.test', password: 'the right password' });
   });
 });

@@ -19,7 +19,7 @@ afterAll(async () => {
 async function signedIn(viewport: { width: number; height: number }, path: string): Promise<Page> {
   const page = await rig.newPage(viewport);
   await page.goto(`${rig.baseUrl}/sign-in`);
-  await page.evaluate((t) => localStorage.setItem('carbwright.session', t), token);
+  await rig.signIn(page, token);
   await page.goto(`${rig.baseUrl}${path}`);
   return page;
 }

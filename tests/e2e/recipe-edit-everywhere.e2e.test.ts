@@ -42,7 +42,7 @@ describe('a recipe edit reaches every screen without a reload', () => {
   it('edits title and grams; the cook screen and the library show the edit', async () => {
     const { token, recipeId } = await cookWithRecipe();
     const page = await rig.newPage(PHONE);
-    await page.addInitScript((t) => window.localStorage.setItem('carbwright.session', t), token);
+    await rig.signIn(page, token);
     await page.goto(`${rig.baseUrl}/recipes`);
     await page.getByText('Lentil soup', { exact: true }).first().waitFor();
     // Set after the one page load: a reload would wipe it.
@@ -79,7 +79,7 @@ describe('a recipe edit reaches every screen without a reload', () => {
 
     // The same two forms at a wide width, for the screenshots.
     const wide = await rig.newPage(WIDE);
-    await wide.addInitScript((t) => window.localStorage.setItem('carbwright.session', t), token);
+    await rig.signIn(wide, token);
     await wide.goto(`${rig.baseUrl}/recipes/${recipeId}/edit`);
     await wide.getByLabel('Grams of Red lentils, dry', { exact: true }).waitFor();
     await rig.shot(wide, 'wide-recipe-editor');

@@ -31,7 +31,7 @@ async function signUp(name: string): Promise<{ token: string; email: string }> {
 
 async function signedInPage(viewport: { width: number; height: number }, token: string): Promise<Page> {
   const page = await rig.newPage(viewport);
-  await page.addInitScript((t) => window.localStorage.setItem('carbwright.session', t), token);
+  await rig.signIn(page, token);
   return page;
 }
 

@@ -106,7 +106,7 @@ async function setUpHousehold() {
 async function signedInPage(token: string, viewport: { width: number; height: number }): Promise<Page> {
   const page = await rig.newPage(viewport);
   await page.goto(`${rig.baseUrl}/sign-in`);
-  await page.evaluate((t) => localStorage.setItem('carbwright.session', t), token);
+  await rig.signIn(page, token);
   return page;
 }
 

@@ -68,7 +68,7 @@ async function cookBatch(profileId: number, auth: Record<string, string>) {
 async function signedIn(token: string, viewport: { width: number; height: number }, path: string): Promise<Page> {
   const page = await rig.newPage(viewport);
   await page.goto(`${rig.baseUrl}/sign-in`);
-  await page.evaluate((t) => localStorage.setItem('carbwright.session', t), token);
+  await rig.signIn(page, token);
   await page.goto(`${rig.baseUrl}${path}`);
   return page;
 }

@@ -5,8 +5,9 @@ import os from 'node:os';
 import path from 'node:path';
 import { chromium, type BrowserContext, type Page } from 'playwright-core';
 import type { Sequelize } from 'sequelize';
-import { createApp } from '../../server/app';
+import { createApp, stopApp } from '../../server/app';
 import { REPO_ROOT } from '../../server/config';
+import { CSRF_COOKIE, csrfTokenFor, SESSION_COOKIE } from '../../server/middleware/session-cookie';
 import { openTestDatabase, testConfig } from './db';
 
 export const PHONE = { width: 390, height: 844 } as const;
@@ -17,6 +18,8 @@ export type BrowserRig = {
   sequelize: Sequelize;
   newPage: (viewport: { width: number; height: number }) => Promise<Page>;
   shot: (page: Page, name: string) => Promise<void>;
+  /** Signs a page's browser context in with a token from the API, as the server's session cookies would. */
+  signIn: (page: Page, token: string) => Promise<void>;
   close: () => Promise<void>;
 };
 
@@ -55,6 +58,13 @@ export async function startBrowserRig(suite: string): Promise<BrowserRig> {
       });
       return page;
     },
+    async signIn(page, token) {
+      const { jti } = JSON.parse(Buffer.from(token.split('.')[1], 'base64url').toString('utf8')) as { jti: string };
+      await page.context().addCookies([
+        { name: SESSION_COOKIE, value: token, domain: '127.0.0.1', path: '/api', httpOnly: true, sameSite: 'Strict' },
+        { name: CSRF_COOKIE, value: csrfTokenFor(config, jti), domain: '127.0.0.1', path: '/', sameSite: 'Strict' },
+      ]);
+    },
     async shot(page, name) {
       n += 1;
       await page.screenshot({ path: path.join(shotsDir, `${String(n).padStart(2, '0')}-${name}.png`), fullPage: true });
@@ -62,6 +72,7 @@ export async function startBrowserRig(suite: string): Promise<BrowserRig> {
     async close() {
       await Promise.all(contexts.map((c) => c.close()));
       await new Promise((resolve) => server.close(resolve));
+      await stopApp(app);
       await sequelize.close();
       fs.rmSync(userDir, { recursive: true, force: true });
     },
