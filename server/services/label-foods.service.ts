@@ -108,17 +108,20 @@ export async function createLabelFood(userId: number, input: CreateLabelFoodValu
   await checkShare(userId, input.sharedProfileId);
   const photoPath = photo ? await storeLabelPhoto(photo) : null;
   try {
-    const food = await FoodModel.create({
-      source: 'label',
-      sourceCode: randomUUID(),
-      foodGroup: null,
-      ...labelFoodColumns(input),
-      attribution: LABEL_ATTRIBUTION,
-      licence: LABEL_LICENCE,
-      ownerUserId: userId,
-      photoPath,
+    // Created and read back in one transaction, so a saved food is never answered with an error.
+    return await FoodModel.sequelize!.transaction(async () => {
+      const food = await FoodModel.create({
+        source: 'label',
+        sourceCode: randomUUID(),
+        foodGroup: null,
+        ...labelFoodColumns(input),
+        attribution: LABEL_ATTRIBUTION,
+        licence: LABEL_LICENCE,
+        ownerUserId: userId,
+        photoPath,
+      });
+      return getFood(food.id, userId);
     });
-    return getFood(food.id, userId);
   } catch (err) {
     if (photo && photoPath) await photo.storage.remove(photoPath);
     throw err;

@@ -11,6 +11,7 @@ export const apiErrorCodeSchema = z.enum([
   'unprocessable',
   'rate_limited',
   'busy',
+  'unavailable',
   'internal',
 ]);
 export type ApiErrorCode = z.infer<typeof apiErrorCodeSchema>;
