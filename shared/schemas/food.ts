@@ -145,7 +145,7 @@ export const datasetImportSchema = z.object({
   id: z.number().int(),
   dataset: z.enum(['ifct2017', 'usda_sr28', 'usda_fdc']),
   version: z.string(),
-  status: z.enum(['running', 'succeeded', 'failed']),
+  status: z.enum(['running', 'succeeded', 'failed', 'previewed']),
   stage: z.string().nullable(),
   rowsRead: z.number(),
   rowsInserted: z.number(),
