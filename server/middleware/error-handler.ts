@@ -4,6 +4,7 @@ import { ConnectionAcquireTimeoutError, ConnectionError } from 'sequelize';
 import { ZodError } from 'zod';
 import type { ApiErrorBody } from '../../shared/schemas/api-error';
 import { AppError } from '../errors';
+import { StorageFullError } from '../lib/storage';
 import { logger } from '../logger';
 import { toFieldErrors } from './validate';
 
@@ -56,6 +57,10 @@ export function errorHandler(err: unknown, req: Request, res: Response, _next: N
     logger.warn({ err, method: req.method, path: req.path }, 'database unavailable');
     res.set('Retry-After', String(UNAVAILABLE_RETRY_AFTER_SECONDS));
     return send(res, 503, { error: { code: 'unavailable', message: 'The database cannot be reached just now. Please try again in a few seconds.' } });
+  }
+  if (err instanceof StorageFullError) {
+    logger.error({ err, method: req.method, path: req.path }, 'file storage full');
+    return send(res, 507, { error: { code: 'storage_full', message: 'There is no room to store the file just now. Nothing was saved; please try again later.' } });
   }
   if (err instanceof MulterError) {
     if (err.code === 'LIMIT_FILE_SIZE') {

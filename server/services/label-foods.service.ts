@@ -5,11 +5,12 @@ import type { CreateLabelFoodValues } from '../../shared/schemas/food';
 import { emptyNutrients } from '../../shared/compute/nutrients';
 import { AppError } from '../errors';
 import { completeEnergy, deriveCarbs, roundTo } from '../importers/food-rows';
-import { isReasonableSize, readImageHeader, type PhotoProcessor } from '../lib/photo-worker';
+import type { PhotoProcessor } from '../lib/photo-worker';
 import { newStorageKey, type FileStorage } from '../lib/storage';
 import { logger } from '../logger';
 import { FoodModel, ProfileAccessModel, RecipeIngredientModel, RecipeModel } from '../models';
 import { getFood } from './foods.service';
+import { decodeUploadedPhoto } from './photos.service';
 
 export const LABEL_ATTRIBUTION = 'Typed from a package label by a Carbwright member; not checked by anyone else.';
 export const LABEL_LICENCE = 'Private to the member who added it, and to the care team of a profile it is shared with.';
@@ -24,18 +25,7 @@ export type LabelPhoto = { buffer: Buffer; storage: FileStorage; photos: PhotoPr
  * request thread like recipe photos (so EXIF and location data are gone) and stores the large variant; returns its key.
  */
 async function storeLabelPhoto(photo: LabelPhoto): Promise<string> {
-  const header = readImageHeader(photo.buffer);
-  if (!header) throw AppError.validation({ photo: ['The photo must be a JPEG, PNG or WebP image.'] });
-  if (!isReasonableSize(header)) {
-    throw AppError.validation({ photo: [`That image is ${header.width} × ${header.height} pixels, too large to open. Please send a smaller photo.`] });
-  }
-  let processed;
-  try {
-    processed = await photo.photos.process(photo.buffer);
-  } catch (err) {
-    logger.info({ err: (err as Error).message }, 'label photo could not be decoded');
-    throw AppError.validation({ photo: ['That image could not be read. It may be damaged or cut short.'] });
-  }
+  const processed = await decodeUploadedPhoto(photo.buffer, photo.photos);
   const key = newStorageKey('label-photos', 'jpg');
   await photo.storage.put(key, processed.large.data);
   return key;

@@ -8,6 +8,7 @@ export const apiErrorCodeSchema = z.enum([
   'not_found',
   'conflict',
   'payload_too_large',
+  'storage_full',
   'unprocessable',
   'rate_limited',
   'busy',
