@@ -18,6 +18,9 @@ export const UNAVAILABLE_RETRY_AFTER_SECONDS = 10;
 const UNAVAILABLE_CODES = /^(08|57P0[123]$|53300$)/;
 const UNAVAILABLE_MESSAGES = /Connection terminated|ECONNREFUSED|ECONNRESET|EPIPE|ETIMEDOUT|the database system is (starting up|shutting down)/i;
 
+// What the multipart parser (busboy, under multer) throws for a body without a boundary or cut short.
+const MULTIPART_BROKEN = /^(Multipart: |Unexpected end of (form|file)|Malformed part header|Malformed urlencoded form)/;
+
 /** True when an error means the database could not be reached or dropped the connection (not a bad query). */
 export function isDatabaseUnavailable(err: unknown): boolean {
   for (let e = err as { code?: unknown; message?: unknown; original?: unknown; parent?: unknown } | undefined, depth = 0; e && depth < 4; depth += 1) {
@@ -61,6 +64,13 @@ export function errorHandler(err: unknown, req: Request, res: Response, _next: N
   if (err instanceof StorageFullError) {
     logger.error({ err, method: req.method, path: req.path }, 'file storage full');
     return send(res, 507, { error: { code: 'storage_full', message: 'There is no room to store the file just now. Nothing was saved; please try again later.' } });
+  }
+  if (err instanceof URIError) {
+    // A path segment that is not valid percent-encoding ("%", "%ED%A0%80"): Express fails to decode the param.
+    return send(res, 400, { error: { code: 'validation_failed', message: 'That address is not valid.' } });
+  }
+  if (err instanceof Error && MULTIPART_BROKEN.test(err.message)) {
+    return send(res, 400, { error: { code: 'validation_failed', message: 'The upload was not a complete multipart form. Please send it again.' } });
   }
   if (err instanceof MulterError) {
     if (err.code === 'LIMIT_FILE_SIZE') {
