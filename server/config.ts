@@ -44,6 +44,14 @@ function loadJwtSecret(env: z.infer<typeof envSchema>): string {
   return fs.readFileSync(file, 'utf8').trim();
 }
 
+/**
+ * The address people reach the app at: PUBLIC_URL, else this server's own HOST and PORT. Links that leave the
+ * request (label QR codes) use this, never the request's Host header, which a client can forge.
+ */
+export function publicUrl(config: Pick<Config, 'PUBLIC_URL' | 'HOST' | 'PORT'>): string {
+  return (config.PUBLIC_URL ?? `http://${config.HOST}:${config.PORT}`).replace(/\/+$/, '');
+}
+
 /** Parses the environment once; fails fast with every problem listed. */
 export function loadConfig(source: NodeJS.ProcessEnv = process.env): Config {
   const parsed = envSchema.safeParse(source);
