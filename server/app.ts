@@ -55,6 +55,12 @@ export function createApp(config: Config, sequelize: Sequelize) {
     );
   }
   app.use(express.json({ limit: '1mb' }));
+  // API answers carry personal data (doses, glucose settings, recipes): no browser or proxy may keep them. The signed
+  // photo route sets its own private caching.
+  app.use('/api', (_req, res, next) => {
+    res.set('Cache-Control', 'no-store');
+    next();
+  });
   app.use('/api', apiRouter(deps));
   app.use('/api', notFoundHandler);
   serveWeb(app, config.WEB_DIST_DIR);

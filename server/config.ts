@@ -56,8 +56,11 @@ function loadJwtSecret(env: z.infer<typeof envSchema>): string {
   return fs.readFileSync(file, 'utf8').trim();
 }
 
-/** The address the app is reached at (links in e-mails and label QR codes). */
-export function publicUrl(config: Config): string {
+/**
+ * The address people reach the app at: PUBLIC_URL, else this server's own HOST and PORT. Links that leave the
+ * request (label QR codes) use this, never the request's Host header, which a client can forge.
+ */
+export function publicUrl(config: Pick<Config, 'PUBLIC_URL' | 'HOST' | 'PORT'>): string {
   return (config.PUBLIC_URL ?? `http://${config.HOST}:${config.PORT}`).replace(/\/+$/, '');
 }
 

@@ -5,13 +5,15 @@ import { Card } from '../ui/card';
 import { Text } from '../ui/text';
 
 const DATASET_WORDS = { ifct2017: 'IFCT 2017', usda_fdc: 'USDA FoodData Central', usda_sr28: 'USDA SR28' } as const;
-const STATUS_WORDS = { running: 'Running', succeeded: 'Finished', failed: 'Failed — nothing was changed' } as const;
+const STATUS_WORDS = { running: 'Running', succeeded: 'Finished', failed: 'Failed — nothing was changed', previewed: 'Preview — nothing was changed' } as const;
 
 type Skip = { reason: string; count: number; examples: string[] };
+type Diff = { added: { count: number }; changed: { count: number }; emptied: { count: number } };
 
 /** One import: progress while it runs, then counts, skipped rows with reasons, or the file error. */
 export function ImportReport({ item }: { item: DatasetImport }) {
   const skipped = ((item.report as { skipped?: Skip[] }).skipped ?? []) as Skip[];
+  const diff = (item.report as { diff?: Diff }).diff;
   return (
     <Card>
       <Text variant="heading">
@@ -30,6 +32,11 @@ export function ImportReport({ item }: { item: DatasetImport }) {
           <Text>{item.rowsSkipped} rows skipped</Text>
           <Text color="textMuted">{item.rowsRead.toLocaleString()} rows read in {((item.durationMs ?? 0) / 1000).toFixed(1)} s</Text>
         </View>
+      ) : null}
+      {diff ? (
+        <Text>
+          Would add {diff.added.count}, change {diff.changed.count}, empty {diff.emptied.count}
+        </Text>
       ) : null}
       {skipped.map((s) => (
         <Text key={s.reason} variant="caption" color="textMuted">

@@ -1,19 +1,34 @@
 /**
- * npm run import -- <fdc|sr28|ifct> [folder]
+ * npm run import -- <fdc|sr28|ifct> [folder] [--preview] [--confirm]
  * Imports a food-composition dataset: a FoodData Central CSV folder, an SR28 ASCII folder, or IFCT 2017 from the
  * installed npm package (folder optional: another copy of its index.csv). All-or-nothing; prints the report.
+ * --preview prints what would change (added, changed, emptied) and writes nothing; an import that would blank foods
+ * (most values of a food gone, or a food with none) stops unless --confirm.
  * Needs DATABASE_URL, or a running project database (npm start).
  */
 import { execFileSync } from 'node:child_process';
 import path from 'node:path';
 import { loadConfig } from '../config';
 import { createSequelize, migrate } from '../db';
-import { IMPORT_KINDS, runImport, type ImportKind } from '../services/imports.service';
+import type { ImportDiff } from '../importers/import-diff';
+import { IMPORT_KINDS, ImportNeedsConfirmation, runImport, type ImportKind } from '../services/imports.service';
+
+/** Prints the added, changed and emptied foods of an import (counts, and the first few of each). */
+function printDiff(diff: ImportDiff) {
+  console.log(`  ${diff.added.count} added, ${diff.changed.count} changed, ${diff.emptied.count} emptied, ${diff.unchanged} unchanged`);
+  for (const f of diff.added.examples.slice(0, 10)) console.log(`  + ${f.code} ${f.name}`);
+  for (const f of diff.changed.examples.slice(0, 10)) {
+    console.log(`  ~ ${f.code} ${f.name}: ${f.fields.map((c) => `${c.key} ${c.from ?? '?'} → ${c.to ?? '?'}`).join(', ')}`);
+  }
+  for (const f of diff.emptied.examples.slice(0, 20)) console.log(`  ! ${f.code} ${f.name}: ${f.reason}${f.lost.length ? ` (${f.lost.join(', ')})` : ''}`);
+}
 
 async function main() {
-  const [kind, location] = process.argv.slice(2);
+  const args = process.argv.slice(2);
+  const [kind, location] = args.filter((a) => !a.startsWith('--'));
+  const mode = { preview: args.includes('--preview'), confirm: args.includes('--confirm') };
   if (!kind || !(kind in IMPORT_KINDS) || (kind !== 'ifct' && !location)) {
-    throw new Error('Usage: npm run import -- <fdc|sr28> <folder>   or   npm run import -- ifct [index.csv]');
+    throw new Error('Usage: npm run import -- <fdc|sr28> <folder> [--preview] [--confirm]   or   npm run import -- ifct [index.csv]');
   }
   if (!process.env.DATABASE_URL) {
     process.env.DATABASE_URL = execFileSync('bash', [path.join(__dirname, '../scripts/pg.sh'), 'start']).toString().trim();
@@ -30,7 +45,17 @@ async function main() {
       if (line && line !== last) console.log(`  … ${line}`);
       last = line;
     }, 1000);
-    const result = await runImport(sequelize, kind as ImportKind, location ? path.resolve(location) : undefined).finally(() => clearInterval(ticker));
+    const result = await runImport(sequelize, kind as ImportKind, location ? path.resolve(location) : undefined, mode)
+      .catch((err) => {
+        if (err instanceof ImportNeedsConfirmation) printDiff(err.diff);
+        throw err;
+      })
+      .finally(() => clearInterval(ticker));
+    if (result.status === 'previewed') {
+      console.log(`${result.dataset} ${result.version}: preview, nothing written.`);
+      printDiff(result.report.diff as ImportDiff);
+      return;
+    }
     console.log(`${result.dataset} ${result.version}: ${result.rowsInserted} inserted, ${result.rowsUpdated} updated, ` +
       `${result.rowsUnchanged} unchanged, ${result.rowsSkipped} skipped, in ${result.durationMs} ms.`);
     const skipped = (result.report.skipped ?? []) as { reason: string; count: number; examples: string[] }[];

@@ -3,6 +3,7 @@ import { QueryTypes, type Sequelize, type Transaction } from 'sequelize';
 import type { FoodSource } from '../models/food.model';
 import { searchKeys } from '../search/search-text';
 import type { FoodInput } from './dataset';
+import { diffImport, type ImportDiff, type StoredFood } from './import-diff';
 
 // Rows per statement: large enough that a full table takes a handful of round trips, small enough for one JSON text.
 const CHUNK = 5000;
@@ -16,6 +17,7 @@ function hashOf(input: FoodInput, attribution: string, licence: string): string 
 }
 
 const NUTRIENT_COLUMNS = ['energy_kcal', 'energy_kj', 'carb_available', 'carb_total', 'fibre', 'sugars', 'protein', 'fat', 'water'];
+type StoredRow = { id: number; source_code: string; name: string; content_hash: string | null } & Record<string, number | null>;
 const COLUMNS: [string, string][] = [
   ['source', 'text'], ['source_code', 'text'], ['name', 'text'], ['food_group', 'text'], ['alt_names', 'text[]'],
   ...NUTRIENT_COLUMNS.map((c): [string, string] => [c, 'float8']),
@@ -39,34 +41,47 @@ function rowOf(input: FoodInput, hash: string, opts: { source: FoodSource; attri
   };
 }
 
+type WriteOptions = { source: FoodSource; attribution: string; licence: string; importId: number; foods: FoodInput[] };
+
+/** What writing these foods would change (see diffImport), read inside the caller's transaction; writes nothing. */
+export async function planFoods(sequelize: Sequelize, t: Transaction, opts: WriteOptions) {
+  const existing = await sequelize.query<StoredRow>(
+    `SELECT id, source_code, name, content_hash, ${NUTRIENT_COLUMNS.join(', ')} FROM foods WHERE source = :source`,
+    { replacements: { source: opts.source }, type: QueryTypes.SELECT, transaction: t },
+  );
+  const stored = new Map<string, StoredFood>(
+    existing.map((r) => [
+      r.source_code,
+      {
+        code: r.source_code, name: r.name, hash: r.content_hash,
+        nutrients: {
+          energyKcal: r.energy_kcal, energyKj: r.energy_kj, carbAvailable: r.carb_available, carbTotal: r.carb_total,
+          fibre: r.fibre, sugars: r.sugars, protein: r.protein, fat: r.fat, water: r.water,
+        },
+      },
+    ]),
+  );
+  const hashed = opts.foods.map((input) => ({ input, hash: hashOf(input, opts.attribution, opts.licence) }));
+  const diff: ImportDiff = diffImport(stored, hashed);
+  const pending = hashed.filter(({ input, hash }) => stored.get(input.sourceCode)?.hash !== hash);
+  const counts: WriteCounts = { inserted: diff.added.count, updated: diff.changed.count, unchanged: diff.unchanged };
+  return { diff, counts, pending };
+}
+
 /**
  * Upserts foods of one source inside the caller's transaction: new codes are inserted, changed ones updated
  * (their measures replaced), identical ones left alone, so a re-import changes nothing. Each chunk is one
  * set-based statement (rows passed as one JSON parameter), so a full table is written in a few round trips.
+ * Pass the plan when the caller has already made one in this transaction.
  */
 export async function writeFoods(
   sequelize: Sequelize,
   t: Transaction,
-  opts: { source: FoodSource; attribution: string; licence: string; importId: number; foods: FoodInput[] },
+  opts: WriteOptions,
   onProgress?: (written: number) => void,
+  plan?: Awaited<ReturnType<typeof planFoods>>,
 ): Promise<WriteCounts> {
-  const existing = await sequelize.query<{ id: number; source_code: string; content_hash: string | null }>(
-    'SELECT id, source_code, content_hash FROM foods WHERE source = :source',
-    { replacements: { source: opts.source }, type: QueryTypes.SELECT, transaction: t },
-  );
-  const byCode = new Map(existing.map((r) => [r.source_code, r]));
-  const counts: WriteCounts = { inserted: 0, updated: 0, unchanged: 0 };
-  const pending: { input: FoodInput; hash: string }[] = [];
-  for (const input of opts.foods) {
-    const hash = hashOf(input, opts.attribution, opts.licence);
-    const old = byCode.get(input.sourceCode);
-    if (old && old.content_hash === hash) counts.unchanged += 1;
-    else {
-      if (old) counts.updated += 1;
-      else counts.inserted += 1;
-      pending.push({ input, hash });
-    }
-  }
+  const { counts, pending } = plan ?? (await planFoods(sequelize, t, opts));
   let written = 0;
   for (let i = 0; i < pending.length; i += CHUNK) {
     const chunk = pending.slice(i, i + CHUNK);

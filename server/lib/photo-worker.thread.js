@@ -25,16 +25,22 @@ async function loadJimp() {
   return { Jimp: createJimp({ formats: [...defaultFormats, webp], plugins: defaultPlugins }), JimpMime };
 }
 
-async function run({ input, largeMax, thumbMax, quality }) {
+async function run({ input, largeMax, thumbMax, quality, jpegMemoryMb, maxMegapixels }) {
   const { Jimp, JimpMime } = await loadJimp();
-  const decoded = await Jimp.fromBuffer(Buffer.from(input));
+  // jpeg-js's own caps, set to the size limit the server promises (its defaults refuse some photos within it).
+  const decoded = await Jimp.fromBuffer(Buffer.from(input), {
+    [JimpMime.jpeg]: { maxMemoryUsageInMB: jpegMemoryMb, maxResolutionInMP: maxMegapixels },
+  });
   const { width, height } = decoded.bitmap;
-  const flat = new Jimp({ width, height, color: 0xffffffff });
-  flat.composite(decoded, 0, 0);
-  const large = flat.clone();
+  // JPEG has no transparency; anything else is flattened onto white. One full-size copy at most, then smaller ones.
+  let large = decoded;
+  if (decoded.mime !== JimpMime.jpeg) {
+    large = new Jimp({ width, height, color: 0xffffffff });
+    large.composite(decoded, 0, 0);
+  }
   if (width > largeMax || height > largeMax) large.scaleToFit({ w: largeMax, h: largeMax });
-  const thumb = flat.clone();
-  if (width > thumbMax || height > thumbMax) thumb.scaleToFit({ w: thumbMax, h: thumbMax });
+  const thumb = large.clone();
+  if (thumb.bitmap.width > thumbMax || thumb.bitmap.height > thumbMax) thumb.scaleToFit({ w: thumbMax, h: thumbMax });
   const largeJpeg = await large.getBuffer(JimpMime.jpeg, { quality });
   const thumbJpeg = await thumb.getBuffer(JimpMime.jpeg, { quality });
   return {

@@ -7,6 +7,14 @@ export type ImageHeader = { kind: ImageKind; width: number; height: number };
 /** Refuse anything wider or taller than this, or with more pixels than MAX_PIXELS, before decoding. */
 export const MAX_SIDE = 12_000;
 export const MAX_PIXELS = 40_000_000;
+/**
+ * The JPEG decoder's (jpeg-js) memory cap, sized so every image within MAX_PIXELS decodes: it counts 4 bytes of
+ * coefficients and 1 byte of line buffer per pixel per component (3 components, no subsampling, the worst case) and
+ * 4 bytes of output per pixel: 19 bytes a pixel, 760 MB at 40 MP (its default of 512 MB refused 36 MP photos).
+ */
+export const JPEG_DECODE_MEMORY_MB = Math.ceil((MAX_PIXELS * 19) / 1_000_000) + 64;
+/** How long one decode may take before its worker is stopped. */
+export const DECODE_TIME_LIMIT_MS = 30_000;
 
 function jpegSize(buf: Buffer): { width: number; height: number } | null {
   let i = 2;
@@ -57,6 +65,28 @@ export function readImageHeader(buf: Buffer): ImageHeader | null {
   return null;
 }
 
+// Deflate cannot shrink data more than 1032 to 1 (zlib technical details, from memory), so a PNG holds at least
+// its raw scanlines / 1032 bytes. A baseline or progressive JPEG spends at least one bit per 8×8 block of its first
+// component. A WebP's RIFF header states its own length.
+const PNG_CHANNELS: Record<number, number> = { 0: 1, 2: 3, 3: 1, 4: 2, 6: 4 };
+const DEFLATE_MAX_RATIO = 1032;
+
+/** The fewest bytes a file of this kind and declared size can have; shorter data was cut short or lies about its size. */
+export function minimumBytes(buf: Buffer, h: ImageHeader): number {
+  if (h.kind === 'png') {
+    const bits = (buf[24] ?? 8) * (PNG_CHANNELS[buf[25] ?? 6] ?? 4);
+    const raw = h.height * (1 + Math.ceil((h.width * bits) / 8));
+    return Math.floor(raw / DEFLATE_MAX_RATIO);
+  }
+  if (h.kind === 'jpeg') return Math.floor((Math.ceil(h.width / 8) * Math.ceil(h.height / 8)) / 8);
+  return buf.length >= 8 ? buf.readUInt32LE(4) + 8 : Number.POSITIVE_INFINITY;
+}
+
+/** True when the data is shorter than its header promises. */
+export function isCutShort(buf: Buffer, h: ImageHeader): boolean {
+  return buf.length < minimumBytes(buf, h);
+}
+
 /** True when the declared size is within what Carbwright will decode. */
 export function isReasonableSize(h: Pick<ImageHeader, 'width' | 'height'>): boolean {
   return h.width > 0 && h.height > 0 && h.width <= MAX_SIDE && h.height <= MAX_SIDE && h.width * h.height <= MAX_PIXELS;
@@ -66,21 +96,24 @@ export type PhotoVariant = { data: Buffer; width: number; height: number };
 export type ProcessedPhoto = { width: number; height: number; large: PhotoVariant; thumb: PhotoVariant };
 
 const WORKER_FILE = path.join(__dirname, 'photo-worker.thread.js');
-const LIMITS = { largeMax: 1600, thumbMax: 400, quality: 82 };
+const LIMITS = { largeMax: 1600, thumbMax: 400, quality: 82, jpegMemoryMb: JPEG_DECODE_MEMORY_MB, maxMegapixels: MAX_PIXELS / 1_000_000 };
 
 /** Runs at most `concurrency` decodes at once (each in its own worker thread); the rest wait their turn. */
 export class PhotoProcessor {
   private running = 0;
   private readonly waiting: (() => void)[] = [];
 
-  constructor(private readonly concurrency = 2) {}
+  constructor(
+    private readonly concurrency = 2,
+    private readonly timeLimitMs = DECODE_TIME_LIMIT_MS,
+  ) {}
 
   /** Decodes and re-encodes one photo off the request thread; rejects when jimp cannot decode it. */
   async process(input: Buffer): Promise<ProcessedPhoto> {
     if (this.running >= this.concurrency) await new Promise<void>((resolve) => this.waiting.push(resolve));
     this.running += 1;
     try {
-      return await runWorker(input);
+      return await runWorker(input, this.timeLimitMs);
     } finally {
       this.running -= 1;
       this.waiting.shift()?.();
@@ -93,7 +126,10 @@ export class PhotoProcessor {
   }
 }
 
-function runWorker(input: Buffer): Promise<ProcessedPhoto> {
+/** Thrown when a decode runs past its time limit (its worker is stopped). */
+export class DecodeTimeoutError extends Error {}
+
+function runWorker(input: Buffer, timeLimitMs: number): Promise<ProcessedPhoto> {
   return new Promise((resolve, reject) => {
     const copy = new Uint8Array(input);
     const worker = new Worker(WORKER_FILE, {
@@ -102,8 +138,15 @@ function runWorker(input: Buffer): Promise<ProcessedPhoto> {
       resourceLimits: { maxOldGenerationSizeMb: 1024 },
     });
     let settled = false;
-    worker.once('message', (msg: { ok: boolean; message?: string; result?: ProcessedPhoto }) => {
+    const timer = setTimeout(() => {
       settled = true;
+      void worker.terminate();
+      reject(new DecodeTimeoutError(`photo decode took longer than ${timeLimitMs} ms`));
+    }, timeLimitMs);
+    worker.once('message', (msg: { ok: boolean; message?: string; result?: ProcessedPhoto }) => {
+      if (settled) return;
+      settled = true;
+      clearTimeout(timer);
       void worker.terminate();
       if (!msg.ok || !msg.result) return reject(new Error(msg.message ?? 'could not decode'));
       const { result } = msg;
@@ -111,10 +154,14 @@ function runWorker(input: Buffer): Promise<ProcessedPhoto> {
       resolve({ ...result, large: toBuffer(result.large), thumb: toBuffer(result.thumb) });
     });
     worker.once('error', (err) => {
+      clearTimeout(timer);
       if (!settled) reject(err);
+      settled = true;
     });
     worker.once('exit', (code) => {
+      clearTimeout(timer);
       if (!settled) reject(new Error(`photo worker stopped (${code})`));
+      settled = true;
     });
   });
 }

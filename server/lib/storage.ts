@@ -10,6 +10,14 @@ export interface FileStorage {
   remove(key: string): Promise<void>;
 }
 
+/** The store has no room (disk full, quota): nothing was kept under the key. */
+export class StorageFullError extends Error {
+  constructor(cause: unknown) {
+    super('file storage is full', { cause });
+    this.name = 'StorageFullError';
+  }
+}
+
 const KEY_PATTERN = /^[a-z0-9-]+(\/[a-z0-9-]+)*\.(jpg|png|webp)$/;
 
 /** True for keys this storage accepts: lower-case segments, no dots but the extension, so no path tricks. */
@@ -34,8 +42,15 @@ export function localDiskStorage(root: string): FileStorage {
       const file = resolve(key);
       await fs.mkdir(path.dirname(file), { recursive: true });
       const temp = `${file}.${process.pid}.${crypto.randomBytes(4).toString('hex')}.tmp`;
-      await fs.writeFile(temp, data, { mode: 0o640 });
-      await fs.rename(temp, file);
+      try {
+        await fs.writeFile(temp, data, { mode: 0o640 });
+        await fs.rename(temp, file);
+      } catch (err) {
+        // A write cut short (disk full) leaves no partial file behind, under the key or as a temp file.
+        await fs.rm(temp, { force: true }).catch(() => undefined);
+        const code = (err as NodeJS.ErrnoException).code;
+        throw code === 'ENOSPC' || code === 'EDQUOT' ? new StorageFullError(err) : err;
+      }
     },
     async get(key) {
       try {

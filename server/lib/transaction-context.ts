@@ -26,11 +26,28 @@ const namespace = {
   },
 };
 
+type TransactionFn = Sequelize['transaction'];
+type Open = { sequelize: Sequelize; finished?: string };
+
 let enabled = false;
-/** Turns the transaction context on for every Sequelize instance of this process (idempotent). */
+/**
+ * Turns the transaction context on for every Sequelize instance of this process (idempotent). A managed
+ * transaction opened inside another one of the same Sequelize joins it as a savepoint on its connection, so an outer
+ * transaction (an Idempotency-Key request) commits or rolls back everything a service does inside it.
+ */
 export function enableTransactionContext(): void {
   if (enabled) return;
   Sequelize.useCLS(namespace);
+  const original = Sequelize.prototype.transaction as (this: Sequelize, ...args: unknown[]) => Promise<unknown>;
+  Sequelize.prototype.transaction = function transaction(this: Sequelize, options?: unknown, callback?: unknown) {
+    if (typeof options === 'function') [options, callback] = [{}, options];
+    const current = namespace.get('transaction') as Open | undefined;
+    const named = options && typeof options === 'object' && 'transaction' in options;
+    if (typeof callback === 'function' && current && !current.finished && current.sequelize === this && !named) {
+      options = { ...(options as object), transaction: current };
+    }
+    return original.call(this, options, callback);
+  } as TransactionFn;
   enabled = true;
 }
 

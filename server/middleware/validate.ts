@@ -1,5 +1,6 @@
 import type { NextFunction, Request, Response } from 'express';
 import type { z } from 'zod';
+import { UNCLEAN_TEXT_MESSAGE, uncleanTextPaths } from '../../shared/schemas/fields';
 import { AppError, type FieldErrors } from '../errors';
 
 export type RequestSchemas = { body?: z.ZodType; query?: z.ZodType; params?: z.ZodType };
@@ -28,6 +29,8 @@ export function validate(schemas: RequestSchemas) {
     const fieldErrors: FieldErrors = {};
     const input: Record<string, unknown> = {};
     for (const part of ['params', 'query', 'body'] as const) {
+      // Every string a request carries must be valid Unicode without control characters (NUL, lone surrogates).
+      for (const path of uncleanTextPaths(req[part])) (fieldErrors[path] ??= []).push(UNCLEAN_TEXT_MESSAGE);
       const schema = schemas[part];
       if (!schema) continue;
       const result = schema.safeParse(req[part] ?? {});

@@ -2,7 +2,7 @@ import { DataTypes, Model } from 'sequelize';
 import type { CreationOptional, InferAttributes, InferCreationAttributes, Sequelize } from 'sequelize';
 
 export type DatasetName = 'ifct2017' | 'usda_sr28' | 'usda_fdc';
-export type ImportStatus = 'running' | 'succeeded' | 'failed';
+export type ImportStatus = 'running' | 'succeeded' | 'failed' | 'previewed';
 
 /** One run of a dataset importer: what it loaded, what it skipped and why, how long it took. */
 export class DatasetImportModel extends Model<InferAttributes<DatasetImportModel>, InferCreationAttributes<DatasetImportModel>> {
@@ -30,7 +30,7 @@ export class DatasetImportModel extends Model<InferAttributes<DatasetImportModel
         id: { type: DataTypes.INTEGER, autoIncrement: true, primaryKey: true },
         dataset: { type: DataTypes.ENUM('ifct2017', 'usda_sr28', 'usda_fdc'), allowNull: false },
         version: { type: DataTypes.TEXT, allowNull: false },
-        status: { type: DataTypes.ENUM('running', 'succeeded', 'failed'), allowNull: false, defaultValue: 'running' },
+        status: { type: DataTypes.ENUM('running', 'succeeded', 'failed', 'previewed'), allowNull: false, defaultValue: 'running' },
         stage: { type: DataTypes.TEXT, allowNull: true },
         rowsRead: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 0 },
         rowsInserted: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 0 },

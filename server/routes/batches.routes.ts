@@ -1,15 +1,9 @@
-import type { Request } from 'express';
 import { profileIdParamSchema } from '../../shared/schemas/common';
 import { batchListQuerySchema, batchParamsSchema, createBatchInputSchema, updateBatchInputSchema } from '../../shared/schemas/batch';
-import type { Config } from '../config';
+import { publicUrl } from '../config';
 import { createBatch, getBatch, listBatches, updateBatch } from '../services/batches.service';
 import { buildLabelSheet } from '../services/labels.service';
 import { access, defineRoute, type AnyRoute, type AppDeps } from './registry';
-
-/** PUBLIC_URL when set (behind a proxy), else the origin the request came to. */
-function originOf(config: Config, req: Request): string {
-  return config.PUBLIC_URL ?? `${req.protocol}://${req.get('host')}`;
-}
 
 /** Cooked batches of a profile: save a cook, the inventory, a batch page, storage changes and the label sheet. */
 export function batchesRoutes({ config }: AppDeps): AnyRoute[] {
@@ -38,7 +32,7 @@ export function batchesRoutes({ config }: AppDeps): AnyRoute[] {
     }),
     defineRoute({
       method: 'get', path: `${base}/:id/labels`, access: read, params: batchParamsSchema, summary: 'The printable label sheet (QR codes as PNG data).',
-      handler: async ({ params }, req, res) => res.json(await buildLabelSheet(params.profileId, params.id, originOf(config, req))),
+      handler: async ({ params }, _req, res) => res.json(await buildLabelSheet(params.profileId, params.id, publicUrl(config))),
     }),
   ];
 }

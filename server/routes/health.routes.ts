@@ -1,3 +1,4 @@
+import { UNAVAILABLE_RETRY_AFTER_SECONDS } from '../middleware/error-handler';
 import { access, defineRoute, type AnyRoute, type AppDeps } from './registry';
 
 /** GET /api/health: answers 200 only when the database answers. */
@@ -12,7 +13,8 @@ export function healthRoutes({ sequelize }: AppDeps): AnyRoute[] {
           const dbMs = Number(process.hrtime.bigint() - started) / 1e6;
           res.json({ status: 'ok', database: 'ok', dbMs: Math.round(dbMs * 100) / 100 });
         } catch {
-          res.status(503).json({ error: { code: 'internal', message: 'The database is not answering.' } });
+          res.set('Retry-After', String(UNAVAILABLE_RETRY_AFTER_SECONDS));
+          res.status(503).json({ error: { code: 'unavailable', message: 'The database is not answering.' } });
         }
       },
     }),

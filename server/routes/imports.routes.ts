@@ -14,7 +14,11 @@ const FILES: Record<'fdc' | 'sr28', string[]> = {
   fdc: ['food.csv', 'nutrient.csv', 'food_nutrient.csv', 'food_portion.csv', 'measure_unit.csv', 'food_category.csv', 'sr_legacy_food.csv'],
   sr28: ['FOOD_DES.txt', 'NUT_DATA.txt', 'NUTR_DEF.txt', 'WEIGHT.txt', 'FD_GROUP.txt'],
 };
-const kindSchema = z.object({ kind: z.enum(['fdc', 'sr28']) });
+const kindSchema = z.object({
+  kind: z.enum(['fdc', 'sr28']),
+  mode: z.enum(['apply', 'preview']).default('apply'),
+  confirm: z.enum(['true', 'false']).default('false'),
+});
 
 const upload = multer({
   storage: multer.diskStorage({ destination: (_req, _file, cb) => cb(null, os.tmpdir()) }),
@@ -51,13 +55,15 @@ export function importsRoutes({ sequelize }: AppDeps): AnyRoute[] {
     defineRoute({
       // The body is checked in the handler: a refused upload must also delete the files already received.
       method: 'post', path: '/admin/imports', access: admin, before: [receiveFiles], bodyFormat: 'multipart', status: 202, response: importBody,
-      summary: 'Upload USDA files (multipart: `kind` = `fdc` or `sr28`, `files[]`) → 202, then poll.',
+      summary:
+        'Upload USDA files (multipart: `kind` = `fdc` or `sr28`, `files[]`, optional `mode` = `preview` to record the diff only, ' +
+        '`confirm` = `true` to apply an import that would blank foods) → 202, then poll.',
       handler: async ({ user }, req, res) => {
         const files = (req.files as Express.Multer.File[] | undefined) ?? [];
         const kind = kindSchema.safeParse(req.body ?? {});
         if (!kind.success) {
           await removeUploads(files);
-          throw AppError.validation({ kind: ['Choose FoodData Central CSV (fdc) or SR28 ASCII (sr28).'] });
+          throw AppError.validation({ kind: ['Choose FoodData Central CSV (fdc) or SR28 ASCII (sr28); `mode` apply or preview; `confirm` true or false.'] });
         }
         const allowed = FILES[kind.data.kind];
         const unknown = files.filter((f) => !allowed.includes(f.originalname));
@@ -69,7 +75,8 @@ export function importsRoutes({ sequelize }: AppDeps): AnyRoute[] {
         const folder = await fs.mkdtemp(path.join(os.tmpdir(), 'cw-import-'));
         await Promise.all(files.map((f) => fs.rename(f.path, path.join(folder, f.originalname)).catch(() => fs.copyFile(f.path, path.join(folder, f.originalname)))));
         await removeUploads(files);
-        const record = await startImportJob(sequelize, kind.data.kind, folder, user.id, folder);
+        const mode = { preview: kind.data.mode === 'preview', confirm: kind.data.confirm === 'true' };
+        const record = await startImportJob(sequelize, kind.data.kind, folder, user.id, folder, mode);
         res.status(202).json({ import: record });
       },
     }),

@@ -58,6 +58,6 @@ export function apiRoutes(deps: AppDeps): AnyRoute[] {
 /** Every API route mounted on one router (under /api by createApp). */
 export function apiRouter(deps: AppDeps) {
   const api = Router();
-  mountRoutes(api, apiRoutes(deps), deps.config);
+  mountRoutes(api, apiRoutes(deps), deps.config, deps.sequelize);
   return api;
 }

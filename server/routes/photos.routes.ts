@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { wholeNumberText } from '../../shared/schemas/fields';
 import { AppError } from '../errors';
 import { isValidStorageKey } from '../lib/storage';
 import { verifyPhotoLink } from '../services/photos.service';
@@ -9,7 +10,7 @@ const photoParams = z.object({
   folder: z.enum(['recipes', 'label-photos']),
   file: z.string().regex(/^[a-f0-9-]{32,36}\.(jpg|png|webp)$/, 'Not a photo name.'),
 });
-const photoQuery = z.object({ exp: z.coerce.number().int(), sig: z.string().max(100) });
+const photoQuery = z.object({ exp: wholeNumberText('Not a valid link.'), sig: z.string().max(100) });
 const TYPES = { jpg: 'image/jpeg', png: 'image/png', webp: 'image/webp' } as const;
 
 /**

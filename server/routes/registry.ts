@@ -7,6 +7,7 @@ import type { Config } from '../config';
 import type { PhotoProcessor } from '../lib/photo-worker';
 import type { FileStorage } from '../lib/storage';
 import { requireAuth, requireProfileAccess, requireRole, type AuthContext } from '../middleware/auth';
+import { requestHash, runIdempotent } from '../middleware/idempotency';
 import { validate, type RequestSchemas, type ValidatedInput } from '../middleware/validate';
 
 /** What every route file may use: built once in createApp. */
@@ -94,15 +95,27 @@ export function enabledRoutes(routes: AnyRoute[], config: Config): AnyRoute[] {
   return routes.filter((r) => !r.enabled || r.enabled(config));
 }
 
-/** Mounts every enabled route on the router: access check, `before`, validate, then the typed handler. */
-export function mountRoutes(router: Router, routes: AnyRoute[], config: Config): void {
+/** True for the creates that accept an `Idempotency-Key` header: signed-in POSTs answering 201. */
+export function isIdempotentCreate(route: AnyRoute): boolean {
+  return route.method === 'post' && route.status === 201 && route.access.kind !== 'public' && route.access.kind !== 'signed-link';
+}
+
+/**
+ * Mounts every enabled route on the router: access check, `before`, validate, then the typed handler (a create
+ * runs once per `Idempotency-Key` when the client sends one).
+ */
+export function mountRoutes(router: Router, routes: AnyRoute[], config: Config, sequelize: Sequelize): void {
   for (const route of enabledRoutes(routes, config)) {
     const { params, query, body } = route;
+    const idempotent = isIdempotentCreate(route);
     router[route.method](route.path, ...accessChain(route.access, config), ...(route.before ?? []), validate({ params, query, body }), async (req, res) => {
       const input = res.locals.input as ValidatedInput<RequestSchemas>;
       // Public and signed-link handlers get no user; every other access kind has passed requireAuth.
       const user = req.auth ? { id: req.auth.user.id, role: req.auth.user.role } : undefined;
-      await route.handler({ ...input, user: user!, auth: req.auth! }, req, res);
+      const run = () => route.handler({ ...input, user: user!, auth: req.auth! }, req, res);
+      if (!idempotent || !user) return void (await run());
+      const hash = requestHash(input, req.file?.buffer);
+      await runIdempotent(req, res, { sequelize, userId: user.id, route: `${route.method} ${route.path}`, hash }, run);
     });
   }
 }

@@ -192,7 +192,8 @@ export async function createBatch(profileId: number, userId: number, input: Crea
   const rule = defaultUseBy(input.cookedOn, input.storage, input.region, containsRice);
   const sequelize = BatchModel.sequelize!;
 
-  const id = await sequelize.transaction(async (transaction) => {
+  // The answer is read inside the transaction: once committed, the save is answered from what is in hand.
+  return sequelize.transaction(async (transaction) => {
     const pot = input.cookedWeight.containerId ? await findContainerOr400(profileId, input.cookedWeight.containerId, 'cookedWeight.containerId', transaction) : null;
     const row = await BatchModel.create(
       {
@@ -263,9 +264,8 @@ export async function createBatch(profileId: number, userId: number, input: Crea
       { transaction },
     );
     if (input.plannedCookId) await fillPlannedCook(profileId, input.plannedCookId, row.id, transaction);
-    return row.id;
+    return getBatch(profileId, row.id);
   });
-  return getBatch(profileId, id);
 }
 
 async function findContainerOr400(profileId: number, id: number, field: string, transaction: Transaction) {

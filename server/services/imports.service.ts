@@ -9,7 +9,8 @@ import { ifctPackage, parseIfct } from '../importers/ifct';
 import { ImportFileError } from '../importers/import-error';
 import { parseFdc } from '../importers/usda-fdc';
 import { parseSr28 } from '../importers/usda-sr28';
-import { writeFoods } from '../importers/write-foods';
+import type { ImportDiff } from '../importers/import-diff';
+import { planFoods, writeFoods } from '../importers/write-foods';
 import { logger } from '../logger';
 import { DatasetImportModel } from '../models';
 import type { DatasetName } from '../models/dataset-import.model';
@@ -54,15 +55,32 @@ export async function createImportRecord(kind: ImportKind, userId: number | null
   return DatasetImportModel.create({ dataset: IMPORT_KINDS[kind], version: 'reading files', startedByUserId: userId, stage: 'queued' });
 }
 
+/** An import stopped before writing because it would blank foods; the report holds the diff. Confirm to apply. */
+export class ImportNeedsConfirmation extends AppError {
+  constructor(readonly diff: ImportDiff) {
+    super(
+      409,
+      'conflict',
+      `Stopped before writing: ${diff.emptied.count} food${diff.emptied.count === 1 ? '' : 's'} would lose most of their values or have none ` +
+        `(e.g. ${diff.emptied.examples.slice(0, 3).map((f) => `${f.code} ${f.name}`).join('; ')}). A file may be cut short. ` +
+        'Check the files, preview the import, and confirm only if this is intended.',
+    );
+  }
+}
+
+export type ImportMode = { preview?: boolean; confirm?: boolean };
+
 /**
  * Runs one import: reads and checks every file first, then writes all foods in one transaction, so a bad file
- * leaves the food table exactly as it was. The import record gets progress, counts, skipped rows and duration.
+ * (or a killed server) leaves the food table exactly as it was. Before writing it compares the files with the
+ * stored foods: `preview` only records that diff (added, changed, emptied); an import that would blank foods stops
+ * unless `confirm`. The import record gets progress, counts, skipped rows, the diff and duration.
  */
 export async function runImport(
   sequelize: Sequelize,
   kind: ImportKind,
   location?: string,
-  opts: { record?: DatasetImportModel; userId?: number | null; fingerprint?: string } = {},
+  opts: { record?: DatasetImportModel; userId?: number | null; fingerprint?: string } & ImportMode = {},
 ): Promise<DatasetImport> {
   const started = Date.now();
   const record = opts.record ?? (await createImportRecord(kind, opts.userId ?? null));
@@ -77,15 +95,26 @@ export async function runImport(
     await record.update({ stage: 'reading files' });
     const parsed = await parse(kind, location, progress);
     await record.update({ version: parsed.version, stage: 'writing foods', rowsRead: parsed.rowsRead });
-    const counts = await sequelize.transaction((t) =>
-      writeFoods(
-        sequelize,
-        t,
-        { source: parsed.dataset, attribution: parsed.attribution, licence: parsed.licence, importId: record.id, foods: parsed.foods },
-        (written) => progress(`writing foods (${written} of ${parsed.foods.length})`, parsed.rowsRead),
-      ),
-    );
+    const write = { source: parsed.dataset, attribution: parsed.attribution, licence: parsed.licence, importId: record.id, foods: parsed.foods };
+    const { counts, diff } = await sequelize.transaction(async (t) => {
+      const plan = await planFoods(sequelize, t, write);
+      if (opts.preview) return plan;
+      if (plan.diff.emptied.count > 0 && !opts.confirm) throw new ImportNeedsConfirmation(plan.diff);
+      await writeFoods(sequelize, t, write, (written) => progress(`writing foods (${written} of ${parsed.foods.length})`, parsed.rowsRead), plan);
+      return plan;
+    });
     lastSave = Number.POSITIVE_INFINITY;
+    if (opts.preview) {
+      await record.update({
+        status: 'previewed',
+        stage: 'previewed',
+        rowsSkipped: parsed.skipped.total,
+        report: { foods: parsed.foods.length, diff, skipped: parsed.skipped.toJSON() },
+        durationMs: Date.now() - started,
+        finishedAt: new Date(),
+      });
+      return toDatasetImport(record);
+    }
     // The typo lexicon follows the table; fresh statistics keep the planner on the trigram indexes.
     if (counts.inserted + counts.updated > 0) {
       await refreshFoodWords(sequelize);
@@ -100,6 +129,8 @@ export async function runImport(
       rowsSkipped: parsed.skipped.total,
       report: {
         foods: parsed.foods.length,
+        diff,
+        ...(opts.confirm && diff.emptied.count ? { confirmed: true } : {}),
         skipped: parsed.skipped.toJSON(),
         attribution: parsed.attribution,
         licence: parsed.licence,
@@ -116,7 +147,7 @@ export async function runImport(
       status: 'failed',
       stage: 'failed',
       error: err instanceof Error ? err.message : String(err),
-      report: fileError ? { fileError } : {},
+      report: fileError ? { fileError } : err instanceof ImportNeedsConfirmation ? { needsConfirmation: true, diff: err.diff } : {},
       durationMs: Date.now() - started,
       finishedAt: new Date(),
     });
@@ -125,9 +156,16 @@ export async function runImport(
 }
 
 /** Starts an import in the background (for uploads); the caller polls the record. Removes `cleanup` afterwards. */
-export async function startImportJob(sequelize: Sequelize, kind: ImportKind, folder: string, userId: number, cleanup?: string): Promise<DatasetImport> {
+export async function startImportJob(
+  sequelize: Sequelize,
+  kind: ImportKind,
+  folder: string,
+  userId: number,
+  cleanup?: string,
+  mode: ImportMode = {},
+): Promise<DatasetImport> {
   const record = await createImportRecord(kind, userId);
-  void runImport(sequelize, kind, folder, { record })
+  void runImport(sequelize, kind, folder, { record, ...mode })
     .catch((err) => logger.info({ err: err instanceof Error ? err.message : err, importId: record.id }, 'dataset import failed'))
     .finally(() => (cleanup ? fs.rm(cleanup, { recursive: true, force: true }) : undefined));
   return toDatasetImport(record);

@@ -5,11 +5,12 @@ import type { CreatePackFoodValues } from '../../shared/schemas/food';
 import { emptyNutrients } from '../../shared/compute/nutrients';
 import { AppError } from '../errors';
 import { completeEnergy, deriveCarbs, roundTo } from '../importers/food-rows';
-import { isReasonableSize, readImageHeader, type PhotoProcessor } from '../lib/photo-worker';
+import type { PhotoProcessor } from '../lib/photo-worker';
 import { newStorageKey, type FileStorage } from '../lib/storage';
 import { logger } from '../logger';
 import { FoodModel, ProfileAccessModel, RecipeIngredientModel, RecipeModel } from '../models';
 import { getFood } from './foods.service';
+import { decodeUploadedPhoto } from './photos.service';
 
 export const PACK_FOOD_ATTRIBUTION = 'Typed from a package label by a Carbwright member; not checked by anyone else.';
 export const PACK_FOOD_LICENCE = 'Private to the member who added it, and to the care team of a profile it is shared with.';
@@ -24,18 +25,7 @@ export type PackPhoto = { buffer: Buffer; storage: FileStorage; photos: PhotoPro
  * request thread like recipe photos (so EXIF and location data are gone) and stores the large variant; returns its key.
  */
 async function storePackPhoto(photo: PackPhoto): Promise<string> {
-  const header = readImageHeader(photo.buffer);
-  if (!header) throw AppError.validation({ photo: ['The photo must be a JPEG, PNG or WebP image.'] });
-  if (!isReasonableSize(header)) {
-    throw AppError.validation({ photo: [`That image is ${header.width} × ${header.height} pixels, too large to open. Please send a smaller photo.`] });
-  }
-  let processed;
-  try {
-    processed = await photo.photos.process(photo.buffer);
-  } catch (err) {
-    logger.info({ err: (err as Error).message }, 'label photo could not be decoded');
-    throw AppError.validation({ photo: ['That image could not be read. It may be damaged or cut short.'] });
-  }
+  const processed = await decodeUploadedPhoto(photo.buffer, photo.photos);
   const key = newStorageKey('label-photos', 'jpg');
   await photo.storage.put(key, processed.large.data);
   return key;
@@ -108,17 +98,20 @@ export async function createPackFood(userId: number, input: CreatePackFoodValues
   await checkShare(userId, input.sharedProfileId);
   const photoPath = photo ? await storePackPhoto(photo) : null;
   try {
-    const food = await FoodModel.create({
-      source: 'pack',
-      sourceCode: randomUUID(),
-      foodGroup: null,
-      ...packFoodColumns(input),
-      attribution: PACK_FOOD_ATTRIBUTION,
-      licence: PACK_FOOD_LICENCE,
-      ownerUserId: userId,
-      photoPath,
+    // Created and read back in one transaction, so a saved food is never answered with an error.
+    return await FoodModel.sequelize!.transaction(async () => {
+      const food = await FoodModel.create({
+        source: 'pack',
+        sourceCode: randomUUID(),
+        foodGroup: null,
+        ...packFoodColumns(input),
+        attribution: PACK_FOOD_ATTRIBUTION,
+        licence: PACK_FOOD_LICENCE,
+        ownerUserId: userId,
+        photoPath,
+      });
+      return getFood(food.id, userId);
     });
-    return getFood(food.id, userId);
   } catch (err) {
     if (photo && photoPath) await photo.storage.remove(photoPath);
     throw err;

@@ -1,7 +1,7 @@
 import crypto from 'node:crypto';
 import type { RecipePhoto } from '../../shared/schemas/recipe';
 import { AppError } from '../errors';
-import { isReasonableSize, readImageHeader, type PhotoProcessor } from '../lib/photo-worker';
+import { DecodeTimeoutError, isCutShort, isReasonableSize, MAX_PIXELS, MAX_SIDE, readImageHeader, type PhotoProcessor, type ProcessedPhoto } from '../lib/photo-worker';
 import { newStorageKey, type FileStorage } from '../lib/storage';
 import { logger } from '../logger';
 import { RecipeModel } from '../models';
@@ -52,6 +52,45 @@ async function removeQuietly(storage: FileStorage, keys: (string | null)[]) {
 }
 
 /**
+ * Checks an uploaded photo by its bytes (JPEG, PNG or WebP, whatever its name or declared type), refuses absurd
+ * pixel sizes and data shorter than its header promises before decoding, then decodes and re-encodes it off the
+ * request thread within the decode time limit. Problems are 400s on `field`.
+ */
+export async function decodeUploadedPhoto(file: Buffer, processor: PhotoProcessor, field = 'photo'): Promise<ProcessedPhoto> {
+  const refuse = (message: string) => AppError.validation({ [field]: [message] });
+  const header = readImageHeader(file);
+  if (!header) throw refuse('That file is not a JPEG, PNG or WebP image.');
+  if (!isReasonableSize(header)) {
+    throw refuse(
+      `That image is ${header.width} × ${header.height} pixels, too large to open (the most is ${MAX_PIXELS / 1_000_000} megapixels and ` +
+        `${MAX_SIDE.toLocaleString('en')} pixels a side). Please send a smaller photo.`,
+    );
+  }
+  if (isCutShort(file, header)) throw refuse('That image is cut short: the file holds less than its size promises. Please send it again.');
+  try {
+    return await processor.process(file);
+  } catch (err) {
+    logger.info({ err: (err as Error).message }, 'photo could not be decoded');
+    if (err instanceof DecodeTimeoutError) throw refuse('That image took too long to open. Please send a smaller or simpler photo.');
+    throw refuse('That image could not be read. It may be damaged or cut short.');
+  }
+}
+
+/** Stores each (key, bytes); if one fails, the ones already stored are removed again, and the error is rethrown. */
+export async function putAll(storage: FileStorage, files: [string, Buffer][]): Promise<void> {
+  const done: string[] = [];
+  try {
+    for (const [key, data] of files) {
+      await storage.put(key, data);
+      done.push(key);
+    }
+  } catch (err) {
+    await removeQuietly(storage, done);
+    throw err;
+  }
+}
+
+/**
  * Checks an uploaded photo by its bytes (JPEG, PNG or WebP, whatever its name or declared type),
  * refuses absurd pixel sizes before decoding, decodes and re-encodes it off the request thread, stores a
  * large and a thumbnail variant under fresh unguessable keys and attaches them to the recipe (owner only).
@@ -66,22 +105,10 @@ export async function setRecipePhoto(
   if (!recipe || (recipe.ownerUserId !== userId && recipe.visibility === 'private')) throw AppError.notFound('recipe');
   if (recipe.ownerUserId !== userId) throw AppError.forbidden('Only the owner can change the photo.');
   if (!file?.length) throw AppError.validation({ photo: ['Choose a photo to upload.'] });
-  const header = readImageHeader(file);
-  if (!header) throw AppError.validation({ photo: ['That file is not a JPEG, PNG or WebP image.'] });
-  if (!isReasonableSize(header)) {
-    throw AppError.validation({ photo: [`That image is ${header.width} × ${header.height} pixels, too large to open. Please send a smaller photo.`] });
-  }
-  let processed;
-  try {
-    processed = await deps.processor.process(file);
-  } catch (err) {
-    logger.info({ err: (err as Error).message, recipeId }, 'photo could not be decoded');
-    throw AppError.validation({ photo: ['That image could not be read. It may be damaged or cut short.'] });
-  }
+  const processed = await decodeUploadedPhoto(file, deps.processor);
   const largeKey = newStorageKey('recipes', 'jpg');
   const thumbKey = newStorageKey('recipes', 'jpg');
-  await deps.storage.put(largeKey, processed.large.data);
-  await deps.storage.put(thumbKey, processed.thumb.data);
+  await putAll(deps.storage, [[largeKey, processed.large.data], [thumbKey, processed.thumb.data]]);
   const old = [recipe.photoLargeKey, recipe.photoThumbKey];
   try {
     const [count] = await RecipeModel.update({ photoLargeKey: largeKey, photoThumbKey: thumbKey }, { where: { id: recipeId, ownerUserId: userId } });
@@ -114,7 +141,6 @@ export async function copyPhotoFiles(
   if (!large || !thumb) return { photoLargeKey: null, photoThumbKey: null };
   const photoLargeKey = newStorageKey('recipes', 'jpg');
   const photoThumbKey = newStorageKey('recipes', 'jpg');
-  await storage.put(photoLargeKey, large);
-  await storage.put(photoThumbKey, thumb);
+  await putAll(storage, [[photoLargeKey, large], [photoThumbKey, thumb]]);
   return { photoLargeKey, photoThumbKey };
 }

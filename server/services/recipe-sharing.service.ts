@@ -56,7 +56,7 @@ export async function revokeShare(recipeId: number, ownerId: number, personId: n
 export async function copyRecipe(recipeId: number, userId: number, storage: FileStorage): Promise<RecipeDetail> {
   const source = await findViewableRecipe(recipeId, userId);
   const photo = await copyPhotoFiles(source, storage);
-  const id = await RecipeModel.sequelize!.transaction(async (transaction) => {
+  return RecipeModel.sequelize!.transaction(async (transaction) => {
     const lines = await RecipeIngredientModel.findAll({ where: { recipeId }, order: [['position', 'ASC']], transaction });
     const copy = await RecipeModel.create(
       {
@@ -76,7 +76,6 @@ export async function copyRecipe(recipeId: number, userId: number, storage: File
       lines.map((l) => ({ recipeId: copy.id, position: l.position, foodId: l.foodId, grams: l.grams, measureLabel: l.measureLabel, note: l.note })),
       { transaction },
     );
-    return copy.id;
+    return getRecipeForUser(copy.id, userId, {}, transaction);
   });
-  return getRecipeForUser(id, userId);
 }

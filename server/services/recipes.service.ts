@@ -251,15 +251,16 @@ function recipeFields(input: RecipeInputParsed) {
   return { title, description, methodSteps, tags, defaultPortions, visibility };
 }
 
-/** Creates a recipe with its ingredients in one transaction; returns the detail. */
+/**
+ * Creates a recipe with its ingredients in one transaction; returns the detail, read inside the same transaction
+ * so a failure after the commit can never turn a saved recipe into an error (and a retried duplicate).
+ */
 export async function createRecipe(input: RecipeInputParsed, userId: number): Promise<RecipeDetail> {
-  const sequelize = RecipeModel.sequelize!;
-  const id = await sequelize.transaction(async (transaction) => {
+  return RecipeModel.sequelize!.transaction(async (transaction) => {
     const recipe = await RecipeModel.create({ ownerUserId: userId, ...recipeFields(input) }, { transaction });
     await writeIngredients(recipe.id, input.ingredients, userId, transaction);
-    return recipe.id;
+    return getRecipeForUser(recipe.id, userId, {}, transaction);
   });
-  return getRecipeForUser(id, userId);
 }
 
 /**
@@ -267,15 +268,15 @@ export async function createRecipe(input: RecipeInputParsed, userId: number): Pr
  * their own weighed snapshot, so they do not change. Making a recipe private withdraws every share.
  */
 export async function updateRecipe(recipeId: number, input: RecipeInputParsed, userId: number): Promise<RecipeDetail> {
-  await RecipeModel.sequelize!.transaction(async (transaction) => {
+  return RecipeModel.sequelize!.transaction(async (transaction) => {
     const recipe = await findOwnedRecipe(recipeId, userId, transaction);
     await recipe.update(recipeFields(input), { transaction });
     recipe.changed('updatedAt', true);
     await recipe.save({ transaction });
     if (input.visibility === 'private') await RecipeShareModel.destroy({ where: { recipeId }, transaction });
     await writeIngredients(recipe.id, input.ingredients, userId, transaction);
+    return getRecipeForUser(recipeId, userId, {}, transaction);
   });
-  return getRecipeForUser(recipeId, userId);
 }
 
 /** Deletes a recipe the user owns (its lines and shares go with it); returns the photo keys to remove. */

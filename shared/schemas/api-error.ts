@@ -8,9 +8,11 @@ export const apiErrorCodeSchema = z.enum([
   'not_found',
   'conflict',
   'payload_too_large',
+  'storage_full',
   'unprocessable',
   'rate_limited',
   'busy',
+  'unavailable',
   'internal',
 ]);
 export type ApiErrorCode = z.infer<typeof apiErrorCodeSchema>;

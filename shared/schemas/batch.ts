@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { calendarDate } from './fields';
 import { profileItemParamSchema } from './common';
 import { netGrams, splitExceedsBatch } from '../compute/batch';
 import type { Nutrients } from '../compute/nutrients';
@@ -13,7 +14,7 @@ export const MAX_SCALE_GRAMS = 50_000;
 export const foodSafetyRegionSchema = z.enum(['uk', 'us']);
 
 /** A calendar date, YYYY-MM-DD. */
-export const isoDateSchema = z.iso.date('Use a date like 2026-03-10.');
+export const isoDateSchema = calendarDate('Use a date like 2026-03-10.');
 
 const grams = (what: string) =>
   z

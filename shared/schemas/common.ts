@@ -1,7 +1,8 @@
 import { z } from 'zod';
+import { wholeNumberText } from './fields';
 
-/** A positive integer id taken from a URL segment. */
-export const positiveIdSchema = z.coerce.number().int().positive('Not a valid id.');
+/** A positive integer id taken from a URL segment (digits only) or JSON. */
+export const positiveIdSchema = wholeNumberText('Not a valid id.').pipe(z.number().positive('Not a valid id.'));
 
 /** `/…/:id` */
 export const idParamSchema = z.object({ id: positiveIdSchema });

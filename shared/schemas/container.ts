@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { decimalField } from './fields';
 
 /** A pot weighs a whole cooked batch; a container holds one portion. */
 export const containerKindSchema = z.enum(['pot', 'container']);
@@ -18,10 +19,8 @@ export type Container = z.infer<typeof containerSchema>;
 const containerFields = {
   name: z.string().trim().min(1, 'Give it a name, e.g. "Big blue pot".').max(80, 'Use at most 80 characters.'),
   kind: containerKindSchema,
-  tareGrams: z.coerce
-    .number({ error: 'Enter the empty weight in grams.' })
-    .min(0, 'The empty weight cannot be negative.')
-    .max(20_000, 'That is heavier than any kitchen scale reads (20 kg).'),
+  tareGrams: decimalField('Enter the empty weight in grams.')
+    .pipe(z.number().min(0, 'The empty weight cannot be negative.').max(20_000, 'That is heavier than any kitchen scale reads (20 kg).')),
 };
 
 export const createContainerInputSchema = z.object({ ...containerFields, kind: containerKindSchema.default('container') });

@@ -1,10 +1,11 @@
 import { z } from 'zod';
+import { dateTime } from './fields';
 import type { DoseResult } from '../compute/dose';
 import { EXERCISE_INTENSITIES } from '../compute/exercise';
 import { localDateSchema, numberField, optionalNumberField, timeOfDaySchema } from './profile-settings';
 import { carbBasisSchema, carbUnitSchema, glucoseUnitSchema } from './units';
 
-const isoDate = z.iso.datetime({ offset: true, error: 'Use a date and time such as 2026-03-01T12:30:00Z.' });
+const isoDate = dateTime('Use a date and time such as 2026-03-01T12:30:00Z.');
 
 /** What POST /api/profiles/:profileId/dose-suggestions accepts. Glucose is in glucoseUnit (default: the profile's). */
 export const doseRequestSchema = z

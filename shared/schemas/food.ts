@@ -1,4 +1,6 @@
 import { z } from 'zod';
+import { positiveIdSchema } from './common';
+import { wholeNumberText } from './fields';
 import type { Nutrients } from '../compute/nutrients';
 
 /** Where a food's values come from: an open table, or a package label typed in by a member. */
@@ -71,8 +73,8 @@ export const foodSearchQuerySchema = z.object({
   source: foodSourceSchema.optional(),
   group: z.string().trim().max(100).optional(),
   /** The profile whose preferred table ranks first (default: the user's own profile). */
-  profileId: z.coerce.number().int().positive().optional(),
-  limit: z.coerce.number().int().min(1, 'At least 1.').max(50, 'At most 50.').default(20),
+  profileId: positiveIdSchema.optional(),
+  limit: wholeNumberText('The limit must be a whole number.').pipe(z.number().min(1, 'At least 1.').max(50, 'At most 50.')).default(20),
   cursor: z
     .string()
     .regex(/^\d{1,7}$/, 'Not a valid cursor.')
@@ -145,7 +147,7 @@ export const datasetImportSchema = z.object({
   id: z.number().int(),
   dataset: z.enum(['ifct2017', 'usda_sr28', 'usda_fdc']),
   version: z.string(),
-  status: z.enum(['running', 'succeeded', 'failed']),
+  status: z.enum(['running', 'succeeded', 'failed', 'previewed']),
   stage: z.string().nullable(),
   rowsRead: z.number(),
   rowsInserted: z.number(),

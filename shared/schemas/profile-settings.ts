@@ -1,24 +1,19 @@
 import { z } from 'zod';
 import { positiveIdSchema, profileIdParamSchema } from './common';
+import { calendarDate, decimalField, readDecimal } from './fields';
 import { ACTIVE_INSULIN_MODELS, RAPID_PEAK_MINUTES } from '../compute/active-insulin';
 import { EXERCISE_INTENSITIES } from '../compute/exercise';
 import { formatGlucose, glucoseToMmol } from '../compute/units';
 import { carbBasisSchema, carbUnitSchema, glucoseUnitSchema, preferredFoodTableSchema, timeZoneSchema, type GlucoseUnit, type PreferredFoodTable } from './units';
 
-/** A number from JSON or a form field ("4,5" accepted); empty is missing. */
+/** A number from JSON or a form field ("4,5" accepted); empty or blank is missing; `[]`, `true`, `"0x10"` are refused. */
 export function numberField(required: string) {
-  return z.preprocess(
-    (v) => (v === '' || v == null ? undefined : typeof v === 'string' ? Number(v.trim().replace(',', '.')) : v),
-    z.number({ error: required }).refine(Number.isFinite, required),
-  );
+  return decimalField(required);
 }
 
-/** Like numberField, but empty means null (not set). */
+/** Like numberField, but empty or blank means null (not set). */
 export function optionalNumberField(message: string) {
-  return z.preprocess(
-    (v) => (v === '' || v == null ? null : typeof v === 'string' ? Number(v.trim().replace(',', '.')) : v),
-    z.number({ error: message }).refine(Number.isFinite, message).nullable(),
-  );
+  return z.preprocess((v) => readDecimal(v) ?? null, z.number({ error: message }).refine(Number.isFinite, message).nullable());
 }
 
 /** Limits for glucose settings, mmol/L (checked after converting from the profile's unit). */
@@ -213,10 +208,7 @@ export type SettingsChange = {
 };
 
 /** A local calendar date, "YYYY-MM-DD". */
-export const localDateSchema = z
-  .string()
-  .regex(/^\d{4}-\d{2}-\d{2}$/, 'Use a date such as 2026-03-01.')
-  .refine((d) => !Number.isNaN(Date.parse(`${d}T00:00:00Z`)) && new Date(`${d}T00:00:00Z`).toISOString().startsWith(d), 'That date does not exist.');
+export const localDateSchema = calendarDate('Use a date such as 2026-03-01 (one that exists).');
 
 export const dayKindDayParamSchema = profileIdParamSchema.extend({ date: localDateSchema });
 

@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { decimalField, wholeNumberText } from './fields';
 import { idParamSchema, positiveIdSchema } from './common';
 import type { RecipeNutrition } from '../compute/recipe';
 import type { Food } from './food';
@@ -53,14 +54,15 @@ export const recipeInputSchema = z.object({
 export type RecipeInput = z.input<typeof recipeInputSchema>;
 export type RecipeInputParsed = z.output<typeof recipeInputSchema>;
 
-const positiveIntQuery = (label: string) => z.coerce.number().int(`${label} must be a whole number.`).positive(`${label} must be more than 0.`);
+const positiveIntQuery = (label: string, max = Number.MAX_SAFE_INTEGER, maxMessage?: string) =>
+  wholeNumberText(`${label} must be a whole number.`).pipe(z.number().positive(`${label} must be more than 0.`).max(max, maxMessage));
 
 /** Which profile's carbohydrate basis and unit to answer in (default: the signed-in person's own). */
 export const recipeViewQuerySchema = z
   .object({
     profileId: positiveIntQuery('profileId').optional(),
-    factor: z.coerce.number().positive('The scale factor must be more than 0.').max(50, 'At most × 50.').optional(),
-    portions: positiveIntQuery('portions').max(500, 'At most 500 portions.').optional(),
+    factor: decimalField('The scale factor must be a number.').pipe(z.number().positive('The scale factor must be more than 0.').max(50, 'At most × 50.')).optional(),
+    portions: positiveIntQuery('portions', 500, 'At most 500 portions.').optional(),
   })
   .refine((q) => q.factor === undefined || q.portions === undefined, { message: 'Scale by a factor or to a number of portions, not both.', path: ['factor'] });
 export type RecipeViewQuery = z.infer<typeof recipeViewQuerySchema>;

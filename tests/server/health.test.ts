@@ -22,7 +22,8 @@ describe('GET /api/health', () => {
     const res = await request(app).get('/api/health');
 
     expect(res.status).toBe(503);
-    expect(res.body).toEqual({ error: { code: 'internal', message: 'The database is not answering.' } });
+    expect(res.body).toEqual({ error: { code: 'unavailable', message: 'The database is not answering.' } });
+    expect(Number(res.headers['retry-after'])).toBeGreaterThan(0);
     await dead.close();
   });
 

@@ -20,7 +20,8 @@ describe('GET /api/profiles/:profileId/batches/:id/labels', () => {
     const { input } = await overnightOats(session.me.user.id);
     const batch = (await postBatch(ctx.app, session.token, profileId, input)).body;
 
-    const res = await request(ctx.app).get(`/api/profiles/${profileId}/batches/${batch.id}/labels`).set(bearer(session.token));
+    // A forged Host header must not reach the labels: links come from PUBLIC_URL only.
+    const res = await request(ctx.app).get(`/api/profiles/${profileId}/batches/${batch.id}/labels`).set(bearer(session.token)).set('Host', 'evil.example');
 
     expect(res.status).toBe(200);
     expect(res.body.labels).toHaveLength(5);

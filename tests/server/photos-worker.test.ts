@@ -1,8 +1,8 @@
 import fs from 'node:fs';
 import path from 'node:path';
 import { JimpMime } from 'jimp';
-import { PhotoProcessor, isReasonableSize, readImageHeader } from '../../server/lib/photo-worker';
-import { hugeDimensionPng, makeImage, withExif } from '../fixtures/photos/make-images';
+import { DecodeTimeoutError, MAX_PIXELS, PhotoProcessor, isCutShort, isReasonableSize, readImageHeader } from '../../server/lib/photo-worker';
+import { flatGreyJpeg, hugeDimensionPng, makeImage, withExif } from '../fixtures/photos/make-images';
 
 describe('readImageHeader', () => {
   it('reads kind and size from the bytes of a JPEG and a PNG', async () => {
@@ -104,5 +104,50 @@ describe('PhotoProcessor', () => {
     expect(peak).toBe(2);
     expect(ticks).toBeGreaterThan(5);
     expect(processor.load).toEqual({ running: 0, waiting: 0 });
+  });
+});
+
+describe('data shorter than its header promises', () => {
+  it.each([
+    // The shape a probe sent: about 100 bytes claiming 12000 × 3333 (within the size limit, but cut short).
+    { name: 'a 100-byte PNG claiming 12000 × 3333', file: () => hugeDimensionPng(12_000, 3_333), cut: true },
+    { name: 'a real 320 × 200 PNG', file: () => makeImage(320, 200, JimpMime.png), cut: false },
+    { name: 'a real 320 × 200 JPEG', file: () => makeImage(320, 200), cut: false },
+    { name: 'a hand-built flat 2000 × 1500 JPEG (2 bits a block)', file: () => flatGreyJpeg(2000, 1500), cut: false },
+    { name: 'the same JPEG with most of its data gone', file: () => flatGreyJpeg(2000, 1500).subarray(0, 1000), cut: true },
+    { name: 'a real WebP', file: () => fs.readFileSync(path.join(__dirname, '../fixtures/photos/gradient-640x400.webp')), cut: false },
+    { name: 'a WebP cut to half its RIFF length', file: () => { const w = fs.readFileSync(path.join(__dirname, '../fixtures/photos/gradient-640x400.webp')); return w.subarray(0, w.length >> 1); }, cut: true },
+  ])('$name: cut short = $cut', async ({ file, cut }) => {
+    const buf = await file();
+    const header = readImageHeader(buf)!;
+    expect(header).not.toBeNull();
+    expect(isCutShort(buf, header)).toBe(cut);
+  });
+});
+
+describe('the decode time limit', () => {
+  it('stops a decode that runs past it', async () => {
+    const slow = new PhotoProcessor(1, 5);
+
+    await expect(slow.process(await makeImage(800, 600))).rejects.toBeInstanceOf(DecodeTimeoutError);
+    expect(slow.load).toEqual({ running: 0, waiting: 0 });
+  });
+});
+
+describe('the documented 40-megapixel limit and the decoder agree', () => {
+  it('decodes a 36-megapixel JPEG (three full-resolution components, the most decoder memory per pixel)', async () => {
+    const photo = flatGreyJpeg(7_200, 5_000);
+    expect(isReasonableSize(readImageHeader(photo)!)).toBe(true);
+
+    const out = await new PhotoProcessor(1, 120_000).process(photo);
+
+    expect([out.width, out.height]).toEqual([7_200, 5_000]);
+    expect([out.large.width, out.large.height]).toEqual([1600, 1111]);
+  });
+
+  it('refuses a photo just over 40 megapixels before decoding, naming the limit', () => {
+    expect(MAX_PIXELS).toBe(40_000_000);
+    expect(isReasonableSize({ width: 8_000, height: 5_001 })).toBe(false);
+    expect(isReasonableSize({ width: 8_000, height: 5_000 })).toBe(true);
   });
 });

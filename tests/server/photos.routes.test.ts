@@ -1,4 +1,5 @@
 import fs from 'node:fs';
+import fsPromises from 'node:fs/promises';
 import path from 'node:path';
 import { JimpMime } from 'jimp';
 import request from 'supertest';
@@ -73,8 +74,10 @@ describe('PUT /api/recipes/:id/photo', () => {
 
   it.each([
     { name: 'a text file renamed to .jpg', make: async () => Buffer.from('Not a photo at all, just words.'), filename: 'soup.jpg', message: /not a JPEG, PNG or WebP/ },
-    { name: 'a truncated JPEG', make: async () => (await makeImage(800, 600)).subarray(0, 700), filename: 'cut.jpg', message: /could not be read/ },
-    { name: 'a 60000 × 60000 PNG', make: async () => hugeDimensionPng(), filename: 'huge.png', message: /too large to open/ },
+    { name: 'a truncated JPEG', make: async () => (await makeImage(800, 600)).subarray(0, 700), filename: 'cut.jpg', message: /cut short/ },
+    { name: 'a JPEG damaged after its header', make: async () => (await makeImage(800, 600)).subarray(0, 2000), filename: 'cut.jpg', message: /could not be read/ },
+    { name: 'a 60000 × 60000 PNG', make: async () => hugeDimensionPng(), filename: 'huge.png', message: /too large to open \(the most is 40 megapixels/ },
+    { name: 'a 100-byte PNG claiming 12000 × 3333', make: async () => hugeDimensionPng(12_000, 3_333), filename: 'bomb.png', message: /cut short/ },
   ])('returns 400 on photo for $name and stores nothing', async ({ make, filename, message }) => {
     const cook = await signUpUser(ctx.app, 'Refused');
     const { id } = await createRecipeAs(ctx.app, cook.token, oatsRecipe(foods));
@@ -86,6 +89,32 @@ describe('PUT /api/recipes/:id/photo', () => {
     expect(res.body.error.fieldErrors.photo[0]).toMatch(message);
     expect((await RecipeModel.findByPk(id))!.photoLargeKey).toBeNull();
     expect(fs.readdirSync(uploads, { recursive: true }).length).toBe(before);
+  });
+
+  it('answers 507 `storage_full` when the disk fills mid-write, and leaves no file and no photo behind', async () => {
+    const cook = await signUpUser(ctx.app, 'Full disk');
+    const { id } = await createRecipeAs(ctx.app, cook.token, oatsRecipe(foods));
+    const before = fs.readdirSync(uploads, { recursive: true }).filter((f) => String(f).includes('.')).length;
+    // The second file write puts half its bytes on disk, then the disk is full.
+    const real = fsPromises.writeFile;
+    let writes = 0;
+    const spy = jest.spyOn(fsPromises, 'writeFile').mockImplementation(async (file, data, options) => {
+      writes += 1;
+      if (writes < 2) return real(file, data, options);
+      await real(file, (data as Buffer).subarray(0, (data as Buffer).length >> 1), options);
+      throw Object.assign(new Error('ENOSPC: no space left on device, write'), { code: 'ENOSPC' });
+    });
+    try {
+      const res = await upload(id, cook.token, await makeImage(1800, 900), 'oats.jpg');
+
+      expect(res.status).toBe(507);
+      expect(res.body.error.code).toBe('storage_full');
+    } finally {
+      spy.mockRestore();
+    }
+    expect(writes).toBe(2);
+    expect((await RecipeModel.findByPk(id))!.photoLargeKey).toBeNull();
+    expect(fs.readdirSync(uploads, { recursive: true }).filter((f) => String(f).includes('.')).length).toBe(before);
   });
 
   it('returns 413 for a file over 10 MB', async () => {

@@ -68,3 +68,40 @@ describe('an exhausted pool', () => {
     }
   });
 });
+
+describe('more writers than connections (pool of 2, acquire timeout 1.5 s)', () => {
+  let ctx: { app: Express; sequelize: Sequelize };
+  beforeAll(async () => {
+    ctx = await smallPoolApp(2, 1_500);
+  });
+  afterAll(async () => {
+    await ctx.sequelize.close();
+  });
+
+  it('answers all 40 parallel creates, each saved (201) or refused as busy (503, Retry-After), and keeps exactly the saved ones', async () => {
+    const cook = await signUpMember(ctx.app, 'Crowd');
+    const { input, foods } = await overnightOats(cook.userId);
+    const recipeBody = { title: 'Crowd oats', defaultPortions: 5, visibility: 'private', ingredients: [{ foodId: foods.oats.id, grams: 100 }] };
+    const sends = [
+      ...Array.from({ length: 20 }, () => request(ctx.app).post('/api/recipes').set(bearer(cook.token)).send(recipeBody)),
+      ...Array.from({ length: 20 }, () => postBatch(ctx.app, cook.token, cook.profileId, input)),
+    ];
+
+    // A hang would never settle; the jest timeout is the bound, not a speed target.
+    const answers = await Promise.all(sends);
+
+    for (const res of answers) {
+      expect([201, 503]).toContain(res.status);
+      if (res.status === 503) {
+        expect(res.body.error.code).toBe('busy');
+        expect(Number(res.headers['retry-after'])).toBeGreaterThan(0);
+      }
+    }
+    const savedRecipes = answers.slice(0, 20).filter((r) => r.status === 201).length;
+    const savedBatches = answers.slice(20).filter((r) => r.status === 201).length;
+    const [[counts]] = (await ctx.sequelize.query(
+      `SELECT (SELECT count(*) FROM recipes WHERE title = 'Crowd oats')::int AS recipes, (SELECT count(*) FROM batches WHERE profile_id = ${cook.profileId})::int AS batches`,
+    )) as [{ recipes: number; batches: number }[], unknown];
+    expect(counts).toEqual({ recipes: savedRecipes, batches: savedBatches });
+  });
+});
