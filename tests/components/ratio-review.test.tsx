@@ -21,18 +21,18 @@ const REVIEW: LogReview = {
   ],
 };
 
-describe('ReviewTable', () => {
+describe('ReviewTable (phone width: one block per time of day)', () => {
   it('shows each time of day with its meals, average change and dose in words, and marks too few meals', () => {
     render(<ReviewTable review={REVIEW} carbUnit="g" />);
-    const rows = screen.getAllByRole('row');
+    const items = screen.getAllByRole('listitem');
 
-    expect(within(rows[1]).getByText('00:00–11:00')).toBeInTheDocument();
-    expect(within(rows[1]).getByText('+2.3 mmol/L')).toBeInTheDocument(); // 2.25 shown to 0.1 mmol/L (display rule)
-    expect(within(rows[1]).getByText('4.5 units')).toBeInTheDocument();
-    expect(within(rows[1]).queryByText(/too few/)).toBeNull();
-    expect(within(rows[2]).getByText('1 · too few (under 5)')).toBeInTheDocument();
-    expect(within(rows[2]).getByText('−1.0 mmol/L')).toBeInTheDocument();
-    // The review states evidence only: no cell proposes a ratio.
+    expect(within(items[0]).getByText('Rest · 00:00–11:00')).toBeInTheDocument();
+    expect(within(items[0]).getByText('Average change: +2.3 mmol/L')).toBeInTheDocument(); // 2.25 shown to 0.1 mmol/L
+    expect(within(items[0]).getByText('Average dose: 4.5 units')).toBeInTheDocument();
+    expect(within(items[0]).queryByText(/too few/)).toBeNull();
+    expect(within(items[1]).getByText('Meals: 1 · too few (under 5)')).toBeInTheDocument();
+    expect(within(items[1]).getByText('Average change: −1.0 mmol/L')).toBeInTheDocument();
+    // The review states evidence only: nothing proposes a ratio.
     expect(screen.queryByText(/new ratio|change (the|your) ratio to/i)).toBeNull();
   });
 });
