@@ -16,6 +16,8 @@ const FROM_WORDS = { date: 'set for this date', pattern: 'weekly pattern', defau
 export function PlanDayCard({ day, unit, compact, onRemove }: { day: PlanDay; unit: CarbUnit; compact?: boolean; onRemove?: (mealId: number) => void }) {
   const t = useTheme();
   const totals = totalsText(day.totals, unit);
+  // Seven columns are narrow: the totals take the smaller type so long words are not broken.
+  const size = compact ? 'caption' : 'body';
   return (
     <Card aria-label={dayLabel(day.date, day.weekday)} style={compact ? styles.compact : undefined}>
       <Text variant="heading">{dayLabel(day.date, day.weekday)}</Text>
@@ -41,9 +43,9 @@ export function PlanDayCard({ day, unit, compact, onRemove }: { day: PlanDay; un
         </View>
       ))}
       <View style={styles.totals} aria-label="Day totals">
-        <Text weight="bold">Carbohydrate {totals.carb}</Text>
-        <Text>Planned rapid-acting {totals.rapid}</Text>
-        <Text>Long-acting {totals.long}</Text>
+        <Text weight="bold" variant={size}>Carbohydrate {totals.carb}</Text>
+        <Text variant={size}>Planned rapid-acting {totals.rapid}</Text>
+        <Text variant={size}>Long-acting {totals.long}</Text>
       </View>
     </Card>
   );
