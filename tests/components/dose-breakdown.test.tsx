@@ -3,6 +3,10 @@ import { DoseBreakdownView } from '@/components/dose/dose-breakdown';
 import { computeDose, type DoseSettings } from '@/shared/compute/dose';
 import type { DoseSuggestion } from '@/shared/schemas/dose';
 import { engineSettings } from '../helpers/dose-settings';
+import { DOSE_CAUTION, DOSE_ENGINE_VERSION } from '@/shared/compute/dose-caution';
+
+/** What every API dose answer carries besides the engine's result (no logged doses here). */
+const ANSWER_EXTRAS = { caution: { ...DOSE_CAUTION }, engineVersion: DOSE_ENGINE_VERSION, loggedDoses: [] };
 
 const T0 = Date.UTC(2026, 2, 1, 12, 0);
 const settings: DoseSettings = engineSettings({ targetHighMmol: 7, maxDoseUnits: 15 });
@@ -16,7 +20,7 @@ function suggestion(glucose: number, extra: Partial<Parameters<typeof computeDos
     mealMinuteOfDay: 780,
     ...extra,
   });
-  return { ...result, glucoseUnit: 'mmol_l', carbBasis: 'available', carbUnit: 'g', mealAt: new Date(T0).toISOString(), glucoseTakenAt: new Date(T0).toISOString() };
+  return { ...result, ...ANSWER_EXTRAS, glucoseUnit: 'mmol_l', carbBasis: 'available', carbUnit: 'g', mealAt: new Date(T0).toISOString(), glucoseTakenAt: new Date(T0).toISOString() };
 }
 
 describe('DoseBreakdownView', () => {
@@ -37,7 +41,7 @@ describe('DoseBreakdownView', () => {
 
   it('says when the profile counts active insulin with the curve', () => {
     const r = computeDose({ ...settings, activeInsulinModel: 'curve' }, rest, { carbsGrams: 60, mealAt: T0, mealMinuteOfDay: 780 });
-    render(<DoseBreakdownView result={{ ...r, glucoseUnit: 'mmol_l', carbBasis: 'available', carbUnit: 'g', mealAt: new Date(T0).toISOString(), glucoseTakenAt: null }} />);
+    render(<DoseBreakdownView result={{ ...r, ...ANSWER_EXTRAS, glucoseUnit: 'mmol_l', carbBasis: 'available', carbUnit: 'g', mealAt: new Date(T0).toISOString(), glucoseTakenAt: null }} />);
 
     expect(screen.getByText('Active insulin model: curve with its peak at 75 minutes (4 hours), from your settings.')).toBeInTheDocument();
   });
