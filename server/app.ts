@@ -4,6 +4,7 @@ import { pinoHttp } from 'pino-http';
 import type { Sequelize } from 'sequelize';
 import type { Config } from './config';
 import { PhotoProcessor } from './lib/photo-worker';
+import { requestCache } from './lib/request-cache';
 import { localDiskStorage } from './lib/storage';
 import { logger } from './logger';
 import { errorHandler, notFoundHandler } from './middleware/error-handler';
@@ -51,7 +52,7 @@ export function createApp(config: Config, sequelize: Sequelize) {
     );
   }
   app.use(express.json({ limit: '1mb' }));
-  app.use('/api', apiRouter(deps));
+  app.use('/api', requestCache, apiRouter(deps));
   app.use('/api', notFoundHandler);
   serveWeb(app, config.WEB_DIST_DIR);
   app.use(errorHandler);

@@ -8,10 +8,11 @@ import type { BatchDetail, BatchIngredient, BatchSummary, CreateBatchParsed, Upd
 import type { PortionStatus } from '../../shared/schemas/portion';
 import type { CarbBasis, CarbUnit } from '../../shared/schemas/units';
 import { AppError, type FieldErrors } from '../errors';
-import { BatchIngredientModel, BatchModel, FoodModel, PortionModel, ProfileModel, RecipeIngredientModel, UserModel } from '../models';
+import { BatchIngredientModel, BatchModel, FoodModel, PortionModel, RecipeIngredientModel, UserModel } from '../models';
 import { findContainer } from './containers.service';
 import { getUsableFoods, toFood } from './foods.service';
 import { carbOf, toPortion } from './portions.service';
+import { profileUnits } from './profiles.service';
 import { findViewableRecipe } from './recipes.service';
 
 type Units = { basis: CarbBasis; unit: CarbUnit };
@@ -19,10 +20,9 @@ type Units = { basis: CarbBasis; unit: CarbUnit };
 const noContainer = { containerId: null, containerName: null, grossGrams: null, tareGrams: null };
 
 /** The carbohydrate basis and unit of a profile (404 when it does not exist). */
-export async function profileUnits(profileId: number, transaction?: Transaction): Promise<Units & { displayName: string }> {
-  const profile = await ProfileModel.findByPk(profileId, { transaction });
-  if (!profile) throw AppError.notFound('profile');
-  return { basis: profile.carbBasis, unit: profile.carbUnit, displayName: profile.displayName };
+async function unitsOf(profileId: number): Promise<Units> {
+  const p = await profileUnits(profileId);
+  return { basis: p.carbBasis, unit: p.carbUnit };
 }
 
 /** New portion codes that are not in use yet (checked against the table; the unique index is the last word). */
@@ -98,7 +98,7 @@ export async function getBatch(profileId: number, id: number): Promise<BatchDeta
     ],
   });
   if (!batch) throw AppError.notFound('batch');
-  const units = await profileUnits(profileId);
+  const units = await unitsOf(profileId);
   const portions = batch.portions ?? [];
   return {
     ...toSummary(batch, portions, units),
@@ -130,7 +130,7 @@ export const INVENTORY_LIMIT = 100;
  * batches with portions left. Two plain queries (no joins to hydrate), since this is the kitchen's busiest page.
  */
 export async function listBatches(profileId: number, include: 'available' | 'all'): Promise<BatchSummary[]> {
-  const units = await profileUnits(profileId);
+  const units = await unitsOf(profileId);
   const where =
     include === 'available'
       ? { profileId, id: { [Op.in]: literal(`(SELECT DISTINCT batch_id FROM portions WHERE profile_id = ${Number(profileId)} AND status = 'available')`) } }
