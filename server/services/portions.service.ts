@@ -6,8 +6,9 @@ import { gramsToCarbUnit } from '../../shared/compute/units';
 import type { Portion, PortionDetail, PortionStatus } from '../../shared/schemas/portion';
 import type { CarbBasis, CarbUnit } from '../../shared/schemas/units';
 import { AppError } from '../errors';
-import { BatchModel, PortionModel, ProfileModel } from '../models';
+import { BatchModel, PortionModel } from '../models';
 import { findProfileAccess } from './auth.service';
+import { profileUnits } from './profiles.service';
 
 type Units = { basis: CarbBasis; unit: CarbUnit };
 
@@ -52,7 +53,7 @@ async function findPortionForUser(rawCode: string, userId: number, roles: string
 /** What a label's QR code opens: one portion with its batch's dates and per-100 g carbohydrate. */
 export async function getPortion(rawCode: string, userId: number): Promise<PortionDetail> {
   const portion = await findPortionForUser(rawCode, userId);
-  const profile = (await ProfileModel.findByPk(portion.profileId))!;
+  const profile = await profileUnits(portion.profileId);
   const units = { basis: profile.carbBasis, unit: profile.carbUnit };
   const batch = portion.batch!;
   const understated = carbUnderstated(batch.totals, batch.incomplete, units.basis);
