@@ -3,6 +3,7 @@ import bcrypt from 'bcryptjs';
 import jwt from 'jsonwebtoken';
 import { Op, QueryTypes, UniqueConstraintError } from 'sequelize';
 import type { ChangePasswordInput, Me, ProfileAccessRole, Session, SignInInput, SignUpInput, User, UserRole } from '../../shared/schemas/auth';
+import type { GrantPermission } from '../../shared/schemas/profile-actions';
 import type { CarbBasis, CarbUnit } from '../../shared/schemas/units';
 import { remember } from '../lib/request-cache';
 import type { Config } from '../config';
@@ -107,11 +108,17 @@ export async function signIn(config: Config, input: SignInInput): Promise<Sessio
 export type SignedInUser = User & { tokenVersion: number };
 
 /** A profile the signed-in user may open, read with the sign-in check: the access role and the profile's units. */
-export type ProfileAccess = { profileId: number; role: ProfileAccessRole; profile: { displayName: string; carbBasis: CarbBasis; carbUnit: CarbUnit } };
+export type ProfileAccess = {
+  profileId: number;
+  role: ProfileAccessRole;
+  /** A grant's extra permissions, when the access table carries them (shared/schemas/profile-actions.ts). */
+  permissions?: GrantPermission[] | null;
+  profile: { displayName: string; carbBasis: CarbBasis; carbUnit: CarbUnit };
+};
 
 type AuthRow = {
   id: number; email: string; display_name: string; role: UserRole; token_version: number; created_at: Date; revoked: boolean;
-  access_role: ProfileAccessRole | null; profile_name: string | null; carb_basis: CarbBasis | null; carb_unit: CarbUnit | null;
+  access_role: ProfileAccessRole | null; access_permissions: GrantPermission[] | null; profile_name: string | null; carb_basis: CarbBasis | null; carb_unit: CarbUnit | null;
 };
 
 /**
@@ -131,7 +138,7 @@ export async function verifyToken(config: Config, token: string, profileId?: num
   const [row] = await UserModel.sequelize!.query<AuthRow>(
     `SELECT u.id, u.email, u.display_name, u.role, u.token_version, u.created_at,
             EXISTS (SELECT 1 FROM revoked_tokens r WHERE r.jti = :jti) AS revoked,
-            pa.role AS access_role, p.display_name AS profile_name, p.carb_basis, p.carb_unit
+            pa.role AS access_role, to_jsonb(pa) -> 'permissions' AS access_permissions, p.display_name AS profile_name, p.carb_basis, p.carb_unit
        FROM users u
        LEFT JOIN profile_access pa ON pa.user_id = u.id AND pa.profile_id = CAST(:profileId AS int)
        LEFT JOIN profiles p ON p.id = pa.profile_id
@@ -144,7 +151,7 @@ export async function verifyToken(config: Config, token: string, profileId?: num
   };
   const access: ProfileAccess | null =
     profileId !== undefined && row.access_role
-      ? { profileId, role: row.access_role, profile: { displayName: row.profile_name!, carbBasis: row.carb_basis!, carbUnit: row.carb_unit! } }
+      ? { profileId, role: row.access_role, permissions: row.access_permissions, profile: { displayName: row.profile_name!, carbBasis: row.carb_basis!, carbUnit: row.carb_unit! } }
       : null;
   return { auth: { user, jti: claims.jti, expiresAt: new Date(claims.exp * 1000) }, access };
 }
@@ -169,8 +176,8 @@ export async function changePassword(config: Config, userId: number, input: Chan
 }
 
 /** The access row that lets a user reach a profile, or null (once per request). */
-export async function findProfileAccess(userId: number, profileId: number): Promise<Pick<ProfileAccessModel, 'role' | 'profileId' | 'userId'> | null> {
-  return remember(`access:${userId}:${profileId}`, () => ProfileAccessModel.findOne({ where: { userId, profileId }, attributes: ['role', 'profileId', 'userId'], raw: true }));
+export async function findProfileAccess(userId: number, profileId: number): Promise<ProfileAccessModel | null> {
+  return remember(`access:${userId}:${profileId}`, () => ProfileAccessModel.findOne({ where: { userId, profileId }, raw: true }) as Promise<ProfileAccessModel | null>);
 }
 
 /** Creates an admin account, or promotes an existing account to admin (command line and first start). */
