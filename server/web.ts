@@ -6,7 +6,7 @@ import express, { type Express, type Request, type Response } from 'express';
 const IMMUTABLE = 'public, max-age=31536000, immutable';
 
 function cacheControl(file: string): string | null {
-  if (file.endsWith('.html') || file.endsWith('sw.js') || file.endsWith('.webmanifest')) return 'no-cache';
+  if (file.endsWith('.html') || file.endsWith('.webmanifest')) return 'no-cache';
   if (file.includes(`${path.sep}_expo${path.sep}`) || file.includes(`${path.sep}assets${path.sep}`)) return IMMUTABLE;
   return null;
 }
