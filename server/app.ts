@@ -4,6 +4,7 @@ import { pinoHttp } from 'pino-http';
 import type { Sequelize } from 'sequelize';
 import type { Config } from './config';
 import { PhotoProcessor } from './lib/photo-worker';
+import { requestCache } from './lib/request-cache';
 import { localDiskStorage } from './lib/storage';
 import { logger } from './logger';
 import { MailSender } from './mail/mail-sender';
@@ -61,7 +62,7 @@ export function createApp(config: Config, sequelize: Sequelize) {
     res.set('Cache-Control', 'no-store');
     next();
   });
-  app.use('/api', apiRouter(deps));
+  app.use('/api', requestCache, apiRouter(deps));
   app.use('/api', notFoundHandler);
   serveWeb(app, config.WEB_DIST_DIR);
   app.use(errorHandler);

@@ -1,18 +1,60 @@
 import fs from 'node:fs';
 import path from 'node:path';
-import express, { type Express } from 'express';
+import express, { type Express, type Request, type Response } from 'express';
 
-/** Serves the exported web app, falling back to index.html for client-side routes. */
+// Hashed file names (the build's _expo/ and assets/ folders) never change content: a browser may keep them a year.
+const IMMUTABLE = 'public, max-age=31536000, immutable';
+
+function cacheControl(file: string): string | null {
+  if (file.endsWith('.html') || file.endsWith('.webmanifest')) return 'no-cache';
+  if (file.includes(`${path.sep}_expo${path.sep}`) || file.includes(`${path.sep}assets${path.sep}`)) return IMMUTABLE;
+  return null;
+}
+
+/**
+ * The brotli or gzip copy made at export (server/cli/compress-web.ts) when the browser accepts it; else null and the
+ * plain file is sent. `Vary: Accept-Encoding` either way, so caches keep the variants apart.
+ */
+function sendPrecompressed(req: Request, res: Response, file: string): boolean {
+  res.vary('Accept-Encoding');
+  const accepts = String(req.headers['accept-encoding'] ?? '');
+  for (const [encoding, ext] of [['br', '.br'], ['gzip', '.gz']] as const) {
+    if (!new RegExp(`\\b${encoding}\\b`).test(accepts) || !fs.existsSync(file + ext)) continue;
+    res.setHeader('Content-Encoding', encoding);
+    res.type(path.extname(file));
+    const cache = cacheControl(file);
+    if (cache) res.setHeader('Cache-Control', cache);
+    res.sendFile(file + ext, { cacheControl: false });
+    return true;
+  }
+  return false;
+}
+
+/**
+ * Serves the exported web app, falling back to index.html for client-side routes. Text files go out as the brotli or
+ * gzip copy made at export; hashed files are immutable, index.html is always revalidated.
+ */
 export function serveWeb(app: Express, distDir: string) {
   const index = path.join(distDir, 'index.html');
+  const root = path.resolve(distDir);
+  app.use((req, res, next) => {
+    if ((req.method !== 'GET' && req.method !== 'HEAD') || req.path.startsWith('/api/')) return next();
+    let file: string;
+    try {
+      file = path.join(root, decodeURIComponent(req.path));
+    } catch {
+      return next();
+    }
+    if (!file.startsWith(root + path.sep) || file.endsWith('.br') || file.endsWith('.gz')) return next();
+    if (!fs.existsSync(file) || !fs.statSync(file).isFile()) return next();
+    if (!sendPrecompressed(req, res, file)) next();
+  });
   app.use(
     express.static(distDir, {
       index: false,
       setHeaders: (res, file) => {
-        if (file.endsWith('.html')) res.setHeader('Cache-Control', 'no-cache');
-        else if (file.includes(`${path.sep}_expo${path.sep}`) || file.includes(`${path.sep}assets${path.sep}`)) {
-          res.setHeader('Cache-Control', 'public, max-age=31536000, immutable');
-        }
+        const cache = cacheControl(file);
+        if (cache) res.setHeader('Cache-Control', cache);
       },
     }),
   );
@@ -23,6 +65,6 @@ export function serveWeb(app: Express, distDir: string) {
       return;
     }
     res.setHeader('Cache-Control', 'no-cache');
-    res.sendFile(index);
+    if (!sendPrecompressed(req, res, index)) res.sendFile(index);
   });
 }

@@ -30,6 +30,8 @@ export const scenarios: BenchModule['scenarios'] = async (ctx) => {
   return [
     {
       kind: 'http',
+      // nothing is saved: a read held to the read target
+      target: 'read',
       name: 'POST dose-suggestions (glucose, earlier dose, exercise)',
       method: 'POST',
       path: `${base}/dose-suggestions`,

@@ -33,6 +33,8 @@ export const scenarios: BenchModule['scenarios'] = async (ctx) => {
     { kind: 'http', name: 'GET recipe scaled to 10 portions', path: `/api/recipes/${big.id}?portions=10` },
     { kind: 'http', name: 'GET recipe shelf (60 recipes, carb sort)', path: '/api/recipes?scope=mine&sort=carbPerPortion' },
     { kind: 'http', name: 'GET recipe search by ingredient', path: '/api/recipes?scope=mine&q=ingredient%2015' },
+    { kind: 'http', name: 'GET public recipes (4,000 of the volume)', path: '/api/recipes?scope=public' },
+    { kind: 'http', name: 'POST /api/recipes (save a recipe, 8 ingredients)', method: 'POST', path: '/api/recipes', body: recipe(8, 'Bench saved recipe') },
     {
       kind: 'task',
       name: 'computeRecipe (pure, 20 ingredients, 100k calls)',

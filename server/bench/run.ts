@@ -1,10 +1,15 @@
 /**
- * npm run bench: starts the app on loopback against its own throwaway database and measures
- * requests per second and p50/p95/p99 latency with autocannon, beside the floor
- * (GET /api/bench/floor, a bare database round trip). Every server/bench/*.bench.ts adds scenarios.
+ * npm run bench: starts the app on loopback against its own throwaway database filled with generated volume
+ * (server/bench/volume.ts), and measures requests per second and p50/p97.5/p99 latency with autocannon beside the
+ * floor (GET /api/bench/floor, a bare database round trip). Every server/bench/*.bench.ts adds scenarios. Each figure
+ * is printed beside its target (server/bench/targets.ts) with the number of queries one request makes; the whole run
+ * is written as JSON to .bench/ (git-ignored).
  */
+import { AsyncLocalStorage } from 'node:async_hooks';
 import fs from 'node:fs';
+import { createServer } from 'node:http';
 import type { AddressInfo } from 'node:net';
+import os from 'node:os';
 import path from 'node:path';
 import { execFile } from 'node:child_process';
 import { promisify } from 'node:util';
@@ -12,14 +17,17 @@ import request from 'supertest';
 import { createApp } from '../app';
 import { loadConfig } from '../config';
 import { createSequelize, migrate } from '../db';
-import type { BenchContext, BenchModule, HttpScenario, TaskScenario } from './types';
+import { checkTargets, describeChecks, type Check, type Latency } from './targets';
+import type { BenchContext, BenchModule, HttpScenario, TaskResult, TaskScenario } from './types';
+import { DEFAULT_VOLUME, generateVolume } from './volume';
 
 const SECONDS = Number(process.env.BENCH_SECONDS ?? 5);
 const CONNECTIONS = Number(process.env.BENCH_CONNECTIONS ?? 10);
+const OUT_DIR = path.resolve(__dirname, '../../.bench');
 
-type Row = { name: string; rps: string; p50: string; p95: string; p99: string; ratio: string };
+type HttpResult = { name: string; path: string; method: string; queries: number; latency: Latency; checks: Check[] };
 
-async function measure(baseUrl: string, s: HttpScenario, token: string) {
+async function measure(baseUrl: string, s: HttpScenario, token: string): Promise<Latency> {
   // autocannon runs in its own process so it does not share the server's event loop.
   const args = ['-j', '-c', String(CONNECTIONS), '-d', String(SECONDS), '-m', s.method ?? 'GET'];
   if (s.auth !== false) args.push('-H', `authorization=Bearer ${token}`);
@@ -35,27 +43,52 @@ async function measure(baseUrl: string, s: HttpScenario, token: string) {
   };
   const bad = result.non2xx + result.errors;
   if (bad > 0) throw new Error(`${s.name}: ${bad} failed requests of ${result.requests.total}`);
-  return { rps: result.requests.average, p50: result.latency.p50, p95: result.latency.p97_5, p99: result.latency.p99 };
+  if (result.requests.total === 0) throw new Error(`${s.name}: not one request finished in ${SECONDS} s`);
+  return { rps: result.requests.average, p50: result.latency.p50, p97_5: result.latency.p97_5, p99: result.latency.p99 };
 }
 
-function printTable(rows: Row[]) {
-  const head: Row = { name: 'scenario', rps: 'req/s', p50: 'p50 ms', p95: 'p97.5 ms', p99: 'p99 ms', ratio: 'req/s vs floor' };
-  const all = [head, ...rows];
-  const width = (k: keyof Row) => Math.max(...all.map((r) => r[k].length));
-  const line = (r: Row) =>
-    [r.name.padEnd(width('name')), ...(['rps', 'p50', 'p95', 'p99', 'ratio'] as const).map((k) => r[k].padStart(width(k)))].join('  ');
-  console.log(`\n${line(head)}\n${'-'.repeat(line(head).length)}`);
-  for (const r of rows) console.log(line(r));
+// Queries are counted per request: each request runs in its own async context, and a sequelize hook adds to it.
+const requestQueries = new AsyncLocalStorage<{ n: number }>();
+const COUNT_HEADER = 'x-bench-count';
+let lastCounted = -1;
+
+/** Queries one request makes (requests still queued from the previous scenario do not count). */
+async function countQueries(ctx: BenchContext, s: HttpScenario): Promise<number> {
+  lastCounted = -1;
+  const res = await fetch(`${ctx.baseUrl}${s.path}`, {
+    method: s.method ?? 'GET',
+    headers: { [COUNT_HEADER]: '1', ...(s.auth !== false ? { authorization: `Bearer ${ctx.member.token}` } : {}), ...(s.body ? { 'content-type': 'application/json' } : {}) },
+    body: s.body ? JSON.stringify(s.body) : undefined,
+  });
+  await res.arrayBuffer();
+  if (!res.ok) throw new Error(`${s.name}: ${res.status}`);
+  return lastCounted;
+}
+
+function printTable(rows: string[][]) {
+  const width = rows[0].map((_, i) => Math.max(...rows.map((r) => r[i].length)));
+  const line = (r: string[]) => r.map((c, i) => (i === 0 || i === r.length - 1 ? c.padEnd(width[i]) : c.padStart(width[i]))).join('  ');
+  console.log(`\n${line(rows[0])}\n${'-'.repeat(line(rows[0]).length)}`);
+  for (const r of rows.slice(1)) console.log(line(r));
 }
 
 async function main() {
   const config = loadConfig({ ...process.env, BENCH_ROUTES: '1', NODE_ENV: 'production', LOG_LEVEL: 'silent' });
   const sequelize = createSequelize(config.DATABASE_URL, { poolMax: 20 });
   await migrate(sequelize);
-  const app = createApp(config, sequelize);
-  const server = await new Promise<import('node:http').Server>((resolve) => {
-    const s = app.listen(0, '127.0.0.1', () => resolve(s));
+  sequelize.addHook('beforeQuery', () => {
+    const store = requestQueries.getStore();
+    if (store) store.n += 1;
   });
+  const volume = process.env.BENCH_VOLUME === '0' ? null : await generateVolume(sequelize, DEFAULT_VOLUME);
+  if (volume) console.log(`Volume: ${Object.entries(volume.counts).map(([k, v]) => `${v.toLocaleString('en')} ${k}`).join(', ')} (${(volume.ms / 1000).toFixed(1)} s)`);
+  const app = createApp(config, sequelize);
+  const server = createServer((req, res) => {
+    const store = { n: 0 };
+    if (req.headers[COUNT_HEADER]) res.on('finish', () => (lastCounted = store.n));
+    requestQueries.run(store, () => app(req, res));
+  });
+  await new Promise<void>((resolve) => server.listen(0, '127.0.0.1', resolve));
   const baseUrl = `http://127.0.0.1:${(server.address() as AddressInfo).port}`;
   const email = `bench-${Date.now()}@example.test`;
   const signUp = await request(app).post('/api/auth/sign-up').send({ email, displayName: 'Bench', password: 'bench password 123' });
@@ -75,22 +108,46 @@ async function main() {
     scenarios.push(...(await mod.scenarios(ctx)));
   }
 
-  console.log(`Benchmark: ${SECONDS}s per scenario, ${CONNECTIONS} connections, loopback, ${new Date().toISOString()}`);
-  const floor = await measure(baseUrl, { kind: 'http', name: 'floor', path: '/api/bench/floor', auth: false }, ctx.member.token);
-  const fmt = (n: number) => (Math.round(n * 10) / 10).toString();
-  const rows: Row[] = [{ name: 'floor: GET /api/bench/floor (SELECT 1)', rps: fmt(floor.rps), p50: fmt(floor.p50), p95: fmt(floor.p95), p99: fmt(floor.p99), ratio: '1.00' }];
-  const tasks: string[] = [];
+  const machine = `${os.cpus().length} × ${os.cpus()[0]?.model ?? 'cpu'}, ${Math.round(os.totalmem() / 2 ** 30)} GiB, load ${os.loadavg().map((l) => l.toFixed(1)).join(' ')}`;
+  console.log(`Benchmark: ${SECONDS}s per scenario, ${CONNECTIONS} connections, loopback, ${new Date().toISOString()}\nMachine: ${machine}`);
+  const floorScenario: HttpScenario = { kind: 'http', name: 'floor: GET /api/bench/floor (SELECT 1)', path: '/api/bench/floor', auth: false, target: 'none' };
+  const floor = await measure(baseUrl, floorScenario, ctx.member.token);
+  const http: HttpResult[] = [
+    { name: floorScenario.name, path: floorScenario.path, method: 'GET', queries: await countQueries(ctx, floorScenario), latency: floor, checks: [] },
+  ];
+  const tasks: ({ name: string } & TaskResult)[] = [];
   for (const s of scenarios) {
     if (s.kind === 'task') {
-      const { figure, unit } = await s.run(ctx);
-      tasks.push(`${s.name}: ${figure} ${unit}`);
+      tasks.push({ name: s.name, ...(await s.run(ctx)) });
       continue;
     }
-    const m = await measure(baseUrl, s, ctx.member.token);
-    rows.push({ name: s.name, rps: fmt(m.rps), p50: fmt(m.p50), p95: fmt(m.p95), p99: fmt(m.p99), ratio: (m.rps / floor.rps).toFixed(2) });
+    const method = s.method ?? 'GET';
+    const queries = await countQueries(ctx, s);
+    const kind = s.target ?? (method === 'GET' ? 'read' : 'write');
+    try {
+      const latency = await measure(baseUrl, s, ctx.member.token);
+      http.push({ name: s.name, path: s.path, method, queries, latency, checks: checkTargets(kind, latency, floor) });
+    } catch (err) {
+      // A scenario that fails or never finishes is a target not met, not the end of the run.
+      const none = { rps: 0, p50: Infinity, p97_5: Infinity, p99: Infinity };
+      http.push({ name: `${s.name} — ${(err as Error).message}`, path: s.path, method, queries, latency: none, checks: checkTargets(kind, none, floor) });
+    }
   }
-  printTable(rows);
-  if (tasks.length) console.log(`\n${tasks.join('\n')}`);
+  const fmt = (n: number) => (Math.round(n * 10) / 10).toString();
+  printTable([
+    ['scenario', 'queries', 'req/s', 'p50 ms', 'p97.5 ms', 'p99 ms', 'p50 ×floor', 'target'],
+    ...http.map((r) => [r.name, String(r.queries), fmt(r.latency.rps), fmt(r.latency.p50), fmt(r.latency.p97_5), fmt(r.latency.p99), (r.latency.p50 / floor.p50).toFixed(1), describeChecks(r.checks)]),
+  ]);
+  if (tasks.length) console.log(`\n${tasks.map((t) => `${t.name}: ${t.figure} ${t.unit}${t.target ? ` (target ${t.target}: ${t.met ? 'met' : 'NOT met'})` : ''}`).join('\n')}`);
+  const checks = [...http.flatMap((r) => r.checks), ...tasks.filter((t) => t.met !== undefined).map((t) => ({ met: t.met }))];
+  const met = checks.filter((c) => c.met).length;
+  console.log(`\nTargets met: ${met} of ${checks.length}`);
+  fs.mkdirSync(OUT_DIR, { recursive: true });
+  const stamp = new Date().toISOString().replace(/[:.]/g, '-');
+  const report = { at: new Date().toISOString(), machine, seconds: SECONDS, connections: CONNECTIONS, volume: volume?.counts ?? null, http, tasks, met, of: checks.length };
+  fs.writeFileSync(path.join(OUT_DIR, `bench-${stamp}.json`), JSON.stringify(report, null, 2));
+  fs.writeFileSync(path.join(OUT_DIR, 'latest.json'), JSON.stringify(report, null, 2));
+  console.log(`Written: .bench/bench-${stamp}.json`);
   server.closeAllConnections();
   await new Promise((resolve) => server.close(resolve));
   await sequelize.close();

@@ -7,17 +7,23 @@ import fs from 'node:fs';
 import path from 'node:path';
 import { Resvg } from '@resvg/resvg-js';
 
-const ASSETS = path.join(__dirname, '../../assets');
+const ROOT = path.join(__dirname, '../..');
 
-// Every PNG made from the mark, by file name: the favicon and the app icon.
-const ICON_SIZES: Record<string, number> = { 'favicon.png': 48, 'icon.png': 512 };
+// Every PNG made from the mark, by path: the favicon, the app icon, and the web app manifest's icons (public/ is copied
+// into the web build as it is).
+const ICON_SIZES: Record<string, number> = {
+  'assets/images/favicon.png': 48,
+  'assets/images/icon.png': 512,
+  'public/icon-192.png': 192,
+  'public/icon-512.png': 512,
+};
 
 function main() {
-  const svg = fs.readFileSync(path.join(ASSETS, 'mark.svg'), 'utf8');
+  const svg = fs.readFileSync(path.join(ROOT, 'assets/mark.svg'), 'utf8');
   for (const [file, size] of Object.entries(ICON_SIZES)) {
     const png = new Resvg(svg, { fitTo: { mode: 'width', value: size } }).render().asPng();
-    fs.writeFileSync(path.join(ASSETS, 'images', file), png);
-    console.log(`assets/images/${file}: ${size} × ${size}`);
+    fs.writeFileSync(path.join(ROOT, file), png);
+    console.log(`${file}: ${size} × ${size}`);
   }
 }
 

@@ -11,14 +11,16 @@ const CHUNK = 5000;
 export type WriteCounts = { inserted: number; updated: number; unchanged: number };
 
 // The search columns are in the hash, so a change of the search rules rewrites them on the next import.
-function hashOf(input: FoodInput, attribution: string, licence: string): string {
+/** The content hash of one food row: identical input gives an identical hash, so a re-import skips it. */
+export function hashOf(input: FoodInput, attribution: string, licence: string): string {
   const keys = searchKeys(input.name, input.altNames, { branded: Boolean(input.extra.branded) });
   return createHash('sha1').update(JSON.stringify([input, attribution, licence, keys])).digest('hex');
 }
 
 const NUTRIENT_COLUMNS = ['energy_kcal', 'energy_kj', 'carb_available', 'carb_total', 'fibre', 'sugars', 'protein', 'fat', 'water'];
 type StoredRow = { id: number; source_code: string; name: string; content_hash: string | null } & Record<string, number | null>;
-const COLUMNS: [string, string][] = [
+/** The foods columns an import writes, with their PostgreSQL types. */
+export const COLUMNS: [string, string][] = [
   ['source', 'text'], ['source_code', 'text'], ['name', 'text'], ['food_group', 'text'], ['alt_names', 'text[]'],
   ...NUTRIENT_COLUMNS.map((c): [string, string] => [c, 'float8']),
   ['carb_measured', 'text'], ['carb_note', 'text'], ['derived', 'text[]'], ['attribution', 'text'], ['licence', 'text'],
@@ -29,7 +31,7 @@ const select = COLUMNS.map(([c]) => (ENUMS[c] ? `r.${c}::${ENUMS[c]}` : `r.${c}`
 const updates = COLUMNS.filter(([c]) => c !== 'source' && c !== 'source_code').map(([c]) => `${c} = EXCLUDED.${c}`).join(', ');
 
 /** One food as a row of the foods table (snake_case keys), search columns included. */
-function rowOf(input: FoodInput, hash: string, opts: { source: FoodSource; attribution: string; licence: string; importId: number }) {
+export function rowOf(input: FoodInput, hash: string, opts: { source: FoodSource; attribution: string; licence: string; importId: number }) {
   const n = input.nutrients;
   const keys = searchKeys(input.name, input.altNames, { branded: Boolean(input.extra.branded) });
   return {

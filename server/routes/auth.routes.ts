@@ -58,7 +58,10 @@ export function authRoutes({ config, sequelize }: AppDeps): AnyRoute[] {
     }),
     defineRoute({
       method: 'get', path: '/me', access: access.signedIn, response: meSchema, summary: 'The signed-in account and the profiles it may open.',
-      handler: async ({ user }, _req, res) => res.json(await getMe(user.id)),
+      handler: async ({ auth }, _req, res) => {
+        const { tokenVersion: _tv, ...user } = auth.user;
+        res.json(await getMe(user.id, user));
+      },
     }),
   ];
 }

@@ -1,8 +1,11 @@
 import crypto from 'node:crypto';
 import bcrypt from 'bcryptjs';
 import jwt from 'jsonwebtoken';
-import { Op, UniqueConstraintError } from 'sequelize';
-import type { ChangePasswordInput, Me, Session, SignInInput, SignUpInput, UserRole } from '../../shared/schemas/auth';
+import { Op, QueryTypes, UniqueConstraintError } from 'sequelize';
+import type { ChangePasswordInput, Me, ProfileAccessRole, Session, SignInInput, SignUpInput, User, UserRole } from '../../shared/schemas/auth';
+import type { GrantPermission } from '../../shared/schemas/profile-actions';
+import type { CarbBasis, CarbUnit } from '../../shared/schemas/units';
+import { remember } from '../lib/request-cache';
 import type { Config } from '../config';
 import { passwordProblem, utf8Bytes, PASSWORD_MAX_BYTES } from '../../shared/compute/password';
 import { AppError } from '../errors';
@@ -29,32 +32,32 @@ function issueToken(config: Config, user: UserModel): { token: string; expiresAt
   return { token, expiresAt: new Date(exp * 1000) };
 }
 
-/** The signed-in person and the profiles they may open. */
-export async function getMe(userId: number): Promise<Me> {
-  const user = await UserModel.findByPk(userId);
+/** The signed-in person and the profiles they may open (`known`: the user row this request already read). */
+export async function getMe(userId: number, known?: User): Promise<Me> {
+  const user = known ?? (await UserModel.findByPk(userId))?.toUser();
   if (!user) throw AppError.unauthorized();
-  const accesses = await ProfileAccessModel.findAll({
-    where: { userId: user.id },
-    include: [{ model: ProfileModel, as: 'profile' }],
-    order: [['createdAt', 'ASC']],
-  });
+  // One plain query: the profiles are read, never changed, here.
+  const rows = await UserModel.sequelize!.query<{ id: number; display_name: string; role: ProfileAccessRole; glucose_unit: Me['profiles'][number]['glucoseUnit']; carb_basis: Me['profiles'][number]['carbBasis']; carb_unit: Me['profiles'][number]['carbUnit']; preferred_food_table: Me['profiles'][number]['preferredFoodTable']; time_zone: string }>(
+    `SELECT p.id, p.display_name, pa.role, p.glucose_unit, p.carb_basis, p.carb_unit, p.preferred_food_table, p.time_zone
+       FROM profile_access pa JOIN profiles p ON p.id = pa.profile_id
+      WHERE pa.user_id = :userId
+      ORDER BY pa.created_at ASC, pa.id ASC`,
+    { replacements: { userId: user.id }, type: QueryTypes.SELECT },
+  );
   const order = { owner: 0, carer: 1, clinician: 2 } as const;
-  const profiles = accesses
-    .map((a) => {
-      const profile = (a as ProfileAccessModel & { profile: ProfileModel }).profile;
-      return {
-        id: profile.id,
-        displayName: profile.displayName,
-        access: a.role,
-        glucoseUnit: profile.glucoseUnit,
-        carbBasis: profile.carbBasis,
-        carbUnit: profile.carbUnit,
-        preferredFoodTable: profile.preferredFoodTable,
-        timeZone: profile.timeZone,
-      };
-    })
+  const profiles = rows
+    .map((r) => ({
+      id: r.id,
+      displayName: r.display_name,
+      access: r.role,
+      glucoseUnit: r.glucose_unit,
+      carbBasis: r.carb_basis,
+      carbUnit: r.carb_unit,
+      preferredFoodTable: r.preferred_food_table,
+      timeZone: r.time_zone,
+    }))
     .sort((a, b) => order[a.access] - order[b.access]);
-  return { user: user.toUser(), profiles };
+  return { user, profiles };
 }
 
 /** A fresh session (token and /me) for a user who has just proved who they are. */
@@ -108,8 +111,28 @@ export async function signIn(config: Config, input: SignInInput): Promise<Sessio
   return sessionFor(config, user);
 }
 
-/** Verifies a bearer token against its signature, expiry, the user's token version and sign-outs. */
-export async function verifyToken(config: Config, token: string) {
+/** The signed-in user as one request sees it (never the password hash). */
+export type SignedInUser = User & { tokenVersion: number };
+
+/** A profile the signed-in user may open, read with the sign-in check: the access role and the profile's units. */
+export type ProfileAccess = {
+  profileId: number;
+  role: ProfileAccessRole;
+  /** A grant's extra permissions, when the access table carries them (shared/schemas/profile-actions.ts). */
+  permissions?: GrantPermission[] | null;
+  profile: { displayName: string; carbBasis: CarbBasis; carbUnit: CarbUnit };
+};
+
+type AuthRow = {
+  id: number; email: string; display_name: string; role: UserRole; token_version: number; created_at: Date; revoked: boolean; disabled_at: Date | null;
+  access_role: ProfileAccessRole | null; access_permissions: GrantPermission[] | null; profile_name: string | null; carb_basis: CarbBasis | null; carb_unit: CarbUnit | null;
+};
+
+/**
+ * Verifies a bearer token against its signature, expiry, the user's token version and sign-outs, in one query that
+ * also reads the user's access to `profileId` when given (null access: none).
+ */
+export async function verifyToken(config: Config, token: string, profileId?: number) {
   let claims: TokenClaims;
   try {
     claims = jwt.verify(token, config.jwtSecret, { algorithms: ['HS256'] }) as TokenClaims;
@@ -117,10 +140,27 @@ export async function verifyToken(config: Config, token: string) {
     const expired = err instanceof jwt.TokenExpiredError;
     throw AppError.unauthorized(expired ? 'Your session has expired. Please sign in again.' : 'Please sign in.');
   }
-  const user = await UserModel.findByPk(Number(claims.sub));
-  if (!user || user.tokenVersion !== claims.tv || user.disabledAt) throw AppError.unauthorized('Please sign in again.');
-  if (await RevokedTokenModel.findByPk(claims.jti)) throw AppError.unauthorized('Please sign in again.');
-  return { user, jti: claims.jti, expiresAt: new Date(claims.exp * 1000) };
+  const id = Number(claims.sub);
+  if (!Number.isSafeInteger(id) || id <= 0) throw AppError.unauthorized('Please sign in again.');
+  const [row] = await UserModel.sequelize!.query<AuthRow>(
+    `SELECT u.id, u.email, u.display_name, u.role, u.token_version, u.created_at, u.disabled_at,
+            EXISTS (SELECT 1 FROM revoked_tokens r WHERE r.jti = :jti) AS revoked,
+            pa.role AS access_role, to_jsonb(pa) -> 'permissions' AS access_permissions, p.display_name AS profile_name, p.carb_basis, p.carb_unit
+       FROM users u
+       LEFT JOIN profile_access pa ON pa.user_id = u.id AND pa.profile_id = CAST(:profileId AS int)
+       LEFT JOIN profiles p ON p.id = pa.profile_id
+      WHERE u.id = :id`,
+    { replacements: { id, jti: String(claims.jti), profileId: profileId ?? null }, type: QueryTypes.SELECT },
+  );
+  if (!row || row.token_version !== claims.tv || row.revoked || row.disabled_at) throw AppError.unauthorized('Please sign in again.');
+  const user: SignedInUser = {
+    id: row.id, email: row.email, displayName: row.display_name, role: row.role, createdAt: new Date(row.created_at).toISOString(), tokenVersion: row.token_version,
+  };
+  const access: ProfileAccess | null =
+    profileId !== undefined && row.access_role
+      ? { profileId, role: row.access_role, permissions: row.access_permissions, profile: { displayName: row.profile_name!, carbBasis: row.carb_basis!, carbUnit: row.carb_unit! } }
+      : null;
+  return { auth: { user, jti: claims.jti, expiresAt: new Date(claims.exp * 1000) }, access };
 }
 
 /** Signs this one token out (other devices stay signed in). */
@@ -144,9 +184,9 @@ export async function changePassword(config: Config, userId: number, input: Chan
   return sessionFor(config, user);
 }
 
-/** The access row that lets a user reach a profile, or null. */
-export async function findProfileAccess(userId: number, profileId: number) {
-  return ProfileAccessModel.findOne({ where: { userId, profileId } });
+/** The access row that lets a user reach a profile, or null (once per request). */
+export async function findProfileAccess(userId: number, profileId: number): Promise<ProfileAccessModel | null> {
+  return remember(`access:${userId}:${profileId}`, () => ProfileAccessModel.findOne({ where: { userId, profileId }, raw: true }) as Promise<ProfileAccessModel | null>);
 }
 
 /** Creates an admin account, or promotes an existing account to admin (command line and first start). */

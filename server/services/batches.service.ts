@@ -8,11 +8,12 @@ import type { BatchDetail, BatchIngredient, BatchSummary, CreateBatchParsed, Upd
 import type { PortionStatus } from '../../shared/schemas/portion';
 import type { CarbBasis, CarbUnit } from '../../shared/schemas/units';
 import { AppError, type FieldErrors } from '../errors';
-import { BatchIngredientModel, BatchModel, FoodModel, PortionModel, ProfileModel, RecipeIngredientModel, UserModel } from '../models';
+import { BatchIngredientModel, BatchModel, FoodModel, PortionModel, RecipeIngredientModel, UserModel } from '../models';
 import { findContainer } from './containers.service';
-import { getUsableFoods, toFood } from './foods.service';
+import { getUsableFoods, loadFoods, toFood } from './foods.service';
 import { fillPlannedCook } from './plan.service';
 import { carbOf, toPortion } from './portions.service';
+import { profileUnits } from './profiles.service';
 import { findViewableRecipe } from './recipes.service';
 
 type Units = { basis: CarbBasis; unit: CarbUnit };
@@ -20,10 +21,9 @@ type Units = { basis: CarbBasis; unit: CarbUnit };
 const noContainer = { containerId: null, containerName: null, grossGrams: null, tareGrams: null };
 
 /** The carbohydrate basis and unit of a profile (404 when it does not exist). */
-export async function profileUnits(profileId: number, transaction?: Transaction): Promise<Units & { displayName: string }> {
-  const profile = await ProfileModel.findByPk(profileId, { transaction });
-  if (!profile) throw AppError.notFound('profile');
-  return { basis: profile.carbBasis, unit: profile.carbUnit, displayName: profile.displayName };
+async function unitsOf(profileId: number): Promise<Units> {
+  const p = await profileUnits(profileId);
+  return { basis: p.carbBasis, unit: p.carbUnit };
 }
 
 /** New portion codes that are not in use yet (checked against the table; the unique index is the last word). */
@@ -86,26 +86,19 @@ function toIngredient(line: BatchIngredientModel, units: Units): BatchIngredient
 
 /** A batch page for anyone with access to its profile (the route checks access), or 404. */
 export async function getBatch(profileId: number, id: number): Promise<BatchDetail> {
-  const batch = await BatchModel.findOne({
-    where: { id, profileId },
-    include: [
-      { model: BatchIngredientModel, as: 'ingredients' },
-      { model: PortionModel, as: 'portions' },
-      { model: UserModel, as: 'cookedBy', attributes: ['id', 'displayName'] },
-    ],
-    order: [
-      [{ model: BatchIngredientModel, as: 'ingredients' }, 'position', 'ASC'],
-      [{ model: PortionModel, as: 'portions' }, 'position', 'ASC'],
-    ],
-  });
+  // Four plain reads at once instead of one join of ingredients × portions hydrated into models.
+  const [batch, ingredients, portions, units] = await Promise.all([
+    BatchModel.findOne({ where: { id, profileId }, include: [{ model: UserModel, as: 'cookedBy', attributes: ['id', 'displayName'] }], raw: true, nest: true }),
+    BatchIngredientModel.findAll({ where: { batchId: id }, order: [['position', 'ASC']], raw: true }),
+    PortionModel.findAll({ where: { batchId: id, profileId }, order: [['position', 'ASC']], raw: true }),
+    unitsOf(profileId),
+  ]);
   if (!batch) throw AppError.notFound('batch');
-  const units = await profileUnits(profileId);
-  const portions = batch.portions ?? [];
   return {
     ...toSummary(batch, portions, units),
     scaleFactor: batch.scaleFactor,
     useByNote: batch.useByNote,
-    cookedBy: batch.cookedBy ? { id: batch.cookedBy.id, displayName: batch.cookedBy.displayName } : null,
+    cookedBy: batch.cookedBy?.id ? { id: batch.cookedBy.id, displayName: batch.cookedBy.displayName } : null,
     rawGrams: batch.rawGrams,
     cookedGrossGrams: batch.cookedGrossGrams,
     potTareGrams: batch.potTareGrams,
@@ -117,7 +110,7 @@ export async function getBatch(profileId: number, id: number): Promise<BatchDeta
     totals: batch.totals,
     per100g: batch.per100g,
     incomplete: batch.incomplete,
-    ingredients: (batch.ingredients ?? []).map((l) => toIngredient(l, units)),
+    ingredients: ingredients.map((l) => toIngredient(l, units)),
     note: batch.note,
     createdAt: batch.createdAt.toISOString(),
   };
@@ -131,7 +124,7 @@ export const INVENTORY_LIMIT = 100;
  * batches with portions left. Two plain queries (no joins to hydrate), since this is the kitchen's busiest page.
  */
 export async function listBatches(profileId: number, include: 'available' | 'all'): Promise<BatchSummary[]> {
-  const units = await profileUnits(profileId);
+  const units = await unitsOf(profileId);
   const where =
     include === 'available'
       ? { profileId, id: { [Op.in]: literal(`(SELECT DISTINCT batch_id FROM portions WHERE profile_id = ${Number(profileId)} AND status = 'available')`) } }
@@ -144,7 +137,11 @@ export async function listBatches(profileId: number, include: 'available' | 'all
     raw: true,
   });
   const byBatch = new Map<number, PortionModel[]>();
-  for (const p of portions) byBatch.set(p.batchId, [...(byBatch.get(p.batchId) ?? []), p]);
+  for (const p of portions) {
+    const list = byBatch.get(p.batchId);
+    if (list) list.push(p);
+    else byBatch.set(p.batchId, [p]);
+  }
   return batches.map((b) => toSummary(b, byBatch.get(b.id) ?? [], units));
 }
 
@@ -156,7 +153,7 @@ type Snapshot = { foodId: number; name: string; source: string; per100g: Nutrien
  */
 async function snapshotFoods(input: CreateBatchParsed, userId: number, recipeId: number): Promise<Map<number, Snapshot>> {
   const ids = input.ingredients.flatMap((l) => [l.foodId, ...(l.swappedFromFoodId ? [l.swappedFromFoodId] : [])]);
-  const foods = await getUsableFoods(ids, userId);
+  const foods = await loadFoods(ids, { userId, measures: false });
   const missing = ids.filter((id) => !foods.has(id));
   if (missing.length) {
     const inRecipe = await RecipeIngredientModel.findAll({ where: { recipeId, foodId: { [Op.in]: missing } }, attributes: ['foodId'] });

@@ -1,7 +1,8 @@
 import { Op, QueryTypes } from 'sequelize';
 import type { FoodSearchPage, FoodSearchQuery } from '../../shared/schemas/food';
 import type { PreferredFoodTable } from '../../shared/schemas/units';
-import { FoodModel, ProfileAccessModel, ProfileModel } from '../models';
+import { FoodModel, ProfileModel } from '../models';
+import { findProfileAccess } from './auth.service';
 import { foodTsQueries, groupQuery, type SynonymPair } from '../search/food-query';
 import { normaliseSearchText } from '../search/search-text';
 import { toFoodSummary, visibleFoodSql } from './foods.service';
@@ -53,13 +54,13 @@ async function otherNames(phrase: string): Promise<string[][]> {
  */
 export async function preferredTableFor(userId: number, profileId?: number): Promise<PreferredFoodTable> {
   if (profileId) {
-    const access = await ProfileAccessModel.findOne({ where: { userId, profileId } });
+    const access = await findProfileAccess(userId, profileId);
     if (access) {
-      const profile = await ProfileModel.findByPk(profileId, { attributes: ['preferredFoodTable'] });
+      const profile = await ProfileModel.findByPk(profileId, { attributes: ['preferredFoodTable'], raw: true });
       if (profile) return profile.preferredFoodTable;
     }
   }
-  const own = await ProfileModel.findOne({ where: { ownerUserId: userId }, order: [['id', 'ASC']], attributes: ['preferredFoodTable'] });
+  const own = await ProfileModel.findOne({ where: { ownerUserId: userId }, order: [['id', 'ASC']], attributes: ['preferredFoodTable'], raw: true });
   return own?.preferredFoodTable ?? 'usda_sr28';
 }
 
@@ -82,7 +83,8 @@ export async function searchFoods(query: FoodSearchQuery, userId: number): Promi
   const offset = query.cursor ? Number(query.cursor) : 0;
   // Text made only of punctuation (e.g. "%") matches nothing rather than everything.
   if (!q && query.q.trim()) return { items: [], nextCursor: null };
-  const groups = groupQuery(words, q ? await synonymsFor(q) : []);
+  const [synonyms, preferred] = await Promise.all([q ? synonymsFor(q) : Promise.resolve([]), preferredTableFor(userId, query.profileId)]);
+  const groups = groupQuery(words, synonyms);
   const ts = foodTsQueries(groups, true);
   const repl: Record<string, unknown> = {
     userId,
@@ -90,7 +92,7 @@ export async function searchFoods(query: FoodSearchQuery, userId: number): Promi
     tsAll: ts.all,
     tsStrict: ts.strict,
     tsAny: ts.any,
-    preferred: await preferredTableFor(userId, query.profileId),
+    preferred,
     limit: query.limit + 1,
     offset,
     source: query.source ?? null,
@@ -166,7 +168,7 @@ export async function searchFoods(query: FoodSearchQuery, userId: number): Promi
   const ids = rows.map((r) => Number(r.id));
   const more = ids.length > query.limit;
   const pageIds = ids.slice(0, query.limit);
-  const found = await FoodModel.findAll({ where: { id: { [Op.in]: pageIds.length ? pageIds : [0] } } });
+  const found = pageIds.length ? ((await FoodModel.findAll({ where: { id: { [Op.in]: pageIds } }, raw: true })) as FoodModel[]) : [];
   const byId = new Map(found.map((f) => [f.id, f]));
   return {
     items: pageIds.flatMap((id) => (byId.has(id) ? [toFoodSummary(byId.get(id)!)] : [])),

@@ -1,9 +1,9 @@
 import { literal, Op } from 'sequelize';
-import type { WhereOptions } from 'sequelize';
+import type { Transaction, WhereOptions } from 'sequelize';
 import type { Food, FoodSummary } from '../../shared/schemas/food';
 import { carbToShow } from '../../shared/compute/nutrients';
 import { AppError } from '../errors';
-import { FoodMeasureModel, FoodModel } from '../models';
+import { FoodModel } from '../models';
 
 /** Maps a food row to the API shape, without measures. */
 export function toFoodSummary(f: FoodModel): FoodSummary {
@@ -49,6 +49,27 @@ export function toFood(f: FoodModel): Food {
   return { ...toFoodSummary(f), measures };
 }
 
+// Measures as one JSON array per food, in their order, so foods and measures come back in one plain query.
+const MEASURES_JSON = `COALESCE((SELECT json_agg(json_build_object('label', m.label, 'grams', m.grams) ORDER BY m.seq, m.id)
+  FROM food_measures m WHERE m.food_id = "FoodModel"."id"), '[]'::json)`;
+
+/**
+ * Foods by id as plain objects (no model instances: the recipe shelf reads hundreds), with their measures unless
+ * `measures: false`; `userId` applies the visibility rule. Ids that are absent (or not visible) are left out.
+ */
+export async function loadFoods(ids: number[], opts: { userId?: number; measures?: boolean; transaction?: Transaction } = {}): Promise<Map<number, Food>> {
+  const unique = [...new Set(ids)].filter((id) => Number.isInteger(id) && id > 0);
+  if (!unique.length) return new Map();
+  const where: WhereOptions<FoodModel> = opts.userId === undefined ? { id: { [Op.in]: unique } } : { [Op.and]: [{ id: { [Op.in]: unique } }, visibleWhere(opts.userId)] };
+  const rows = (await FoodModel.findAll({
+    where,
+    attributes: opts.measures === false ? undefined : { include: [[literal(MEASURES_JSON), 'measuresJson']] },
+    raw: true,
+    transaction: opts.transaction,
+  })) as unknown as (FoodModel & { measuresJson?: Food['measures'] })[];
+  return new Map(rows.map((r) => [r.id, { ...toFoodSummary(r), measures: r.measuresJson ?? [] }]));
+}
+
 /**
  * The one visibility rule for foods: every table food; a pack food to the person who typed it and to the care team
  * (owner, carers, clinicians) of the profile it is shared with. `userId` must be a bound parameter or an integer.
@@ -68,15 +89,7 @@ function visibleWhere(userId: number): WhereOptions<FoodModel> {
  * shared with a profile they have access to. Ids the user may not use (or that do not exist) are absent.
  */
 export async function getUsableFoods(ids: number[], userId: number): Promise<Map<number, Food>> {
-  const unique = [...new Set(ids)].filter((id) => Number.isInteger(id) && id > 0);
-  const out = new Map<number, Food>();
-  if (!unique.length) return out;
-  const rows = await FoodModel.findAll({
-    where: { [Op.and]: [{ id: { [Op.in]: unique } }, visibleWhere(userId)] },
-    include: [{ model: FoodMeasureModel, as: 'measures' }],
-  });
-  for (const row of rows) out.set(row.id, toFood(row));
-  return out;
+  return loadFoods(ids, { userId });
 }
 
 /** One food with its measures, or 404 when it does not exist or the user may not see it. */

@@ -1,4 +1,5 @@
 import QRCode from 'qrcode';
+import { QueryTypes } from 'sequelize';
 import { formatPortionCode } from '../../shared/compute/portion-code';
 import { formatCarb } from '../../shared/compute/units';
 import type { LabelSheet } from '../../shared/schemas/portion';
@@ -26,10 +27,12 @@ export async function qrPng(url: string): Promise<string> {
 
 /** The profile's name when its owner keeps more than one profile (a label must say whose batch it is), else null. */
 export async function householdName(profileId: number): Promise<string | null> {
-  const profile = await ProfileModel.findByPk(profileId);
-  if (!profile || profile.ownerUserId == null) return null;
-  const count = await ProfileModel.count({ where: { ownerUserId: profile.ownerUserId } });
-  return count > 1 ? profile.displayName : null;
+  const [row] = await ProfileModel.sequelize!.query<{ display_name: string; kept: number }>(
+    `SELECT p.display_name, (SELECT count(*) FROM profiles o WHERE o.owner_user_id = p.owner_user_id)::int AS kept
+       FROM profiles p WHERE p.id = :profileId AND p.owner_user_id IS NOT NULL`,
+    { replacements: { profileId }, type: QueryTypes.SELECT },
+  );
+  return row && row.kept > 1 ? row.display_name : null;
 }
 
 /**
@@ -38,8 +41,7 @@ export async function householdName(profileId: number): Promise<string | null> {
  * more than one profile, each with a QR code for its portion page.
  */
 export async function buildLabelSheet(profileId: number, batchId: number, origin: string): Promise<LabelSheet> {
-  const batch = await getBatch(profileId, batchId);
-  const personName = await householdName(profileId);
+  const [batch, personName] = await Promise.all([getBatch(profileId, batchId), householdName(profileId)]);
   const labels = await Promise.all(
     batch.portions.map(async (p) => {
       const url = portionUrl(origin, p.code);

@@ -6,9 +6,10 @@ import { gramsToCarbUnit } from '../../shared/compute/units';
 import type { Portion, PortionDetail, PortionStatus } from '../../shared/schemas/portion';
 import type { CarbBasis, CarbUnit } from '../../shared/schemas/units';
 import { AppError } from '../errors';
-import { BatchModel, PortionModel, ProfileModel } from '../models';
+import { BatchModel, PortionModel } from '../models';
 import { findProfileAccess } from './auth.service';
 import { profileActionAllowed, type ProfileAction } from '../../shared/schemas/profile-actions';
+import { profileUnits } from './profiles.service';
 
 type Units = { basis: CarbBasis; unit: CarbUnit };
 
@@ -53,7 +54,7 @@ export async function findPortionForUser(rawCode: string, userId: number, action
 /** What a label's QR code opens: one portion with its batch's dates and per-100 g carbohydrate. */
 export async function getPortion(rawCode: string, userId: number): Promise<PortionDetail> {
   const portion = await findPortionForUser(rawCode, userId);
-  const profile = (await ProfileModel.findByPk(portion.profileId))!;
+  const profile = await profileUnits(portion.profileId);
   const units = { basis: profile.carbBasis, unit: profile.carbUnit };
   const batch = portion.batch!;
   const understated = carbUnderstated(batch.totals, batch.incomplete, units.basis);

@@ -11,24 +11,24 @@ import type {
 } from '../../shared/schemas/recipe';
 import type { CarbBasis, CarbUnit } from '../../shared/schemas/units';
 import { AppError } from '../errors';
-import { FoodMeasureModel, FoodModel, ProfileModel, RecipeIngredientModel, RecipeModel, RecipeShareModel, UserModel } from '../models';
+import { ProfileModel, RecipeIngredientModel, RecipeModel, RecipeShareModel, UserModel } from '../models';
 import { findProfileAccess } from './auth.service';
-import { getUsableFoods, toFood } from './foods.service';
+import { getUsableFoods, loadFoods } from './foods.service';
+import { profileUnits } from './profiles.service';
 import { photoUrls } from './photos.service';
 
 type Display = { basis: CarbBasis; unit: CarbUnit };
 
 /** The carbohydrate basis and unit to answer in: the named profile (if the user may open it), else their own. */
 export async function resolveDisplay(userId: number, profileId?: number): Promise<Display> {
-  let profile: ProfileModel | null = null;
   if (profileId !== undefined) {
     const access = await findProfileAccess(userId, profileId);
     if (!access) throw AppError.notFound('profile');
-    profile = await ProfileModel.findByPk(profileId);
-  } else {
-    profile = await ProfileModel.findOne({ where: { ownerUserId: userId }, order: [['id', 'ASC']] });
+    const units = await profileUnits(profileId);
+    return { basis: units.carbBasis, unit: units.carbUnit };
   }
-  return { basis: profile?.carbBasis ?? 'available', unit: profile?.carbUnit ?? 'g' };
+  const own = await ProfileModel.findOne({ where: { ownerUserId: userId }, order: [['id', 'ASC']], attributes: ['carbBasis', 'carbUnit'], raw: true });
+  return { basis: own?.carbBasis ?? 'available', unit: own?.carbUnit ?? 'g' };
 }
 
 /** Whether the user may see the recipe: owner, public, or shared with them (while not private). */
@@ -52,28 +52,21 @@ export async function findOwnedRecipe(recipeId: number, userId: number, transact
   return recipe;
 }
 
-/** Foods of a recipe's ingredients by id, with measures. Seeing a recipe lets you see the values of its foods. */
-async function loadFoods(ids: number[], transaction?: Transaction): Promise<Map<number, Food>> {
-  const rows = await FoodModel.findAll({
-    where: { id: { [Op.in]: [...new Set(ids)] } },
-    include: [{ model: FoodMeasureModel, as: 'measures' }],
-    transaction,
-  });
-  return new Map(rows.map((r) => [r.id, toFood(r)]));
-}
+type Line = Pick<RecipeIngredientModel, 'id' | 'recipeId' | 'position' | 'foodId' | 'grams' | 'measureLabel' | 'note'>;
 
 async function loadIngredients(recipeIds: number[], transaction?: Transaction) {
-  if (!recipeIds.length) return new Map<number, RecipeIngredientModel[]>();
-  const rows = await RecipeIngredientModel.findAll({
+  if (!recipeIds.length) return new Map<number, Line[]>();
+  const rows = (await RecipeIngredientModel.findAll({
     where: { recipeId: { [Op.in]: recipeIds } },
     order: [['recipeId', 'ASC'], ['position', 'ASC']],
+    raw: true,
     transaction,
-  });
-  const out = new Map<number, RecipeIngredientModel[]>();
+  })) as Line[];
+  const out = new Map<number, Line[]>();
   for (const row of rows) {
-    const list = out.get(row.recipeId) ?? [];
-    list.push(row);
-    out.set(row.recipeId, list);
+    const list = out.get(row.recipeId);
+    if (list) list.push(row);
+    else out.set(row.recipeId, [row]);
   }
   return out;
 }
@@ -94,8 +87,8 @@ async function lastCooked(recipeIds: number[], userId: number): Promise<Map<numb
 
 function summarise(
   recipe: RecipeModel,
-  owner: UserModel | undefined,
-  lines: RecipeIngredientModel[],
+  owner: { displayName: string } | null | undefined,
+  lines: Line[],
   foods: Map<number, Food>,
   display: Display,
   userId: number,
@@ -141,22 +134,25 @@ export async function getRecipeForUser(
 ): Promise<RecipeDetail> {
   const recipe = await findViewableRecipe(recipeId, userId, transaction);
   const isOwner = recipe.ownerUserId === userId;
-  // One after another: inside a transaction every query shares one connection, which runs one at a time.
-  const display = await resolveDisplay(userId, view.profileId);
-  const lineMap = await loadIngredients([recipe.id], transaction);
-  const owner = await UserModel.findByPk(recipe.ownerUserId, { transaction });
-  const cooked = await lastCooked([recipe.id], userId);
-  const shares = isOwner
-    ? await RecipeShareModel.findAll({ where: { recipeId }, include: [{ model: UserModel, as: 'user' }], order: [['createdAt', 'ASC']], transaction })
-    : null;
-  const source = recipe.copiedFromRecipeId ? await RecipeModel.findByPk(recipe.copiedFromRecipeId, { transaction }) : null;
+  // Inside a transaction every query shares one connection, which runs one at a time; outside, they run together.
+  const [display, lineMap, owner, cooked, shares, source] = await together(transaction, [
+    () => resolveDisplay(userId, view.profileId),
+    () => loadIngredients([recipe.id], transaction),
+    () => UserModel.findByPk(recipe.ownerUserId, { attributes: ['displayName'], raw: true, transaction }),
+    () => lastCooked([recipe.id], userId),
+    () =>
+      isOwner
+        ? RecipeShareModel.findAll({ where: { recipeId }, include: [{ model: UserModel, as: 'user' }], order: [['createdAt', 'ASC']], transaction })
+        : Promise.resolve(null),
+    () => (recipe.copiedFromRecipeId ? RecipeModel.findByPk(recipe.copiedFromRecipeId, { transaction }) : Promise.resolve(null)),
+  ] as const);
   const lines = lineMap.get(recipe.id) ?? [];
-  const foods = await loadFoods(lines.map((l) => l.foodId), transaction);
+  const foods = await loadFoods(lines.map((l) => l.foodId), { transaction });
   const scale =
     view.portions !== undefined
       ? { factor: scaleFactorForPortions(recipe.defaultPortions, view.portions), portions: view.portions }
       : { factor: view.factor ?? 1, portions: recipe.defaultPortions };
-  const { summary, nutrition } = summarise(recipe, owner ?? undefined, lines, foods, display, userId, cooked.get(recipe.id) ?? null, scale);
+  const { summary, nutrition } = summarise(recipe, owner, lines, foods, display, userId, cooked.get(recipe.id) ?? null, scale);
   const sourceVisible = source ? await canViewRecipe(source, userId) : false;
   return {
     ...summary,
@@ -205,16 +201,18 @@ export async function listRecipes(query: RecipeListQuery, userId: number): Promi
       ],
     });
   }
-  const recipes = await RecipeModel.findAll({
+  // Plain rows throughout: a public shelf is 300 recipes and their foods.
+  const recipes = (await RecipeModel.findAll({
     where: { [Op.and]: and },
     include: [{ model: UserModel, as: 'owner', attributes: ['id', 'displayName'] }],
     order: [['updatedAt', 'DESC']],
     limit: 300,
-  });
+    raw: true,
+    nest: true,
+  })) as RecipeModel[];
   const ids = recipes.map((r) => r.id);
-  const lines = await loadIngredients(ids);
-  const foods = await loadFoods([...lines.values()].flat().map((l) => l.foodId));
-  const cooked = await lastCooked(ids, userId);
+  const [lines, cooked] = await Promise.all([loadIngredients(ids), lastCooked(ids, userId)]);
+  const foods = await loadFoods([...lines.values()].flat().map((l) => l.foodId), { measures: false });
   const items = recipes.map(
     (r) => summarise(r, r.owner, lines.get(r.id) ?? [], foods, display, userId, cooked.get(r.id) ?? null).summary,
   );
@@ -287,4 +285,15 @@ export async function deleteRecipe(recipeId: number, userId: number): Promise<st
     await recipe.destroy({ transaction });
     return keys;
   });
+}
+
+type Thunks = readonly (() => Promise<unknown>)[];
+type Results<T extends Thunks> = { [K in keyof T]: Awaited<ReturnType<T[K]>> };
+
+/** Runs independent reads together, or one after another on a transaction's single connection. */
+async function together<T extends Thunks>(transaction: Transaction | undefined, steps: T): Promise<Results<T>> {
+  if (!transaction) return (await Promise.all(steps.map((step) => step()))) as Results<T>;
+  const out: unknown[] = [];
+  for (const step of steps) out.push(await step());
+  return out as Results<T>;
 }
