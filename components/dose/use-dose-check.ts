@@ -1,6 +1,6 @@
 import { zodResolver } from '@hookform/resolvers/zod';
 import { useEffect, useMemo, useRef, useState } from 'react';
-import { useForm } from 'react-hook-form';
+import { useForm, useWatch } from 'react-hook-form';
 import type { View } from 'react-native';
 import type { DoseRequest } from '../../shared/schemas/dose';
 import { useActiveProfile } from '../api/auth';
@@ -32,7 +32,14 @@ export function useDoseCheck({ carbs, portion, label, log }: DoseCheckParams) {
   const contextRef = useRef<Omit<DoseRequestContext, 'now'>>({ glucoseUnit: 'mmol_l', date: today });
   contextRef.current = { glucoseUnit: profile?.glucoseUnit ?? 'mmol_l', date: today };
   const resolver = useMemo(() => zodResolver(doseFormSchema(() => ({ ...contextRef.current, now: Date.now() }))), []);
-  const form = useForm<DoseFormValues, unknown, DoseRequest>({ resolver, defaultValues: { ...doseFormDefaults(carbs, new Date()), ...(log ? { glucoseMinutesAgo: '0' } : {}) } });
+  const form = useForm<DoseFormValues, unknown, DoseRequest>({ resolver, defaultValues: doseFormDefaults(carbs, new Date()) });
+  // Logging a meal, a reading typed now was taken now: the time fills in once there is a reading, never before it.
+  const glucoseTyped = useWatch({ control: form.control, name: 'glucose' }).trim() !== '';
+  useEffect(() => {
+    if (log && glucoseTyped && !form.getFieldState('glucoseMinutesAgo').isDirty && form.getValues('glucoseMinutesAgo').trim() === '') {
+      form.setValue('glucoseMinutesAgo', '0');
+    }
+  }, [log, glucoseTyped, form]);
 
   const defaultKind = todayKind.isPending ? null : (todayKind.data?.[0]?.dayKindId ?? kinds.data?.find((k) => k.isDefault)?.id ?? null);
   useEffect(() => {

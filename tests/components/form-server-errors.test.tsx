@@ -143,4 +143,18 @@ describe('the dose check before anything is worked out', () => {
     await expectErrorUnder('Reading taken', 'Enter how many minutes ago the reading was taken (0 or more).');
     await waitFor(() => expect(api.mock.calls.some(([, init]) => init?.method === 'POST')).toBe(false));
   });
+
+  it('logging a meal: the reading time stays empty until a reading is typed, then says "now" (0 minutes ago)', async () => {
+    fakeApi({
+      'GET /profiles/1/settings': [200, { glucoseUnit: 'mmol_l', carbBasis: 'available', carbUnit: 'g', settings: { penIncrement: 0.5 }, updatedAt: null }],
+      'GET /profiles/1/day-kinds': [200, { dayKinds: [{ id: 4, name: 'Rest', isDefault: true, longActingUnits: null, glucoseUnit: 'mmol_l', timesOfDay: [], updatedAt: '' }] }],
+      'GET /profiles/1/days': [200, { days: [] }],
+    });
+    renderSignedIn(() => <DoseCheckScreen log="1" />);
+
+    const taken = await screen.findByLabelText('Reading taken', { selector: 'input' });
+    expect(taken).toHaveValue('');
+    type('Glucose now', '6.4');
+    await waitFor(() => expect(taken).toHaveValue('0'));
+  });
 });

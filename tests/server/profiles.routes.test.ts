@@ -37,7 +37,7 @@ describe('GET /api/profiles/:profileId/settings', () => {
     const res = await request(ctx.app).get(`/api/profiles/${o.profileId}/settings`).set(bearer(o.token));
 
     expect(res.status).toBe(200);
-    expect(res.body).toEqual({ glucoseUnit: 'mmol_l', carbBasis: 'available', carbUnit: 'g', preferredFoodTable: 'usda_sr28', settings: null, updatedAt: null });
+    expect(res.body).toEqual({ glucoseUnit: 'mmol_l', carbBasis: 'available', carbUnit: 'g', preferredFoodTable: 'usda_sr28', timeZone: 'UTC', settings: null, updatedAt: null });
   });
 
   it('returns 404 to a stranger and 401 without a token', async () => {
