@@ -1,6 +1,7 @@
 import { OpenAPIRegistry, OpenApiGeneratorV31, type RouteConfig } from '@asteasolutions/zod-to-openapi';
 import { z } from 'zod';
 import { apiErrorSchema } from '../shared/schemas/api-error';
+import { PROFILE_ACTIONS } from '../shared/schemas/profile-actions';
 import type { Access, AnyRoute } from './routes/registry';
 
 const WHO: Record<Access['kind'], string> = {
@@ -13,7 +14,8 @@ const WHO: Record<Access['kind'], string> = {
 
 /** Who may call a route, in words (also the `x-access` extension of each operation). */
 export function describeAccess(a: Access): string {
-  if (a.kind === 'role' || a.kind === 'profile') return `${WHO[a.kind]} ${a.roles.join(' / ')}`;
+  if (a.kind === 'role') return `${WHO[a.kind]} ${a.roles.join(' / ')}`;
+  if (a.kind === 'profile') return `${WHO[a.kind]} ${PROFILE_ACTIONS[a.action].join(' / ')} (action \`${a.action}\`)`;
   return WHO[a.kind];
 }
 

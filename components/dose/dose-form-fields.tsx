@@ -7,6 +7,7 @@ import type { CarbBasis, CarbUnit, GlucoseUnit } from '../../shared/schemas/unit
 import { Button } from '../ui/button';
 import { Card } from '../ui/card';
 import { FormChoiceGroup } from '../ui/form-choice-group';
+import { FormGrid } from '../ui/form-grid';
 import { FormTextField } from '../ui/form-text-field';
 import { Text } from '../ui/text';
 import type { DoseFormValues } from './dose-request';
@@ -14,14 +15,9 @@ import { EarlierDosesFields } from './earlier-doses-fields';
 
 type DoseControl = Control<DoseFormValues, unknown, DoseRequest>;
 
-/** A row of two fields that wraps on a phone. */
+/** A row of two fields that wraps on a phone (the one form grid). */
 function Pair({ children }: { children: [React.ReactNode, React.ReactNode] }) {
-  return (
-    <View style={styles.pair}>
-      <View style={styles.grow}>{children[0]}</View>
-      <View style={styles.grow}>{children[1]}</View>
-    </View>
-  );
+  return <FormGrid minCell={160}>{children}</FormGrid>;
 }
 
 type MealProps = {

@@ -2,6 +2,7 @@ import { useFieldArray, type Control, type FieldPath, type FieldValues } from 'r
 import { StyleSheet, View } from 'react-native';
 import { useTheme } from '../theme/use-theme';
 import { Button } from '../ui/button';
+import { FormGrid } from '../ui/form-grid';
 import { FormTextField } from '../ui/form-text-field';
 import { Text } from '../ui/text';
 
@@ -57,9 +58,8 @@ export function EarlierDosesFields<T extends Form, TOut extends FieldValues = T>
       <Text color="textMuted">Add each dose still within your action time; leave none if there were none.</Text>
       {fields.map((f, i) => (
         <View key={f.id} style={[styles.dose, { borderColor: t.colors.border }]}>
-          <View style={styles.row}>
-            <View style={styles.grow}>
-              <FormTextField
+          <FormGrid minCell={140}>
+            <FormTextField
                 control={c}
                 name={`earlierDoses.${i}.units` as FieldPath<Form>}
                 style={styles.input}
@@ -67,9 +67,7 @@ export function EarlierDosesFields<T extends Form, TOut extends FieldValues = T>
                 unit="units"
                 inputMode="decimal"
               />
-            </View>
-            <View style={styles.grow}>
-              <FormTextField
+            <FormTextField
                 control={c}
                 name={`earlierDoses.${i}.minutesAgo` as FieldPath<Form>}
                 style={styles.input}
@@ -77,8 +75,7 @@ export function EarlierDosesFields<T extends Form, TOut extends FieldValues = T>
                 unit="min ago"
                 inputMode="numeric"
               />
-            </View>
-          </View>
+          </FormGrid>
           <View style={styles.remove}>
             <Button variant="quiet" label={`Remove dose ${i + 1}`} aria-label={`Remove earlier dose ${i + 1}`} onPress={() => remove(i)} />
           </View>
@@ -99,8 +96,6 @@ export function EarlierDosesFields<T extends Form, TOut extends FieldValues = T>
 
 const styles = StyleSheet.create({
   stack: { gap: 8 },
-  row: { flexDirection: 'row', gap: 12, flexWrap: 'wrap' },
-  grow: { flex: 1, minWidth: 120 },
   input: { minWidth: 0 },
   dose: { gap: 4, paddingBottom: 8, borderBottomWidth: 1 },
   remove: { alignSelf: 'flex-start' },

@@ -7,6 +7,7 @@ import { Button } from '../ui/button';
 import { Callout } from '../ui/callout';
 import { Card } from '../ui/card';
 import { FormChoiceGroup } from '../ui/form-choice-group';
+import { FormGrid } from '../ui/form-grid';
 import { FormTextField } from '../ui/form-text-field';
 import { Text } from '../ui/text';
 import { formatCarb } from '../../shared/compute/units';
@@ -82,14 +83,10 @@ export function SplitStep({ form, containers, batch, basis, unit, onBack, onDone
                   }}
                 />
               ) : null}
-              <View style={styles.pair}>
-                <View style={styles.grow}>
-                  <FormTextField control={control} name={`portions.${i}.tare`} label={`Empty container ${i + 1} (tare)`} unit="g" keyboardType="decimal-pad" style={styles.input} />
-                </View>
-                <View style={styles.grow}>
-                  <FormTextField control={control} name={`portions.${i}.gross`} label={`Full container ${i + 1} (gross)`} unit="g" keyboardType="decimal-pad" style={styles.input} />
-                </View>
-              </View>
+              <FormGrid minCell={140}>
+                <FormTextField control={control} name={`portions.${i}.tare`} label={`Empty container ${i + 1} (tare)`} unit="g" keyboardType="decimal-pad" style={styles.input} />
+                <FormTextField control={control} name={`portions.${i}.gross`} label={`Full container ${i + 1} (gross)`} unit="g" keyboardType="decimal-pad" style={styles.input} />
+              </FormGrid>
               <Text>
                 {preview.nets[i] == null ? 'Net: enter both weights (empty below full).' : `Net ${gramsText(preview.nets[i]!)} · ${formatCarb(preview.carbs[i], unit, { withGrams: true })}`}
               </Text>
@@ -121,8 +118,6 @@ export function SplitStep({ form, containers, batch, basis, unit, onBack, onDone
 
 const styles = StyleSheet.create({
   portion: { gap: 8, paddingVertical: 8 },
-  pair: { flexDirection: 'row', gap: 12, flexWrap: 'wrap' },
-  grow: { flexGrow: 1, flexBasis: 140, minWidth: 0 },
   input: { minWidth: 0, width: '100%' },
   row: { flexDirection: 'row', flexWrap: 'wrap', gap: 8, alignItems: 'center' },
 });

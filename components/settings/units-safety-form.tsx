@@ -11,10 +11,10 @@ import {
   type ProfileSettingsInput,
 } from '../../shared/schemas/profile-settings';
 import { PREFERRED_FOOD_TABLE_CHOICES, type GlucoseUnit } from '../../shared/schemas/units';
-import { useLayout } from '../theme/use-theme';
 import { Button } from '../ui/button';
 import { Callout } from '../ui/callout';
 import { Card } from '../ui/card';
+import { FormGrid } from '../ui/form-grid';
 import { FormTextField } from '../ui/form-text-field';
 import { Text } from '../ui/text';
 import { FormChoiceGroup } from '../ui/form-choice-group';
@@ -49,7 +49,6 @@ export function UnitsSafetyForm({
   formError?: string;
 }) {
   const form = useForm<ProfileSettingsFormValues, unknown, ProfileSettingsInput>({ resolver: zodResolver(profileSettingsInputSchema), defaultValues });
-  const { isWide } = useLayout();
   const [unit, setUnit] = useState<GlucoseUnit>(defaultValues.glucoseUnit);
   const submit = form.handleSubmit((values) => onSubmit(values, form));
   const u = unitWord(unit);
@@ -110,12 +109,12 @@ export function UnitsSafetyForm({
           name="rounding"
           label="Rounding to the pen step"
           choices={[{ value: 'down', label: 'Down (safer)' }, { value: 'nearest', label: 'Nearest' }]}
-          hint="Rounding down is the more conservative choice (Building Competency in Diabetes Education)."
+          hint="Rounding down is the more cautious choice."
         />
-        <View style={[styles.grid, isWide && styles.gridWide]}>
+        <FormGrid>
           <FormTextField control={form.control} name="maxDoseUnits" label="Largest single dose" unit="units" inputMode="decimal" />
           <FormTextField control={form.control} name="actionTimeHours" label="Insulin action time" unit="hours" inputMode="decimal" hint="2 to 8 hours, as your team set it." />
-        </View>
+        </FormGrid>
         <FormChoiceGroup
           control={form.control}
           name="activeInsulinModel"
@@ -129,7 +128,7 @@ export function UnitsSafetyForm({
       </Card>
       <Card>
         <Text variant="heading">Glucose targets</Text>
-        <View style={[styles.grid, isWide && styles.gridWide]}>
+        <FormGrid>
           <FormTextField control={form.control} name="targetLow" label="Target range from" unit={u} inputMode="decimal" />
           <FormTextField control={form.control} name="targetHigh" label="Target range to" unit={u} inputMode="decimal" />
           <FormTextField control={form.control} name="correctionTarget" label="Correct to" unit={u} inputMode="decimal" hint="Corrections aim for this value." />
@@ -139,7 +138,7 @@ export function UnitsSafetyForm({
             label="Low: no dose at or below"
             unit={u}
             inputMode="decimal"
-            hint="Usually 3.9 mmol/L (70 mg/dL): International Hypoglycaemia Study Group, 2017."
+            hint="Usually 3.9 mmol/L (70 mg/dL)."
           />
           <FormTextField
             control={form.control}
@@ -147,9 +146,9 @@ export function UnitsSafetyForm({
             label="Very high: check ketones from"
             unit={u}
             inputMode="decimal"
-            hint="Often 15 mmol/L (270 mg/dL) before exercise (2017 exercise consensus)."
+            hint="Often 15 mmol/L (270 mg/dL), above all before exercise."
           />
-        </View>
+        </FormGrid>
         <FormChoiceGroup
           control={form.control}
           name="allowNegativeCorrection"
@@ -170,12 +169,12 @@ export function UnitsSafetyForm({
           team. Empty means no reduction is made.
         </Text>
         {EXERCISE_INTENSITIES.map((k) => (
-          <View key={k} style={[styles.grid, styles.gridWide]}>
-            <Text weight="bold" style={styles.intensity}>
-              {INTENSITY_WORDS[k]}
-            </Text>
-            <FormTextField control={form.control} name={`exerciseReductions.${k}.min30`} label="About 30 min" unit="%" inputMode="decimal" style={styles.input} />
-            <FormTextField control={form.control} name={`exerciseReductions.${k}.min60`} label="About 60 min" unit="%" inputMode="decimal" style={styles.input} />
+          <View key={k} style={styles.grid}>
+            <Text weight="bold">{INTENSITY_WORDS[k]}</Text>
+            <FormGrid minCell={140}>
+              <FormTextField control={form.control} name={`exerciseReductions.${k}.min30`} label="About 30 min" unit="%" inputMode="decimal" style={styles.input} />
+              <FormTextField control={form.control} name={`exerciseReductions.${k}.min60`} label="About 60 min" unit="%" inputMode="decimal" style={styles.input} />
+            </FormGrid>
           </View>
         ))}
       </Card>
@@ -187,7 +186,5 @@ export function UnitsSafetyForm({
 const styles = StyleSheet.create({
   stack: { gap: 16 },
   grid: { gap: 12 },
-  gridWide: { flexDirection: 'row', flexWrap: 'wrap', alignItems: 'flex-end' },
-  intensity: { minWidth: 200, flexBasis: '100%' },
   input: { minWidth: 0 },
 });

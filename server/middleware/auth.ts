@@ -1,5 +1,6 @@
 import type { NextFunction, Request, Response } from 'express';
-import type { ProfileAccessRole, UserRole } from '../../shared/schemas/auth';
+import type { UserRole } from '../../shared/schemas/auth';
+import { profileActionAllowed, type ProfileAction } from '../../shared/schemas/profile-actions';
 import { AppError } from '../errors';
 import type { ProfileAccessModel, UserModel } from '../models';
 import { findProfileAccess, verifyToken } from '../services/auth.service';
@@ -45,13 +46,10 @@ export function requireRole(...roles: UserRole[]) {
 }
 
 /**
- * Allows only people with access to the profile named by req.params[param] (after requireAuth).
+ * Allows only people whose access to the profile named by req.params[param] allows the named action (after requireAuth).
  * Without access the answer is 404, so strangers cannot learn which profiles exist.
  */
-export function requireProfileAccess(
-  roles: ProfileAccessRole[] = ['owner', 'carer', 'clinician'],
-  param = 'profileId',
-) {
+export function requireProfileAccess(action: ProfileAction, param = 'profileId') {
   return async (req: Request, _res: Response, next: NextFunction) => {
     if (!req.auth) return next(AppError.unauthorized());
     const profileId = Number(req.params[param]);
@@ -60,7 +58,7 @@ export function requireProfileAccess(
     }
     const access = await findProfileAccess(req.auth.user.id, profileId);
     if (!access) return next(AppError.notFound('profile'));
-    if (!roles.includes(access.role)) return next(AppError.forbidden('Your access to this profile does not allow that.'));
+    if (!profileActionAllowed(access, action)) return next(AppError.forbidden('Your access to this profile does not allow that.'));
     req.profileAccess = access;
     next();
   };

@@ -17,18 +17,20 @@ import { UserModel } from './user.model';
 import { DayKindDayModel } from './day-kind-day.model';
 import { DayKindModel } from './day-kind.model';
 import { ProfileSettingsModel } from './profile-settings.model';
-import { RatioBlockModel } from './ratio-block.model';
+import { TimeOfDayModel } from './time-of-day.model';
 import { SettingsChangeModel } from './settings-change.model';
 import { CapturedMailModel, MailOutboxModel } from './mail-outbox.model';
 import { AccountTokenModel } from './account-token.model';
 import { AccountAuditModel } from './account-audit.model';
+import { LogEntryChangeModel, LogEntryModel } from './log-entry.model';
 
 export { DatasetImportModel, FoodMeasureModel, FoodModel, FoodSynonymModel };
 export { ProfileAccessModel, ProfileModel, RevokedTokenModel, UserModel };
-export { DayKindDayModel, DayKindModel, ProfileSettingsModel, RatioBlockModel, SettingsChangeModel };
+export { DayKindDayModel, DayKindModel, ProfileSettingsModel, SettingsChangeModel, TimeOfDayModel };
 export { BatchIngredientModel, BatchModel, ContainerModel, PortionModel };
 export { RecipeIngredientModel, RecipeModel, RecipeShareModel };
 export { AccountAuditModel, AccountTokenModel, CapturedMailModel, MailOutboxModel };
+export { LogEntryChangeModel, LogEntryModel };
 
 /** Initialises every model once, then wires every association in one place. */
 export function initModels(sequelize: Sequelize): void {
@@ -39,7 +41,7 @@ export function initModels(sequelize: Sequelize): void {
   ProfileSettingsModel.initModel(sequelize);
   DayKindModel.initModel(sequelize);
   DayKindDayModel.initModel(sequelize);
-  RatioBlockModel.initModel(sequelize);
+  TimeOfDayModel.initModel(sequelize);
   SettingsChangeModel.initModel(sequelize);
   ContainerModel.initModel(sequelize);
   BatchModel.initModel(sequelize);
@@ -56,12 +58,14 @@ export function initModels(sequelize: Sequelize): void {
   CapturedMailModel.initModel(sequelize);
   AccountTokenModel.initModel(sequelize);
   AccountAuditModel.initModel(sequelize);
+  LogEntryModel.initModel(sequelize);
+  LogEntryChangeModel.initModel(sequelize);
 
   ProfileModel.belongsTo(UserModel, { as: 'owner', foreignKey: 'ownerUserId' });
   ProfileAccessModel.belongsTo(ProfileModel, { as: 'profile', foreignKey: 'profileId' });
   ProfileAccessModel.belongsTo(UserModel, { as: 'user', foreignKey: 'userId' });
   ProfileModel.hasMany(ProfileAccessModel, { as: 'accesses', foreignKey: 'profileId' });
-  DayKindModel.hasMany(RatioBlockModel, { as: 'blocks', foreignKey: 'dayKindId' });
+  DayKindModel.hasMany(TimeOfDayModel, { as: 'timesOfDay', foreignKey: 'dayKindId' });
   DayKindDayModel.belongsTo(DayKindModel, { as: 'dayKind', foreignKey: 'dayKindId' });
   SettingsChangeModel.belongsTo(UserModel, { as: 'user', foreignKey: 'userId' });
   RecipeModel.belongsTo(UserModel, { as: 'owner', foreignKey: 'ownerUserId' });
@@ -79,4 +83,9 @@ export function initModels(sequelize: Sequelize): void {
   PortionModel.belongsTo(BatchModel, { as: 'batch', foreignKey: 'batchId' });
   AccountAuditModel.belongsTo(UserModel, { as: 'user', foreignKey: 'userId' });
   AccountAuditModel.belongsTo(UserModel, { as: 'actor', foreignKey: 'actorUserId' });
+  LogEntryModel.belongsTo(UserModel, { as: 'enteredBy', foreignKey: 'enteredByUserId' });
+  LogEntryModel.belongsTo(PortionModel, { as: 'portion', foreignKey: 'portionId' });
+  LogEntryModel.belongsTo(DayKindModel, { as: 'dayKind', foreignKey: 'dayKindId' });
+  LogEntryModel.hasMany(LogEntryChangeModel, { as: 'changes', foreignKey: 'entryId' });
+  LogEntryChangeModel.belongsTo(UserModel, { as: 'changedBy', foreignKey: 'changedByUserId' });
 }

@@ -11,6 +11,8 @@ export class ProfileModel extends Model<InferAttributes<ProfileModel>, InferCrea
   declare carbBasis: CreationOptional<CarbBasis>;
   declare carbUnit: CreationOptional<CarbUnit>;
   declare preferredFoodTable: CreationOptional<PreferredFoodTable>;
+  /** IANA zone name: decides the local date, the day kind and the time of day of every logbook entry. */
+  declare timeZone: CreationOptional<string>;
   declare createdAt: CreationOptional<Date>;
   declare updatedAt: CreationOptional<Date>;
 
@@ -24,6 +26,7 @@ export class ProfileModel extends Model<InferAttributes<ProfileModel>, InferCrea
         carbBasis: { type: DataTypes.ENUM('available', 'total'), allowNull: false, defaultValue: 'available' },
         carbUnit: { type: DataTypes.ENUM('g', 'portion10', 'unit12', 'exchange15'), allowNull: false, defaultValue: 'g' },
         preferredFoodTable: { type: DataTypes.ENUM('usda_sr28', 'ifct2017'), allowNull: false, defaultValue: 'usda_sr28' },
+        timeZone: { type: DataTypes.STRING(64), allowNull: false, defaultValue: 'UTC' },
         createdAt: DataTypes.DATE,
         updatedAt: DataTypes.DATE,
       },

@@ -13,8 +13,8 @@ function originOf(config: Config, req: Request): string {
 
 /** Cooked batches of a profile: save a cook, the inventory, a batch page, storage changes and the label sheet. */
 export function batchesRoutes({ config }: AppDeps): AnyRoute[] {
-  const read = access.profile('owner', 'carer', 'clinician');
-  const write = access.profile('owner', 'carer');
+  const read = access.profile('kitchen.read');
+  const write = access.profile('kitchen.write');
   const base = '/profiles/:profileId/batches';
   return [
     defineRoute({

@@ -5,8 +5,8 @@ import { access, defineRoute, type AnyRoute } from './registry';
 
 /** Saved pots and containers (with tares) of a profile. Clinicians may look but not change them. */
 export function containersRoutes(): AnyRoute[] {
-  const read = access.profile('owner', 'carer', 'clinician');
-  const write = access.profile('owner', 'carer');
+  const read = access.profile('kitchen.read');
+  const write = access.profile('kitchen.write');
   const base = '/profiles/:profileId/containers';
   return [
     defineRoute({

@@ -7,7 +7,7 @@ import { access, defineRoute, type AnyRoute } from './registry';
 export function doseRoutes(): AnyRoute[] {
   return [
     defineRoute({
-      method: 'post', path: '/profiles/:profileId/dose-suggestions', access: access.profile('owner', 'carer', 'clinician'),
+      method: 'post', path: '/profiles/:profileId/dose-suggestions', access: access.profile('dose.check'),
       params: profileIdParamSchema, body: doseRequestSchema,
       summary: 'A dose suggestion with every part of the sum, warnings and cautions (not stored).',
       handler: async ({ params, body }, _req, res) => res.json(await suggestDose(params.profileId, body)),

@@ -1,7 +1,8 @@
 import type { Request, RequestHandler, Response, Router } from 'express';
 import type { Sequelize } from 'sequelize';
 import type { z } from 'zod';
-import type { ProfileAccessRole, UserRole } from '../../shared/schemas/auth';
+import type { UserRole } from '../../shared/schemas/auth';
+import type { ProfileAction } from '../../shared/schemas/profile-actions';
 import type { Config } from '../config';
 import type { PhotoProcessor } from '../lib/photo-worker';
 import type { FileStorage } from '../lib/storage';
@@ -17,17 +18,17 @@ export type Access =
   | { kind: 'signed-link' }
   | { kind: 'signed-in' }
   | { kind: 'role'; roles: UserRole[] }
-  | { kind: 'profile'; roles: ProfileAccessRole[] };
+  | { kind: 'profile'; action: ProfileAction };
 
-/** The access levels, named once: `access.profile('owner', 'carer')`. */
+/** The access levels, named once: `access.profile('log.write')` (actions in shared/schemas/profile-actions.ts). */
 export const access = {
   public: { kind: 'public' } as Access,
   /** No bearer token: a short-lived HMAC-signed link (photos in `<img>`). */
   signedLink: { kind: 'signed-link' } as Access,
   signedIn: { kind: 'signed-in' } as Access,
   role: (...roles: UserRole[]): Access => ({ kind: 'role', roles }),
-  /** Needs `:profileId` in the path; without access the answer is 404. */
-  profile: (...roles: ProfileAccessRole[]): Access => ({ kind: 'profile', roles }),
+  /** Needs `:profileId` in the path; without access the answer is 404, with access that does not allow the action 403. */
+  profile: (action: ProfileAction): Access => ({ kind: 'profile', action }),
 };
 
 export type Method = 'get' | 'post' | 'put' | 'patch' | 'delete';
@@ -84,7 +85,7 @@ function accessChain(a: Access, config: Config): RequestHandler[] {
     case 'role':
       return [requireAuth(config), requireRole(...a.roles)];
     case 'profile':
-      return [requireAuth(config), requireProfileAccess(a.roles)];
+      return [requireAuth(config), requireProfileAccess(a.action)];
   }
 }
 

@@ -8,6 +8,7 @@ import type { CarbBasis, CarbUnit } from '../../shared/schemas/units';
 import { AppError } from '../errors';
 import { BatchModel, PortionModel, ProfileModel } from '../models';
 import { findProfileAccess } from './auth.service';
+import { profileActionAllowed, type ProfileAction } from '../../shared/schemas/profile-actions';
 
 type Units = { basis: CarbBasis; unit: CarbUnit };
 
@@ -36,16 +37,16 @@ export function toPortion(p: PortionModel, units: Units, understated = false): P
 
 /**
  * Finds a portion by its typed or scanned code for someone with access to its profile. Strangers get the
- * same 404 as a code that does not exist; `roles` narrows who may act on it.
+ * same 404 as a code that does not exist; `action` names what they want to do with it.
  */
-async function findPortionForUser(rawCode: string, userId: number, roles: string[] = ['owner', 'carer', 'clinician']) {
+async function findPortionForUser(rawCode: string, userId: number, action: ProfileAction = 'kitchen.read') {
   const code = normalizePortionCode(rawCode);
   if (!code) throw AppError.notFound('portion');
   const portion = await PortionModel.findOne({ where: { code }, include: [{ model: BatchModel, as: 'batch' }] });
   if (!portion) throw AppError.notFound('portion');
   const access = await findProfileAccess(userId, portion.profileId);
   if (!access) throw AppError.notFound('portion');
-  if (!roles.includes(access.role)) throw AppError.forbidden('Your access to this profile does not allow that.');
+  if (!profileActionAllowed(access, action)) throw AppError.forbidden('Your access to this profile does not allow that.');
   return portion;
 }
 
@@ -78,7 +79,7 @@ const STATUS_WORDS: Record<PortionStatus, string> = { available: 'not eaten yet'
  * Clinicians may look but not mark.
  */
 export async function setPortionStatus(rawCode: string, userId: number, status: PortionStatus): Promise<PortionDetail> {
-  const portion = await findPortionForUser(rawCode, userId, ['owner', 'carer']);
+  const portion = await findPortionForUser(rawCode, userId, 'kitchen.write');
   const [, affected] = await PortionModel.sequelize!.query(
     `UPDATE portions SET status = :status, status_changed_at = now(), status_changed_by_user_id = :userId, updated_at = now()
      WHERE id = :id AND ${status === 'available' ? "status IN ('eaten', 'discarded')" : "status = 'available'"}`,

@@ -59,10 +59,30 @@ describe('a server field error lands under its field', () => {
     await expectErrorUnder('Grams of Oats, rolled', 'At most 20000 g per ingredient.');
   });
 
+  it('recipe editor: an error on a detail field opens the compact row’s details and lands under the note', async () => {
+    fakeApi({
+      'GET /foods': [200, { items: [{ ...OATS, attribution: 'Test table', source: 'usda_sr28' }], nextCursor: null }],
+      'GET /foods/7': [200, { food: { ...OATS, measures: [] } }],
+      'POST /recipes': fieldErrors({ 'ingredients.0.note': ['Keep the note under 200 characters.'] }),
+    });
+    renderSignedIn(() => <RecipeEditorScreen />);
+
+    type('Title', 'Porridge');
+    type('Add an ingredient', 'oats');
+    fireEvent.click(await screen.findByRole('button', { name: 'Add Oats, rolled' }));
+    type('Grams of Oats, rolled', '80');
+    // Compact: the details are closed until asked for.
+    expect(screen.queryByLabelText('Note (optional)', { selector: 'input, textarea' })).toBeNull();
+    press('Save recipe');
+
+    await expectErrorUnder('Note (optional)', 'Keep the note under 200 characters.');
+    expect(screen.getByRole('button', { name: 'Hide details for Oats, rolled' })).toBeInTheDocument();
+  });
+
   it('dose check: the reading time (glucoseTakenAt in the request)', async () => {
     fakeApi({
       'GET /profiles/1/settings': [200, { glucoseUnit: 'mmol_l', carbBasis: 'available', carbUnit: 'g', settings: { penIncrement: 0.5 }, updatedAt: null }],
-      'GET /profiles/1/day-kinds': [200, { dayKinds: [{ id: 4, name: 'Rest', isDefault: true, longActingUnits: null, glucoseUnit: 'mmol_l', blocks: [], updatedAt: '' }] }],
+      'GET /profiles/1/day-kinds': [200, { dayKinds: [{ id: 4, name: 'Rest', isDefault: true, longActingUnits: null, glucoseUnit: 'mmol_l', timesOfDay: [], updatedAt: '' }] }],
       'GET /profiles/1/days': [200, { days: [] }],
       'POST /profiles/1/dose-suggestions': fieldErrors({ glucoseTakenAt: ['The reading is older than the meal by more than a day.'] }),
     });
@@ -109,7 +129,7 @@ describe('the dose check before anything is worked out', () => {
   it('shows the caution, leaves the reading time empty and asks for it once a reading is typed', async () => {
     const api = fakeApi({
       'GET /profiles/1/settings': [200, { glucoseUnit: 'mmol_l', carbBasis: 'available', carbUnit: 'g', settings: { penIncrement: 0.5 }, updatedAt: null }],
-      'GET /profiles/1/day-kinds': [200, { dayKinds: [{ id: 4, name: 'Rest', isDefault: true, longActingUnits: null, glucoseUnit: 'mmol_l', blocks: [], updatedAt: '' }] }],
+      'GET /profiles/1/day-kinds': [200, { dayKinds: [{ id: 4, name: 'Rest', isDefault: true, longActingUnits: null, glucoseUnit: 'mmol_l', timesOfDay: [], updatedAt: '' }] }],
       'GET /profiles/1/days': [200, { days: [] }],
     });
     renderSignedIn(() => <DoseCheckScreen />);

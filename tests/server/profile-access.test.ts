@@ -9,10 +9,10 @@ let probe: express.Express;
 const ctx = useTestApp();
 beforeAll(async () => {
   probe = express();
-  probe.get('/p/:profileId', requireAuth(ctx.config), requireProfileAccess(), (req, res) => {
+  probe.get('/p/:profileId', requireAuth(ctx.config), requireProfileAccess('profile.read'), (req, res) => {
     res.json({ role: req.profileAccess!.role });
   });
-  probe.get('/p/:profileId/owner-only', requireAuth(ctx.config), requireProfileAccess(['owner']), (_req, res) => {
+  probe.get('/p/:profileId/owner-only', requireAuth(ctx.config), requireProfileAccess('access.manage'), (_req, res) => {
     res.json({ ok: true });
   });
   probe.use(errorHandler);

@@ -112,7 +112,7 @@ describe('revoking and copying', () => {
     expect((await request(ctx.app).get(`/api/recipes/${id}`).set(bearer(people.sharedWith.token))).status).toBe(404);
     const mine = await request(ctx.app).get(`/api/recipes/${copy.body.id}`).set(bearer(people.sharedWith.token));
     expect(mine.status).toBe(200);
-    expect(mine.body).toMatchObject({ isOwner: true, title: 'Overnight oats jars', copiedFromRecipeId: id, copiedFrom: null });
+    expect(mine.body).toMatchObject({ isOwner: true, title: 'Overnight oats', copiedFromRecipeId: id, copiedFrom: null });
     expect(mine.body.nutrition.carbPerPortion.grams).toBeCloseTo(36.2, 2);
   });
 
@@ -139,7 +139,7 @@ describe('revoking and copying', () => {
 });
 
 describe('POST /api/profiles/:profileId/batches (a recipe shared with me)', () => {
-  it('lets the person a recipe was shared with cook it when it uses the owner’s label food', async () => {
+  it('lets the person a recipe was shared with cook it when it uses the owner’s pack food', async () => {
     const owner = await member('Owner');
     const friend = await signUpUser(ctx.app, 'Friend');
     // check-values.md §1.2 worked example label: 60 g available carbohydrate and 10 g fibre per 100 g.
@@ -169,7 +169,7 @@ describe('POST /api/profiles/:profileId/batches (a recipe shared with me)', () =
     expect(cooked.body.portions.map((p: { carb: { grams: number } }) => p.carb.grams)).toEqual([30, 30]);
   });
 
-  it('still refuses another member’s private label food that is not in the recipe', async () => {
+  it('still refuses another member’s private pack food that is not in the recipe', async () => {
     const owner = await member('Owner');
     const stranger = await member('Stranger');
     const hidden = await request(ctx.app)
