@@ -6,9 +6,11 @@ import type { Config } from './config';
 import { PhotoProcessor } from './lib/photo-worker';
 import { localDiskStorage } from './lib/storage';
 import { logger } from './logger';
+import { MailSender } from './mail/mail-sender';
 import { errorHandler, notFoundHandler } from './middleware/error-handler';
 import { apiRouter } from './routes';
 import type { AppDeps } from './routes/registry';
+import { configureMail } from './services/mail.service';
 import { configurePhotoSigning } from './services/photos.service';
 import { serveWeb } from './web';
 
@@ -19,6 +21,7 @@ import { serveWeb } from './web';
 export function createApp(config: Config, sequelize: Sequelize) {
   logger.level = config.LOG_LEVEL;
   configurePhotoSigning(config.jwtSecret);
+  configureMail(config);
   const deps: AppDeps = { config, sequelize, storage: localDiskStorage(config.UPLOADS_DIR), photos: new PhotoProcessor(2) };
   const app = express();
   app.disable('x-powered-by');
@@ -55,5 +58,18 @@ export function createApp(config: Config, sequelize: Sequelize) {
   app.use('/api', notFoundHandler);
   serveWeb(app, config.WEB_DIST_DIR);
   app.use(errorHandler);
+  const mail = new MailSender(config, sequelize);
+  mail.start();
+  app.locals.mailSender = mail;
   return app;
+}
+
+/** The mail sender createApp started (to stop it, or to learn the fake SMTP port). */
+export function mailSenderOf(app: express.Express): MailSender {
+  return app.locals.mailSender as MailSender;
+}
+
+/** Stops what createApp started in the background (the mail sender and its fake SMTP server); the pool stays open. */
+export async function stopApp(app: express.Express): Promise<void> {
+  await mailSenderOf(app)?.stop();
 }

@@ -25,6 +25,16 @@ const envSchema = z.object({
   BENCH_ROUTES: z.enum(['0', '1']).default('0'),
   ADMIN_EMAIL: z.string().optional(),
   ADMIN_PASSWORD: z.string().optional(),
+  SMTP_HOST: z.string().optional(),
+  SMTP_PORT: z.coerce.number().int().min(1).max(65535).default(587),
+  SMTP_SECURE: z.enum(['0', '1']).default('0'),
+  SMTP_USER: z.string().optional(),
+  SMTP_PASSWORD: z.string().optional(),
+  MAIL_FROM: z.string().default('Carbwright <carbwright@localhost>'),
+  FAKE_SMTP_PORT: z.coerce.number().int().min(0).max(65535).default(0),
+  MAIL_RETRY_BASE_SECONDS: z.coerce.number().positive().default(30),
+  MAIL_MAX_ATTEMPTS: z.coerce.number().int().min(1).default(8),
+  MAIL_POLL_SECONDS: z.coerce.number().positive().default(30),
 }).refine((env) => env.NODE_ENV === 'test' || env.BCRYPT_COST >= 12, {
   message: 'BCRYPT_COST must be at least 12 outside tests.',
   path: ['BCRYPT_COST'],
@@ -42,6 +52,16 @@ function loadJwtSecret(env: z.infer<typeof envSchema>): string {
     fs.writeFileSync(file, crypto.randomBytes(48).toString('base64url'), { mode: 0o600, flag: 'wx' });
   }
   return fs.readFileSync(file, 'utf8').trim();
+}
+
+/** The address the app is reached at (links in e-mails and label QR codes). */
+export function publicUrl(config: Config): string {
+  return (config.PUBLIC_URL ?? `http://${config.HOST}:${config.PORT}`).replace(/\/+$/, '');
+}
+
+/** True when no SMTP host is configured: mail goes to the local fake SMTP server and the captured-mail page is on. */
+export function usesFakeSmtp(config: Config): boolean {
+  return !config.SMTP_HOST;
 }
 
 /** Parses the environment once; fails fast with every problem listed. */

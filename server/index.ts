@@ -1,5 +1,5 @@
-import { createApp } from './app';
-import { loadConfig } from './config';
+import { createApp, stopApp } from './app';
+import { loadConfig, publicUrl } from './config';
 import { createSequelize } from './db';
 import { logger } from './logger';
 
@@ -10,12 +10,12 @@ export async function startServer(): Promise<void> {
   await sequelize.authenticate();
   const app = createApp(config, sequelize);
   const server = app.listen(config.PORT, config.HOST, () => {
-    const url = config.PUBLIC_URL ?? `http://${config.HOST}:${config.PORT}`;
+    const url = publicUrl(config);
     logger.info({ url }, 'Carbwright is listening');
     process.stdout.write(`\n  Carbwright is ready: ${url}\n\n`);
   });
   const shutdown = () => {
-    server.close(() => void sequelize.close().then(() => process.exit(0)));
+    server.close(() => void stopApp(app).then(() => sequelize.close()).then(() => process.exit(0)));
     setTimeout(() => process.exit(0), 5000).unref();
   };
   process.on('SIGINT', shutdown);

@@ -1,5 +1,5 @@
 import { AsyncLocalStorage, AsyncResource } from 'node:async_hooks';
-import { Sequelize } from 'sequelize';
+import { Sequelize, type Transaction } from 'sequelize';
 
 type Store = Map<string, unknown>;
 const storage = new AsyncLocalStorage<Store>();
@@ -32,4 +32,9 @@ export function enableTransactionContext(): void {
   if (enabled) return;
   Sequelize.useCLS(namespace);
   enabled = true;
+}
+
+/** The managed transaction the calling code runs in, if any (to act after it commits). */
+export function currentTransaction(): Transaction | undefined {
+  return namespace.get('transaction') as Transaction | undefined;
 }

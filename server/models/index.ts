@@ -20,6 +20,7 @@ import { ProfileSettingsModel } from './profile-settings.model';
 import { RatioBlockModel } from './ratio-block.model';
 import { SettingsChangeModel } from './settings-change.model';
 import { LogEntryChangeModel, LogEntryModel } from './log-entry.model';
+import { CapturedMailModel, MailOutboxModel } from './mail-outbox.model';
 
 export { DatasetImportModel, FoodMeasureModel, FoodModel, FoodSynonymModel };
 export { ProfileAccessModel, ProfileModel, RevokedTokenModel, UserModel };
@@ -27,6 +28,7 @@ export { DayKindDayModel, DayKindModel, ProfileSettingsModel, RatioBlockModel, S
 export { BatchIngredientModel, BatchModel, ContainerModel, PortionModel };
 export { RecipeIngredientModel, RecipeModel, RecipeShareModel };
 export { LogEntryChangeModel, LogEntryModel };
+export { CapturedMailModel, MailOutboxModel };
 
 /** Initialises every model once, then wires every association in one place. */
 export function initModels(sequelize: Sequelize): void {
@@ -52,6 +54,8 @@ export function initModels(sequelize: Sequelize): void {
   FoodSynonymModel.initModel(sequelize);
   LogEntryModel.initModel(sequelize);
   LogEntryChangeModel.initModel(sequelize);
+  MailOutboxModel.initModel(sequelize);
+  CapturedMailModel.initModel(sequelize);
 
   ProfileModel.belongsTo(UserModel, { as: 'owner', foreignKey: 'ownerUserId' });
   ProfileAccessModel.belongsTo(ProfileModel, { as: 'profile', foreignKey: 'profileId' });

@@ -10,6 +10,7 @@ import { foodSynonymsRoutes } from './food-synonyms.routes';
 import { foodsRoutes } from './foods.routes';
 import { healthRoutes } from './health.routes';
 import { importsRoutes } from './imports.routes';
+import { mailRoutes } from './mail.routes';
 import { photosRoutes } from './photos.routes';
 import { portionsRoutes } from './portions.routes';
 import { profilesRoutes } from './profiles.routes';
@@ -25,6 +26,7 @@ export function apiRoutes(deps: AppDeps): AnyRoute[] {
     ...healthRoutes(deps),
     ...authRoutes(deps),
     ...adminRoutes(),
+    ...mailRoutes(),
     ...foodsRoutes(deps),
     ...foodSynonymsRoutes(),
     ...importsRoutes(deps),

@@ -4,7 +4,7 @@ import path from 'node:path';
 import request from 'supertest';
 import type { Express } from 'express';
 import type { Sequelize } from 'sequelize';
-import { createApp } from '../../server/app';
+import { createApp, stopApp } from '../../server/app';
 import type { Config } from '../../server/config';
 import type { Session } from '../../shared/schemas/auth';
 import { openTestDatabase, testConfig } from './db';
@@ -28,6 +28,7 @@ export function useTestApp(overrides: Record<string, string> = {}): TestContext 
     Object.assign(ctx, await startTestApp(overrides));
   });
   afterAll(async () => {
+    if (ctx.app) await stopApp(ctx.app);
     await ctx.sequelize?.close();
   });
   return ctx;

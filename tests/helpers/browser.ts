@@ -5,7 +5,7 @@ import os from 'node:os';
 import path from 'node:path';
 import { chromium, type BrowserContext, type Page } from 'playwright-core';
 import type { Sequelize } from 'sequelize';
-import { createApp } from '../../server/app';
+import { createApp, stopApp } from '../../server/app';
 import { REPO_ROOT } from '../../server/config';
 import { openTestDatabase, testConfig } from './db';
 
@@ -62,6 +62,7 @@ export async function startBrowserRig(suite: string): Promise<BrowserRig> {
     async close() {
       await Promise.all(contexts.map((c) => c.close()));
       await new Promise((resolve) => server.close(resolve));
+      await stopApp(app);
       await sequelize.close();
       fs.rmSync(userDir, { recursive: true, force: true });
     },
