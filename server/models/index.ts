@@ -21,6 +21,9 @@ import { RatioBlockModel } from './ratio-block.model';
 import { SettingsChangeModel } from './settings-change.model';
 import { LogEntryChangeModel, LogEntryModel } from './log-entry.model';
 import { CapturedMailModel, MailOutboxModel } from './mail-outbox.model';
+import { AccessEventModel } from './access-event.model';
+import { InvitationModel } from './invitation.model';
+import { RecipeShareOfferModel } from './recipe-share-offer.model';
 
 export { DatasetImportModel, FoodMeasureModel, FoodModel, FoodSynonymModel };
 export { ProfileAccessModel, ProfileModel, RevokedTokenModel, UserModel };
@@ -29,6 +32,7 @@ export { BatchIngredientModel, BatchModel, ContainerModel, PortionModel };
 export { RecipeIngredientModel, RecipeModel, RecipeShareModel };
 export { LogEntryChangeModel, LogEntryModel };
 export { CapturedMailModel, MailOutboxModel };
+export { AccessEventModel, InvitationModel, RecipeShareOfferModel };
 
 /** Initialises every model once, then wires every association in one place. */
 export function initModels(sequelize: Sequelize): void {
@@ -56,11 +60,20 @@ export function initModels(sequelize: Sequelize): void {
   LogEntryChangeModel.initModel(sequelize);
   MailOutboxModel.initModel(sequelize);
   CapturedMailModel.initModel(sequelize);
+  InvitationModel.initModel(sequelize);
+  AccessEventModel.initModel(sequelize);
+  RecipeShareOfferModel.initModel(sequelize);
 
   ProfileModel.belongsTo(UserModel, { as: 'owner', foreignKey: 'ownerUserId' });
   ProfileAccessModel.belongsTo(ProfileModel, { as: 'profile', foreignKey: 'profileId' });
   ProfileAccessModel.belongsTo(UserModel, { as: 'user', foreignKey: 'userId' });
   ProfileModel.hasMany(ProfileAccessModel, { as: 'accesses', foreignKey: 'profileId' });
+  InvitationModel.belongsTo(ProfileModel, { as: 'profile', foreignKey: 'profileId' });
+  InvitationModel.belongsTo(UserModel, { as: 'invitedBy', foreignKey: 'invitedByUserId' });
+  AccessEventModel.belongsTo(UserModel, { as: 'actor', foreignKey: 'actorUserId' });
+  AccessEventModel.belongsTo(UserModel, { as: 'subject', foreignKey: 'subjectUserId' });
+  RecipeShareOfferModel.belongsTo(RecipeModel, { as: 'recipe', foreignKey: 'recipeId' });
+  RecipeShareOfferModel.belongsTo(UserModel, { as: 'sender', foreignKey: 'senderUserId' });
   DayKindModel.hasMany(RatioBlockModel, { as: 'blocks', foreignKey: 'dayKindId' });
   DayKindDayModel.belongsTo(DayKindModel, { as: 'dayKind', foreignKey: 'dayKindId' });
   SettingsChangeModel.belongsTo(UserModel, { as: 'user', foreignKey: 'userId' });

@@ -45,6 +45,9 @@ export async function getMe(userId: number): Promise<Me> {
         id: profile.id,
         displayName: profile.displayName,
         access: a.role,
+        permissions: a.permissions,
+        colour: profile.colour,
+        managed: profile.managed,
         glucoseUnit: profile.glucoseUnit,
         carbBasis: profile.carbBasis,
         carbUnit: profile.carbUnit,
@@ -110,7 +113,10 @@ export async function verifyToken(config: Config, token: string) {
     const expired = err instanceof jwt.TokenExpiredError;
     throw AppError.unauthorized(expired ? 'Your session has expired. Please sign in again.' : 'Please sign in.');
   }
-  const user = await UserModel.findByPk(Number(claims.sub));
+  // A subject that is not a user id (a token signed for something else) is a bad session, not a server fault.
+  const userId = Number(claims.sub);
+  if (!Number.isSafeInteger(userId) || userId <= 0) throw AppError.unauthorized('Please sign in again.');
+  const user = await UserModel.findByPk(userId);
   if (!user || user.tokenVersion !== claims.tv) throw AppError.unauthorized('Please sign in again.');
   if (await RevokedTokenModel.findByPk(claims.jti)) throw AppError.unauthorized('Please sign in again.');
   return { user, jti: claims.jti, expiresAt: new Date(claims.exp * 1000) };
