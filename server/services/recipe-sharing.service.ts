@@ -39,6 +39,7 @@ export async function offerRecipe(recipeId: number, senderId: number, email: str
     const pending = await RecipeShareOfferModel.findOne({ where: { recipeId, email, status: 'offered' } });
     const has = person ? await RecipeShareModel.count({ where: { recipeId, userId: person.id } }) : 0;
     await RecipeShareOfferModel.create({ recipeId, senderUserId: senderId, email, status: pending || has ? 'accepted' : 'offered', respondedAt: pending || has ? now : null });
+    if (recipe.visibility === 'private') await recipe.update({ visibility: 'shared' });
     if (pending || has) return;
     const link = person ? mailLink('/recipes', { offers: '1' }) : mailLink('/sign-up', { email });
     await queueMail('share_offer', email, { senderName: sender.displayName, recipeName: recipe.title, link, hasAccount: !!person });
