@@ -1,22 +1,17 @@
+import { deviceStorage } from './device-storage';
+
 /** The one place the session token is kept: web storage, under one key. */
 const KEY = 'carbwright.session';
 
-function storage(): Storage | undefined {
-  try {
-    return typeof globalThis.localStorage === 'undefined' ? undefined : globalThis.localStorage;
-  } catch {
-    return undefined;
-  }
-}
 
 export const tokenStore = {
   get(): string | null {
-    return storage()?.getItem(KEY) ?? null;
+    return deviceStorage()?.getItem(KEY) ?? null;
   },
   set(token: string) {
-    storage()?.setItem(KEY, token);
+    deviceStorage()?.setItem(KEY, token);
   },
   clear() {
-    storage()?.removeItem(KEY);
+    deviceStorage()?.removeItem(KEY);
   },
 };

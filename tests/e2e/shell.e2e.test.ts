@@ -41,6 +41,7 @@ const PLACES: { name: string; path: (ids: Ids) => string }[] = [
   { name: 'food', path: (i) => `/foods/${i.food}` },
   { name: 'food-new', path: () => '/foods/new' },
   { name: 'imports', path: () => '/admin/imports' },
+  { name: 'people', path: () => '/more/people' },
 ];
 
 const SIGNED_OUT = ['/sign-in', '/sign-up'];
