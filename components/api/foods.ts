@@ -1,5 +1,5 @@
 import { keepPreviousData, queryOptions, useInfiniteQuery, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
-import type { CreateLabelFoodValues, DatasetImport, Food, FoodSearchPage, FoodSource } from '../../shared/schemas/food';
+import type { CreatePackFoodValues, DatasetImport, Food, FoodSearchPage, FoodSource } from '../../shared/schemas/food';
 import { apiFetch, apiFetchBlob } from './client';
 import { recipeKeys } from './recipes';
 
@@ -49,13 +49,13 @@ export function useFood(id: number) {
   return useQuery({ ...foodQueryOptions(id), enabled: Number.isInteger(id) && id > 0 });
 }
 
-export type LabelPhotoFile = { blob: Blob; name: string };
+export type PackPhotoFile = { blob: Blob; name: string };
 
 /** Adds a food from a package label (with the label photo when given). */
-export function useCreateLabelFood() {
+export function useCreatePackFood() {
   const queryClient = useQueryClient();
   return useMutation({
-    mutationFn: ({ values, photo }: { values: CreateLabelFoodValues; photo?: LabelPhotoFile | null }) => {
+    mutationFn: ({ values, photo }: { values: CreatePackFoodValues; photo?: PackPhotoFile | null }) => {
       if (!photo) return apiFetch<{ food: Food }>('/foods', { method: 'POST', body: values });
       const form = new FormData();
       form.append('data', JSON.stringify(values));
@@ -70,10 +70,10 @@ export function useCreateLabelFood() {
 }
 
 /** Saves new values for one of your pack foods (JSON; the photo stays). Recipes count them from now on. */
-export function useUpdateLabelFood(id: number) {
+export function useUpdatePackFood(id: number) {
   const queryClient = useQueryClient();
   return useMutation({
-    mutationFn: (values: CreateLabelFoodValues) => apiFetch<{ food: Food }>(`/foods/${id}`, { method: 'PUT', body: values }),
+    mutationFn: (values: CreatePackFoodValues) => apiFetch<{ food: Food }>(`/foods/${id}`, { method: 'PUT', body: values }),
     onSuccess: ({ food }) => {
       queryClient.setQueryData(foodKeys.detail(food.id), food);
       void queryClient.invalidateQueries({ queryKey: foodKeys.lists() });
@@ -83,7 +83,7 @@ export function useUpdateLabelFood(id: number) {
 }
 
 /** Deletes one of your pack foods; a 409 names the recipes that still use it (`fieldErrors.recipes`). */
-export function useDeleteLabelFood() {
+export function useDeletePackFood() {
   const queryClient = useQueryClient();
   return useMutation({
     mutationFn: (id: number) => apiFetch<void>(`/foods/${id}`, { method: 'DELETE' }),

@@ -24,7 +24,7 @@ export function useProfileSettings(profileId: number | undefined) {
   return useQuery({ ...settingsQueryOptions(profileId ?? 0), enabled: !!profileId });
 }
 
-/** The profile's day kinds with their blocks. */
+/** The profile's day kinds with their times of day. */
 export function useDayKinds(profileId: number | undefined) {
   return useQuery({ ...dayKindsQueryOptions(profileId ?? 0), enabled: !!profileId });
 }

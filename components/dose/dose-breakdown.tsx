@@ -70,7 +70,7 @@ export function DoseBreakdownView({ result }: { result: DoseSuggestion }) {
   const g = (mmol: number) => formatGlucose(mmol, unit);
   const cf = glucoseFromMmol(b.correctionFactorMmol, unit);
   const cfText = unit === 'mmol_l' ? `${cf.toFixed(1)} mmol/L` : `${Math.round(cf)} mg/dL`;
-  const blockText = `${minutesToTime(result.block.startMinute)}–${minutesToTime(result.block.endMinute)}`;
+  const timeOfDayText = `${minutesToTime(result.timeOfDay.startMinute)}–${minutesToTime(result.timeOfDay.endMinute)}`;
   const correction =
     b.correctionReason === 'above_range' || b.correctionReason === 'below_range_negative'
       ? { detail: `(${g(b.glucoseMmol!)} − ${g(b.correctionTargetMmol)}) ÷ ${cfText} per unit`, amount: `${b.correctionUnits >= 0 ? '+' : '−'} ${unitsText(Math.abs(b.correctionUnits))}` }
@@ -88,7 +88,7 @@ export function DoseBreakdownView({ result }: { result: DoseSuggestion }) {
       <DoseWarnings warnings={result.warnings} />
       <Card aria-label="Suggested dose">
         <Text variant="label" color="textMuted">
-          Suggested dose · {result.dayKind.name}, {blockText}
+          Suggested dose · {result.dayKind.name}, {timeOfDayText}
         </Text>
         <Text variant="number" aria-label={formatDoseUnits(b.doseUnits)}>
           {formatDoseUnits(b.doseUnits)}
@@ -104,7 +104,7 @@ export function DoseBreakdownView({ result }: { result: DoseSuggestion }) {
         <View role="list">
           <Line
             label="Meal"
-            detail={`${formatCarb(b.carbsGrams)} ÷ ${b.carbRatio} g per unit (ratio for ${result.dayKind.name}, ${blockText})`}
+            detail={`${formatCarb(b.carbsGrams)} ÷ ${b.carbRatio} g per unit (ratio for ${result.dayKind.name}, ${timeOfDayText})`}
             amount={unitsText(b.mealUnits)}
           />
           {b.exercisePercent > 0 ? (

@@ -36,12 +36,12 @@ export function fibreNotMeasured(food: Pick<FoodSummary, 'per100g'>, basis: Carb
 /** Short source name ("IFCT 2017", "USDA SR28", "Pack food"). */
 export function sourceShort(food: Pick<FoodSummary, 'source'>): string {
   if (food.source === 'ifct2017') return 'IFCT 2017';
-  if (food.source === 'label') return 'Pack food';
+  if (food.source === 'pack') return 'Pack food';
   return FOOD_SOURCE_LABELS[food.source];
 }
 
 /** The one-line caption under a food's name in search results: its group ("Pack food" for yours); the source is on the food's page. */
 export function rowCaption(food: Pick<FoodSummary, 'source' | 'group'>): string {
-  if (food.source === 'label') return 'Pack food';
+  if (food.source === 'pack') return 'Pack food';
   return food.group ?? sourceShort(food);
 }

@@ -17,7 +17,7 @@ export function FoodDetailScreen({ id }: { id: number }) {
   const [editing, setEditing] = useState(false);
   if (food.isPending) return <LoadingState />;
   if (food.isError) return <ErrorState error={food.error} onRetry={() => void food.refetch()} />;
-  const mine = food.data.source === 'label' && me.data != null && food.data.ownerUserId === me.data.user.id;
+  const mine = food.data.source === 'pack' && me.data != null && food.data.ownerUserId === me.data.user.id;
   return (
     <Screen
       title={editing ? `Edit ${food.data.name}` : food.data.name}

@@ -106,7 +106,7 @@ export function FoodDetail({ food, basis, unit }: { food: Food; basis: CarbBasis
         <Text variant="heading">Source</Text>
         <Text>
           {FOOD_SOURCE_LABELS[food.source]}
-          {food.source !== 'label' ? `, food code ${food.sourceCode}` : ''}
+          {food.source !== 'pack' ? `, food code ${food.sourceCode}` : ''}
           {food.ndbNumber && food.source === 'usda_fdc' ? ` (NDB ${food.ndbNumber})` : ''}
         </Text>
         {food.group ? <Text color="textMuted">Group: {food.group}</Text> : null}

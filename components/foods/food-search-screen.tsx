@@ -23,7 +23,7 @@ export function FoodSearchScreen() {
   const onPick = (food: Food) => (isWide ? setChosen(food) : router.push(`/foods/${food.id}`));
   const addLabel = (
     <Link href="/foods/new" asChild>
-      <Button variant="secondary" label="Add a label food" />
+      <Button variant="secondary" label="Add a pack food" />
     </Link>
   );
   const credit = (

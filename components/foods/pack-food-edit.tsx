@@ -3,27 +3,27 @@ import { useState } from 'react';
 import { StyleSheet, View } from 'react-native';
 import type { Food } from '../../shared/schemas/food';
 import { ApiError } from '../api/client';
-import { useDeleteLabelFood, useUpdateLabelFood } from '../api/foods';
+import { useDeletePackFood, useUpdatePackFood } from '../api/foods';
 import { Button } from '../ui/button';
 import { Callout } from '../ui/callout';
 import { Card } from '../ui/card';
 import { Text } from '../ui/text';
-import { LabelFoodForm } from './label-food-form';
-import { labelFoodValuesOf } from './label-food-form-values';
+import { PackFoodForm } from './pack-food-form';
+import { packFoodValuesOf } from './pack-food-form-values';
 import { usePackFoodShareOptions } from './pack-food-share';
 
 /** Edits one of your pack foods in place; recipes using it count the new values from now on, cooked batches keep theirs. */
 export function EditPackFood({ food, onDone }: { food: Food; onDone: () => void }) {
   const { shareOptions } = usePackFoodShareOptions();
-  const update = useUpdateLabelFood(food.id);
+  const update = useUpdatePackFood(food.id);
   return (
     <View style={styles.wrap}>
       <Callout tone="info" title="What an edit changes">
         Recipes that use this pack food count the new values from now on. Batches you have already cooked keep the values
         they were cooked with.
       </Callout>
-      <LabelFoodForm
-        defaultValues={labelFoodValuesOf(food)}
+      <PackFoodForm
+        defaultValues={packFoodValuesOf(food)}
         shareOptions={shareOptions}
         withPhoto={false}
         submitLabel="Save pack food"
@@ -38,7 +38,7 @@ export function EditPackFood({ food, onDone }: { food: Food; onDone: () => void 
 
 /** Deletes one of your pack foods after a second press; while your recipes use it, says which. */
 export function DeletePackFood({ food }: { food: Food }) {
-  const remove = useDeleteLabelFood();
+  const remove = useDeletePackFood();
   const [sure, setSure] = useState(false);
   const err = remove.error;
   const usedIn = err instanceof ApiError && err.status === 409 ? (err.fieldErrors?.recipes ?? []) : [];

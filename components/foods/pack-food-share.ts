@@ -1,5 +1,5 @@
 import { useMe } from '../api/auth';
-import type { ShareOption } from './label-food-form';
+import type { ShareOption } from './pack-food-form';
 
 /** Who a pack food can be shared with: only me, or the care team of a profile the person owns or cares for. */
 export function usePackFoodShareOptions(): { me: ReturnType<typeof useMe>; shareOptions: ShareOption[] } {

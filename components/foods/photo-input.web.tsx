@@ -1,11 +1,11 @@
 import { useRef } from 'react';
 import { StyleSheet, View } from 'react-native';
-import type { LabelPhotoFile } from '../api/foods';
+import type { PackPhotoFile } from '../api/foods';
 import { Button } from '../ui/button';
 import { Text } from '../ui/text';
 
 /** Chooses one image file (camera on phones that offer it). */
-export function PhotoInput({ value, onChange }: { value: LabelPhotoFile | null; onChange: (file: LabelPhotoFile | null) => void }) {
+export function PhotoInput({ value, onChange }: { value: PackPhotoFile | null; onChange: (file: PackPhotoFile | null) => void }) {
   const input = useRef<HTMLInputElement | null>(null);
   return (
     <View style={styles.row}>

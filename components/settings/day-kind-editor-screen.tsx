@@ -13,14 +13,14 @@ import { DayKindForm } from './day-kind-form';
 
 function defaults(kind: DayKind | undefined, glucoseUnit: DayKind['glucoseUnit'], first: boolean): DayKindFormValues {
   if (!kind) {
-    return { name: '', isDefault: first, longActingUnits: '', glucoseUnit, blocks: [{ from: '00:00', to: '24:00', carbRatio: '', correctionFactor: '' }] };
+    return { name: '', isDefault: first, longActingUnits: '', glucoseUnit, timesOfDay: [{ from: '00:00', to: '24:00', carbRatio: '', correctionFactor: '' }] };
   }
   return {
     name: kind.name,
     isDefault: kind.isDefault,
     longActingUnits: kind.longActingUnits == null ? '' : String(kind.longActingUnits),
     glucoseUnit,
-    blocks: kind.blocks.map((b) => ({ from: b.from, to: b.to, carbRatio: String(b.carbRatio), correctionFactor: String(b.correctionFactor) })),
+    timesOfDay: kind.timesOfDay.map((b) => ({ from: b.from, to: b.to, carbRatio: String(b.carbRatio), correctionFactor: String(b.correctionFactor) })),
   };
 }
 
@@ -38,12 +38,12 @@ export function DayKindEditorScreen({ id }: { id: string }) {
   const kind = dayKindId ? kinds.data.find((k) => k.id === dayKindId) : undefined;
   if (dayKindId && !kind) return <ErrorState error={new ApiError(404, 'not_found', 'That day kind was not found.')} />;
   const values = defaults(kind, profile.glucoseUnit, kinds.data.length === 0);
-  const fields = (blockCount: number): FieldPath<DayKindFormValues>[] => [
+  const fields = (timeOfDayCount: number): FieldPath<DayKindFormValues>[] => [
     'name',
     'isDefault',
     'longActingUnits',
-    ...Array.from({ length: blockCount }).flatMap((_, i) =>
-      ['from', 'to', 'carbRatio', 'correctionFactor'].map((f) => `blocks.${i}.${f}` as FieldPath<DayKindFormValues>),
+    ...Array.from({ length: timeOfDayCount }).flatMap((_, i) =>
+      ['from', 'to', 'carbRatio', 'correctionFactor'].map((f) => `timesOfDay.${i}.${f}` as FieldPath<DayKindFormValues>),
     ),
   ];
   return (
@@ -58,7 +58,7 @@ export function DayKindEditorScreen({ id }: { id: string }) {
           setFormError(undefined);
           save.mutate(input, {
             onSuccess: () => leaveTo('/settings/day-kinds'),
-            onError: (error) => setFormError(applyServerErrors(error, form.setError, fields(input.blocks.length))),
+            onError: (error) => setFormError(applyServerErrors(error, form.setError, fields(input.timesOfDay.length))),
           });
         }}
       />

@@ -27,12 +27,12 @@ export function DayKindForm({
   submitLabel: string;
 }) {
   const form = useForm<DayKindFormValues, unknown, DayKindInput>({ resolver: zodResolver(dayKindInputSchema), defaultValues });
-  const blocks = useFieldArray({ control: form.control, name: 'blocks' });
+  const timesOfDay = useFieldArray({ control: form.control, name: 'timesOfDay' });
   const { isWide } = useLayout();
   const t = useTheme();
   const unit = defaultValues.glucoseUnit === 'mmol_l' ? 'mmol/L' : 'mg/dL';
   const submit = form.handleSubmit((values) => onSubmit(values, form));
-  const blocksError = form.formState.errors.blocks?.root?.message ?? form.formState.errors.blocks?.message;
+  const timesOfDayError = form.formState.errors.timesOfDay?.root?.message ?? form.formState.errors.timesOfDay?.message;
 
   return (
     <View style={styles.stack}>
@@ -57,31 +57,31 @@ export function DayKindForm({
       <Card>
         <Text variant="heading">Times of day</Text>
         <Text color="textMuted">
-          The blocks must cover the whole day, from 00:00 to 24:00, in order, without gaps or overlaps. Ratio: grams of
+          The times of day must cover the whole day, from 00:00 to 24:00, in order, without gaps or overlaps. Ratio: grams of
           carbohydrate per unit. Correction factor: how far 1 unit lowers glucose, in {unit}.
         </Text>
-        {blocksError ? (
+        {timesOfDayError ? (
           <Text color="danger" role="alert">
-            {blocksError}
+            {timesOfDayError}
           </Text>
         ) : null}
-        {blocks.fields.map((f, i) => (
-          <View key={f.id} style={[styles.block, { borderColor: t.colors.border }, isWide && styles.blockWide]} aria-label={`Time of day ${i + 1}`}>
+        {timesOfDay.fields.map((f, i) => (
+          <View key={f.id} style={[styles.timeOfDay, { borderColor: t.colors.border }, isWide && styles.timeOfDayWide]} aria-label={`Time of day ${i + 1}`}>
             {isWide ? null : <Text weight="bold">Time of day {i + 1}</Text>}
             <View style={[styles.fields, isWide && styles.fieldsWide]}>
               <View style={styles.field}>
-                <FormTextField control={form.control} name={`blocks.${i}.from`} label={`Time of day ${i + 1} from`} placeholder="00:00" />
+                <FormTextField control={form.control} name={`timesOfDay.${i}.from`} label={`Time of day ${i + 1} from`} placeholder="00:00" />
               </View>
               <View style={styles.field}>
-                <FormTextField control={form.control} name={`blocks.${i}.to`} label={`Time of day ${i + 1} to`} placeholder="24:00" />
+                <FormTextField control={form.control} name={`timesOfDay.${i}.to`} label={`Time of day ${i + 1} to`} placeholder="24:00" />
               </View>
               <View style={styles.field}>
-                <FormTextField control={form.control} name={`blocks.${i}.carbRatio`} label={`Time of day ${i + 1} ratio`} unit="g per unit" inputMode="decimal" style={styles.input} />
+                <FormTextField control={form.control} name={`timesOfDay.${i}.carbRatio`} label={`Time of day ${i + 1} ratio`} unit="g per unit" inputMode="decimal" style={styles.input} />
               </View>
               <View style={styles.field}>
                 <FormTextField
                   control={form.control}
-                  name={`blocks.${i}.correctionFactor`}
+                  name={`timesOfDay.${i}.correctionFactor`}
                   label={`Time of day ${i + 1} correction factor`}
                   unit={`${unit} per unit`}
                   inputMode="decimal"
@@ -89,7 +89,7 @@ export function DayKindForm({
                 />
               </View>
             </View>
-            {blocks.fields.length > 1 ? <Button variant="quiet" label={`Remove time of day ${i + 1}`} onPress={() => blocks.remove(i)} /> : null}
+            {timesOfDay.fields.length > 1 ? <Button variant="quiet" label={`Remove time of day ${i + 1}`} onPress={() => timesOfDay.remove(i)} /> : null}
           </View>
         ))}
         <View style={styles.row}>
@@ -97,8 +97,8 @@ export function DayKindForm({
             variant="secondary"
             label="Add a time of day"
             onPress={() => {
-              const last = form.getValues(`blocks.${blocks.fields.length - 1}`);
-              blocks.append({ from: last && last.to !== '24:00' ? last.to : '', to: '24:00', carbRatio: '', correctionFactor: '' });
+              const last = form.getValues(`timesOfDay.${timesOfDay.fields.length - 1}`);
+              timesOfDay.append({ from: last && last.to !== '24:00' ? last.to : '', to: '24:00', carbRatio: '', correctionFactor: '' });
             }}
           />
         </View>
@@ -110,8 +110,8 @@ export function DayKindForm({
 
 const styles = StyleSheet.create({
   stack: { gap: 16 },
-  block: { borderTopWidth: 1, paddingTop: 12, gap: 8 },
-  blockWide: { flexDirection: 'row', alignItems: 'flex-end', gap: 12 },
+  timeOfDay: { borderTopWidth: 1, paddingTop: 12, gap: 8 },
+  timeOfDayWide: { flexDirection: 'row', alignItems: 'flex-end', gap: 12 },
   fields: { gap: 10 },
   fieldsWide: { flexDirection: 'row', flex: 1, gap: 12 },
   field: { flex: 1, minWidth: 120 },

@@ -13,7 +13,7 @@ import { Text } from '../ui/text';
 const unitWord = (u: DayKind['glucoseUnit']) => (u === 'mmol_l' ? 'mmol/L' : 'mg/dL');
 const cf = (k: DayKind, v: number) => (k.glucoseUnit === 'mmol_l' ? v.toFixed(1) : String(Math.round(v)));
 
-function BlocksTable({ kind }: { kind: DayKind }) {
+function TimesOfDayTable({ kind }: { kind: DayKind }) {
   const t = useTheme();
   const cell = [styles.cell, { borderColor: t.colors.border }];
   return (
@@ -27,7 +27,7 @@ function BlocksTable({ kind }: { kind: DayKind }) {
           </View>
         ))}
       </View>
-      {kind.blocks.map((b) => (
+      {kind.timesOfDay.map((b) => (
         <View key={b.from} role="row" style={styles.row}>
           <View role="cell" style={cell}>
             <Text>
@@ -48,10 +48,10 @@ function BlocksTable({ kind }: { kind: DayKind }) {
   );
 }
 
-function BlocksList({ kind }: { kind: DayKind }) {
+function TimesOfDayList({ kind }: { kind: DayKind }) {
   return (
     <View style={styles.list}>
-      {kind.blocks.map((b) => (
+      {kind.timesOfDay.map((b) => (
         <View key={b.from} style={styles.item}>
           <Text weight="bold">
             {b.from}–{b.to}
@@ -100,7 +100,7 @@ export function DayKindsScreen() {
               Planned long-acting dose:{' '}
               {k.longActingUnits == null ? 'not recorded' : `${k.longActingUnits} units (as prescribed; recorded, never suggested)`}
             </Text>
-            {isWide ? <BlocksTable kind={k} /> : <BlocksList kind={k} />}
+            {isWide ? <TimesOfDayTable kind={k} /> : <TimesOfDayList kind={k} />}
             <View style={styles.actions}>
               <Link href={{ pathname: '/settings/day-kinds/[id]', params: { id: String(k.id) } }} asChild>
                 <Button variant="secondary" label={`Edit ${k.name}`} />

@@ -36,14 +36,14 @@ const WORDS: Record<string, string> = {
   min60: 'about 60 min (%)',
 };
 
-/** "blocks.0.carbRatio" → "time of day 1 ratio (g per unit)". */
+/** "timesOfDay.0.carbRatio" → "time of day 1 ratio (g per unit)". */
 export function fieldWords(path: string): string {
   return path
     .split('.')
     .filter((p) => p !== 'settings')
-    .map((p, i, all) => (/^\d+$/.test(p) && all[i - 1] === 'blocks' ? String(Number(p) + 1) : (WORDS[p] ?? p)))
+    .map((p, i, all) => (/^\d+$/.test(p) && all[i - 1] === 'timesOfDay' ? String(Number(p) + 1) : (WORDS[p] ?? p)))
     .join(' ')
-    .replace(/^blocks /, 'time of day ');
+    .replace(/^timesOfDay /, 'time of day ');
 }
 
 const VALUE_WORDS: Record<string, string> = {

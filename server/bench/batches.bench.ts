@@ -12,14 +12,14 @@ const FOODS = [
   { name: 'Bench seeds', carbTotal: 42.1, fibre: 34.4 },
 ];
 
-/** Batch endpoints: saving a weighed 8-jar split, the batch page, the inventory, the label sheet (8 QR codes), a portion. */
+/** Batch endpoints: saving a batch portioned out into 8 weighed portions, the batch page, the inventory, the label sheet (8 QR codes), a portion. */
 export const scenarios: BenchModule['scenarios'] = async (ctx: BenchContext) => {
   const auth = { Authorization: `Bearer ${ctx.member.token}` };
   const foods = await createFoods(FOODS.map((f) => withAvailable(f)));
   const recipe = await request(ctx.baseUrl)
     .post('/api/recipes')
     .set(auth)
-    .send({ title: 'Bench jars', defaultPortions: 8, ingredients: foods.map((f, i) => ({ foodId: f.id, grams: 100 + i * 40 })) });
+    .send({ title: 'Bench oats', defaultPortions: 8, ingredients: foods.map((f, i) => ({ foodId: f.id, grams: 100 + i * 40 })) });
   if (recipe.status !== 201) throw new Error(`bench recipe failed: ${JSON.stringify(recipe.body)}`);
   const body = {
     recipeId: recipe.body.id,
@@ -38,7 +38,7 @@ export const scenarios: BenchModule['scenarios'] = async (ctx: BenchContext) => 
   }
   const out: HttpScenario[] = [
     { kind: 'http', name: 'GET /api/recipes/:id (recipe nutrition, 6 ingredients)', path: `/api/recipes/${recipe.body.id}` },
-    { kind: 'http', name: 'POST batches (weighed split into 8 jars)', method: 'POST', path: base, body },
+    { kind: 'http', name: 'POST batches (portioned out into 8 portions)', method: 'POST', path: base, body },
     { kind: 'http', name: 'GET batches/:id (batch page, 8 portions)', path: `${base}/${last!.id}` },
     { kind: 'http', name: 'GET batches (inventory, 20+ batches)', path: `${base}?include=available` },
     { kind: 'http', name: 'GET batches/:id/labels (8 QR codes)', path: `${base}/${last!.id}/labels` },

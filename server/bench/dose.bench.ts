@@ -21,7 +21,7 @@ export const scenarios: BenchModule['scenarios'] = async (ctx) => {
   });
   await call(ctx, 'POST', `${base}/day-kinds`, {
     name: 'Rest', isDefault: true, longActingUnits: null, glucoseUnit: 'mmol_l',
-    blocks: [
+    timesOfDay: [
       { from: '00:00', to: '11:00', carbRatio: 8, correctionFactor: 2 },
       { from: '11:00', to: '24:00', carbRatio: 10, correctionFactor: 2.5 },
     ],
@@ -45,7 +45,7 @@ export const scenarios: BenchModule['scenarios'] = async (ctx) => {
           correctionTargetMmol: 6, hypoThresholdMmol: 3.9, veryHighMmol: 15, allowNegativeCorrection: false,
           iobConvention: 'correction_only' as const, exerciseReductions: DEFAULT_EXERCISE_REDUCTIONS,
         };
-        const kind = { id: 1, name: 'Rest', blocks: [{ startMinute: 0, endMinute: 1440, carbRatio: 10, correctionFactorMmol: 2 }] };
+        const kind = { id: 1, name: 'Rest', timesOfDay: [{ startMinute: 0, endMinute: 1440, carbRatio: 10, correctionFactorMmol: 2 }] };
         const t = Date.now();
         const start = process.hrtime.bigint();
         for (let i = 0; i < 100_000; i++) {

@@ -1,15 +1,15 @@
 import { DataTypes, Model } from 'sequelize';
 import type { CreationOptional, InferAttributes, InferCreationAttributes, NonAttribute, Sequelize } from 'sequelize';
-import type { RatioBlockModel } from './ratio-block.model';
+import type { TimeOfDayModel } from './time-of-day.model';
 
-/** A named kind of day on a profile ("Rest", "Long ride"), holding its ratio blocks. */
+/** A named kind of day on a profile ("Rest", "Long ride"), holding its times of day. */
 export class DayKindModel extends Model<InferAttributes<DayKindModel>, InferCreationAttributes<DayKindModel>> {
   declare id: CreationOptional<number>;
   declare profileId: number;
   declare name: string;
   declare isDefault: boolean;
   declare longActingUnits: number | null;
-  declare blocks?: NonAttribute<RatioBlockModel[]>;
+  declare timesOfDay?: NonAttribute<TimeOfDayModel[]>;
   declare createdAt: CreationOptional<Date>;
   declare updatedAt: CreationOptional<Date>;
 

@@ -3,7 +3,7 @@ import type { CreationOptional, InferAttributes, InferCreationAttributes, NonAtt
 import { searchKeys } from '../search/search-text';
 import type { FoodMeasureModel } from './food-measure.model';
 
-export type FoodSource = 'ifct2017' | 'usda_sr28' | 'usda_fdc' | 'label';
+export type FoodSource = 'ifct2017' | 'usda_sr28' | 'usda_fdc' | 'pack';
 
 /** Source details kept beside the nutrients: e.g. IFCT's measured starch + sugars, USDA's NDB number, a label's brand. */
 export type FoodExtra = {
@@ -61,7 +61,7 @@ export class FoodModel extends Model<InferAttributes<FoodModel>, InferCreationAt
     FoodModel.init(
       {
         id: { type: DataTypes.INTEGER, autoIncrement: true, primaryKey: true },
-        source: { type: DataTypes.ENUM('ifct2017', 'usda_sr28', 'usda_fdc', 'label'), allowNull: false },
+        source: { type: DataTypes.ENUM('ifct2017', 'usda_sr28', 'usda_fdc', 'pack'), allowNull: false },
         sourceCode: { type: DataTypes.TEXT, allowNull: false },
         name: { type: DataTypes.TEXT, allowNull: false },
         foodGroup: { type: DataTypes.TEXT, allowNull: true },

@@ -17,7 +17,7 @@ import { UserModel } from './user.model';
 import { DayKindDayModel } from './day-kind-day.model';
 import { DayKindModel } from './day-kind.model';
 import { ProfileSettingsModel } from './profile-settings.model';
-import { RatioBlockModel } from './ratio-block.model';
+import { TimeOfDayModel } from './time-of-day.model';
 import { SettingsChangeModel } from './settings-change.model';
 import { LogEntryChangeModel, LogEntryModel } from './log-entry.model';
 import { CapturedMailModel, MailOutboxModel } from './mail-outbox.model';
@@ -27,7 +27,7 @@ import { RecipeShareOfferModel } from './recipe-share-offer.model';
 
 export { DatasetImportModel, FoodMeasureModel, FoodModel, FoodSynonymModel };
 export { ProfileAccessModel, ProfileModel, RevokedTokenModel, UserModel };
-export { DayKindDayModel, DayKindModel, ProfileSettingsModel, RatioBlockModel, SettingsChangeModel };
+export { DayKindDayModel, DayKindModel, ProfileSettingsModel, SettingsChangeModel, TimeOfDayModel };
 export { BatchIngredientModel, BatchModel, ContainerModel, PortionModel };
 export { RecipeIngredientModel, RecipeModel, RecipeShareModel };
 export { LogEntryChangeModel, LogEntryModel };
@@ -43,7 +43,7 @@ export function initModels(sequelize: Sequelize): void {
   ProfileSettingsModel.initModel(sequelize);
   DayKindModel.initModel(sequelize);
   DayKindDayModel.initModel(sequelize);
-  RatioBlockModel.initModel(sequelize);
+  TimeOfDayModel.initModel(sequelize);
   SettingsChangeModel.initModel(sequelize);
   ContainerModel.initModel(sequelize);
   BatchModel.initModel(sequelize);
@@ -74,7 +74,7 @@ export function initModels(sequelize: Sequelize): void {
   AccessEventModel.belongsTo(UserModel, { as: 'subject', foreignKey: 'subjectUserId' });
   RecipeShareOfferModel.belongsTo(RecipeModel, { as: 'recipe', foreignKey: 'recipeId' });
   RecipeShareOfferModel.belongsTo(UserModel, { as: 'sender', foreignKey: 'senderUserId' });
-  DayKindModel.hasMany(RatioBlockModel, { as: 'blocks', foreignKey: 'dayKindId' });
+  DayKindModel.hasMany(TimeOfDayModel, { as: 'timesOfDay', foreignKey: 'dayKindId' });
   DayKindDayModel.belongsTo(DayKindModel, { as: 'dayKind', foreignKey: 'dayKindId' });
   SettingsChangeModel.belongsTo(UserModel, { as: 'user', foreignKey: 'userId' });
   RecipeModel.belongsTo(UserModel, { as: 'owner', foreignKey: 'ownerUserId' });

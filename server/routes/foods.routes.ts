@@ -2,18 +2,18 @@ import type { NextFunction, Request, Response } from 'express';
 import multer from 'multer';
 import { z } from 'zod';
 import { idParamSchema } from '../../shared/schemas/common';
-import { createLabelFoodInputSchema, foodSchema, foodSearchPageSchema, foodSearchQuerySchema } from '../../shared/schemas/food';
+import { createPackFoodInputSchema, foodSchema, foodSearchPageSchema, foodSearchQuerySchema } from '../../shared/schemas/food';
 import { AppError } from '../errors';
 import { searchFoods } from '../services/food-search.service';
 import { getFood, getFoodPhotoPath } from '../services/foods.service';
-import { createLabelFood, deleteLabelFood, LABEL_PHOTO_MAX_BYTES, updateLabelFood } from '../services/label-foods.service';
+import { createPackFood, deletePackFood, PACK_PHOTO_MAX_BYTES, updatePackFood } from '../services/pack-foods.service';
 import { signedPhotoUrl } from '../services/photos.service';
 import { access, defineRoute, type AnyRoute, type AppDeps } from './registry';
 
-const upload = multer({ storage: multer.memoryStorage(), limits: { fileSize: LABEL_PHOTO_MAX_BYTES, files: 1 } });
+const upload = multer({ storage: multer.memoryStorage(), limits: { fileSize: PACK_PHOTO_MAX_BYTES, files: 1 } });
 
 /** Accepts the label photo as multipart (with the form values as JSON in `data`) or a plain JSON body. */
-function labelUpload(req: Request, res: Response, next: NextFunction) {
+function packPhotoUpload(req: Request, res: Response, next: NextFunction) {
   if (!req.is('multipart/form-data')) return next();
   upload.single('photo')(req, res, (err: unknown) => {
     if (err instanceof multer.MulterError) {
@@ -32,7 +32,7 @@ function labelUpload(req: Request, res: Response, next: NextFunction) {
 
 const foodBody = z.object({ food: foodSchema });
 
-/** Food search, food details and label foods. */
+/** Food search, food details and pack foods. */
 export function foodsRoutes(deps: AppDeps): AnyRoute[] {
   return [
     defineRoute({
@@ -51,24 +51,24 @@ export function foodsRoutes(deps: AppDeps): AnyRoute[] {
       handler: async ({ params, user }, _req, res) => res.redirect(302, signedPhotoUrl(await getFoodPhotoPath(params.id, user.id))),
     }),
     defineRoute({
-      method: 'post', path: '/foods', access: access.signedIn, before: [labelUpload], body: createLabelFoodInputSchema, bodyFormat: 'multipart',
+      method: 'post', path: '/foods', access: access.signedIn, before: [packPhotoUpload], body: createPackFoodInputSchema, bodyFormat: 'multipart',
       status: 201, response: foodBody,
-      summary: 'Add a label food (JSON, or multipart with `data` = JSON and `photo` = JPEG/PNG/WebP ≤ 8 MB, re-encoded without EXIF).',
+      summary: 'Add a pack food (JSON, or multipart with `data` = JSON and `photo` = JPEG/PNG/WebP ≤ 8 MB, re-encoded without EXIF).',
       handler: async ({ body, user }, req, res) => {
         const photo = req.file ? { buffer: req.file.buffer, storage: deps.storage, photos: deps.photos } : undefined;
-        res.status(201).json({ food: await createLabelFood(user.id, body, photo) });
+        res.status(201).json({ food: await createPackFood(user.id, body, photo) });
       },
     }),
     defineRoute({
-      method: 'put', path: '/foods/:id', access: access.signedIn, params: idParamSchema, body: createLabelFoodInputSchema, response: foodBody,
+      method: 'put', path: '/foods/:id', access: access.signedIn, params: idParamSchema, body: createPackFoodInputSchema, response: foodBody,
       summary: 'Edit your pack food (same body as POST, JSON; the photo stays). Recipes count the new values from now on; batches keep theirs.',
-      handler: async ({ params, body, user }, _req, res) => res.json({ food: await updateLabelFood(params.id, user.id, body) }),
+      handler: async ({ params, body, user }, _req, res) => res.json({ food: await updatePackFood(params.id, user.id, body) }),
     }),
     defineRoute({
       method: 'delete', path: '/foods/:id', access: access.signedIn, params: idParamSchema, status: 204,
       summary: 'Delete your pack food (409 while your recipes use it; `fieldErrors.recipes` lists their titles).',
       handler: async ({ params, user }, _req, res) => {
-        await deleteLabelFood(params.id, user.id, deps.storage);
+        await deletePackFood(params.id, user.id, deps.storage);
         res.status(204).end();
       },
     }),

@@ -13,7 +13,7 @@ import { getSettings, updateSettings } from '../services/profile-settings.servic
 import { listChanges } from '../services/settings-history.service';
 import { access, defineRoute, type AnyRoute } from './registry';
 
-/** Profile dose settings, day kinds with their ratio blocks, and the change history. */
+/** Profile dose settings, day kinds with their times of day, and the change history. */
 export function profilesRoutes(): AnyRoute[] {
   const read = access.profile('profile.read');
   const settings = access.profile('settings.write');
@@ -35,12 +35,12 @@ export function profilesRoutes(): AnyRoute[] {
       handler: async ({ params: p }, _req, res) => res.json({ changes: await listChanges(p.profileId) }),
     }),
     defineRoute({
-      method: 'get', path: `${base}/day-kinds`, access: read, params, summary: 'Day kinds with their time blocks, default first.',
+      method: 'get', path: `${base}/day-kinds`, access: read, params, summary: 'Day kinds with their times of day, default first.',
       handler: async ({ params: p }, _req, res) => res.json({ dayKinds: await listDayKinds(p.profileId) }),
     }),
     defineRoute({
       method: 'post', path: `${base}/day-kinds`, access: ratios, params, body: dayKindInputSchema, status: 201,
-      summary: 'Create a day kind: blocks cover 00:00–24:00 without gaps or overlaps; the first becomes the default.',
+      summary: 'Create a day kind: times of day cover 00:00–24:00 without gaps or overlaps; the first becomes the default.',
       handler: async ({ params: p, user, body }, _req, res) => res.status(201).json(await createDayKind(p.profileId, user.id, body)),
     }),
     defineRoute({

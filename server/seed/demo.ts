@@ -4,7 +4,7 @@ import path from 'node:path';
 import { Op } from 'sequelize';
 import { z } from 'zod';
 import { createBatchInputSchema } from '../../shared/schemas/batch';
-import { createLabelFoodInputSchema } from '../../shared/schemas/food';
+import { createPackFoodInputSchema } from '../../shared/schemas/food';
 import { dayKindInputSchema, profileSettingsInputSchema } from '../../shared/schemas/profile-settings';
 import { recipeInputSchema } from '../../shared/schemas/recipe';
 import { DEFAULT_EXERCISE_REDUCTIONS } from '../../shared/compute/exercise';
@@ -15,7 +15,7 @@ import type { FoodSource } from '../models/food.model';
 import { signUp } from '../services/auth.service';
 import { createBatch } from '../services/batches.service';
 import { createContainer } from '../services/containers.service';
-import { createLabelFood } from '../services/label-foods.service';
+import { createPackFood } from '../services/pack-foods.service';
 import { createDayKind, listDayKinds } from '../services/day-kinds.service';
 import { getSettings, updateSettings } from '../services/profile-settings.service';
 import { createRecipe } from '../services/recipes.service';
@@ -23,7 +23,7 @@ import { createRecipe } from '../services/recipes.service';
 const ingredientSchema = z.object({
   ifct: z.string().optional(),
   usda: z.string().optional(),
-  label: z.string().optional(),
+  pack: z.string().optional(),
   grams: z.number().positive(),
   note: z.string().optional(),
 });
@@ -34,7 +34,7 @@ const scenarioSchema = z.object({
   profile: z.object({ carbBasis: z.enum(['available', 'total']), carbUnit: z.enum(['g', 'portion10', 'unit12', 'exchange15']) }),
   doseSettings: z.object({ note: z.string() }).passthrough(),
   dayKinds: z.array(z.object({ name: z.string() }).passthrough()),
-  labelFoods: z.array(z.object({ key: z.string() }).passthrough()),
+  packFoods: z.array(z.object({ key: z.string() }).passthrough()),
   recipes: z.array(
     z.object({
       key: z.string(),
@@ -61,8 +61,8 @@ const scenarioSchema = z.object({
 });
 type Ingredient = z.infer<typeof ingredientSchema>;
 
-/** The key of an ingredient's food: a USDA SR28 or IFCT 2017 code, or a label food of the scenario. */
-const foodKey = (i: Ingredient) => (i.usda ? `usda_sr28:${i.usda}` : i.ifct ? `ifct2017:${i.ifct}` : `label:${i.label}`);
+/** The key of an ingredient's food: a USDA SR28 or IFCT 2017 code, or a pack food of the scenario (`pack`). */
+const foodKey = (i: Ingredient) => (i.usda ? `usda_sr28:${i.usda}` : i.ifct ? `ifct2017:${i.ifct}` : `pack:${i.pack}`);
 export type DemoScenario = z.infer<typeof scenarioSchema>;
 
 export const DEMO_FILE = path.join(REPO_ROOT, 'data', 'demo', 'household.json');
@@ -76,7 +76,7 @@ export type DemoResult = { skipped?: string; created: string[]; email: string; p
 
 /**
  * Seeds the invented demo household through the services: the member, invented dose settings and two day
- * kinds, two label foods, a Sunday batch of overnight oats from USDA SR28 foods and two dishes from IFCT 2017 (one
+ * kinds, two pack foods, a Sunday batch of overnight oats from USDA SR28 foods and two dishes from IFCT 2017 (one
  * public), saved containers, and two batches in the fridge (the oats and the dal) split into weighed, labelled portions.
  * Idempotent: each part is looked up first and only what is missing is created. The password comes from
  * `password` (DEMO_PASSWORD) or is generated and returned once, when the account is created.
@@ -119,15 +119,15 @@ export async function seedDemo(config: Config, options: { password?: string; tod
     created.push(`day kind ${kind.name}`);
   }
 
-  for (const lf of s.labelFoods) {
-    const input = createLabelFoodInputSchema.parse(Object.fromEntries(Object.entries(lf).filter(([k]) => k !== 'key')));
-    let food = await FoodModel.findOne({ where: { source: 'label', ownerUserId: user.id, name: input.name } });
+  for (const lf of s.packFoods) {
+    const input = createPackFoodInputSchema.parse(Object.fromEntries(Object.entries(lf).filter(([k]) => k !== 'key')));
+    let food = await FoodModel.findOne({ where: { source: 'pack', ownerUserId: user.id, name: input.name } });
     if (!food) {
-      await createLabelFood(user.id, input);
-      food = (await FoodModel.findOne({ where: { source: 'label', ownerUserId: user.id, name: input.name } }))!;
-      created.push(`label food ${input.name}`);
+      await createPackFood(user.id, input);
+      food = (await FoodModel.findOne({ where: { source: 'pack', ownerUserId: user.id, name: input.name } }))!;
+      created.push(`pack food ${input.name}`);
     }
-    foodId.set(`label:${lf.key}`, food.id);
+    foodId.set(`pack:${lf.key}`, food.id);
   }
 
   const recipeIds = new Map<string, number>();

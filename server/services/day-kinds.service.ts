@@ -3,19 +3,19 @@ import { glucoseToMmol } from '../../shared/compute/units';
 import { minutesToTime, timeToMinutes, type DayKind, type DayKindInput } from '../../shared/schemas/profile-settings';
 import type { GlucoseUnit } from '../../shared/schemas/units';
 import { AppError } from '../errors';
-import { DayKindModel, ProfileModel, RatioBlockModel } from '../models';
+import { DayKindModel, ProfileModel, TimeOfDayModel } from '../models';
 import { loadProfile, show } from './profiles.service';
 import { recordChange } from './settings-history.service';
 
 function dayKindToView(kind: DayKindModel, unit: GlucoseUnit): DayKind {
-  const blocks = [...(kind.blocks ?? [])].sort((a, b) => a.startMinute - b.startMinute);
+  const timesOfDay = [...(kind.timesOfDay ?? [])].sort((a, b) => a.startMinute - b.startMinute);
   return {
     id: kind.id,
     name: kind.name,
     isDefault: kind.isDefault,
     longActingUnits: kind.longActingUnits,
     glucoseUnit: unit,
-    blocks: blocks.map((b) => ({
+    timesOfDay: timesOfDay.map((b) => ({
       from: minutesToTime(b.startMinute),
       to: minutesToTime(b.endMinute),
       carbRatio: b.carbRatio,
@@ -25,18 +25,18 @@ function dayKindToView(kind: DayKindModel, unit: GlucoseUnit): DayKind {
   };
 }
 
-/** Loads a day kind's ratio blocks with it. */
-export const withBlocks = { include: [{ model: RatioBlockModel, as: 'blocks' }] };
+/** Loads a day kind's times of day with it. */
+export const withTimesOfDay = { include: [{ model: TimeOfDayModel, as: 'timesOfDay' }] };
 
-/** The profile's day kinds, default first, each with its blocks in the profile's glucose unit. */
+/** The profile's day kinds, default first, each with its times of day in the profile's glucose unit. */
 export async function listDayKinds(profileId: number): Promise<DayKind[]> {
   const profile = await loadProfile(profileId);
-  const kinds = await DayKindModel.findAll({ where: { profileId }, ...withBlocks, order: [['isDefault', 'DESC'], ['name', 'ASC']] });
+  const kinds = await DayKindModel.findAll({ where: { profileId }, ...withTimesOfDay, order: [['isDefault', 'DESC'], ['name', 'ASC']] });
   return kinds.map((k) => dayKindToView(k, profile.glucoseUnit));
 }
 
 async function findDayKind(profileId: number, dayKindId: number, transaction?: Transaction) {
-  const kind = await DayKindModel.findOne({ where: { id: dayKindId, profileId }, ...withBlocks, transaction });
+  const kind = await DayKindModel.findOne({ where: { id: dayKindId, profileId }, ...withTimesOfDay, transaction });
   if (!kind) throw AppError.notFound('day kind');
   return kind;
 }
@@ -49,10 +49,10 @@ async function assertNameFree(profileId: number, name: string, exceptId: number 
   return kinds;
 }
 
-async function writeBlocks(kind: DayKindModel, input: DayKindInput, transaction: Transaction) {
-  await RatioBlockModel.destroy({ where: { dayKindId: kind.id }, transaction });
-  await RatioBlockModel.bulkCreate(
-    input.blocks.map((b) => ({
+async function writeTimesOfDay(kind: DayKindModel, input: DayKindInput, transaction: Transaction) {
+  await TimeOfDayModel.destroy({ where: { dayKindId: kind.id }, transaction });
+  await TimeOfDayModel.bulkCreate(
+    input.timesOfDay.map((b) => ({
       dayKindId: kind.id,
       startMinute: timeToMinutes(b.from),
       endMinute: timeToMinutes(b.to),
@@ -69,7 +69,7 @@ function stripTime(kind: DayKind | null) {
   return rest;
 }
 
-/** Creates a day kind with its blocks; the first day kind of a profile becomes its default. */
+/** Creates a day kind with its times of day; the first day kind of a profile becomes its default. */
 export async function createDayKind(profileId: number, userId: number, input: DayKindInput): Promise<DayKind> {
   return ProfileModel.sequelize!.transaction(async (transaction) => {
     const profile = await loadProfile(profileId, transaction);
@@ -77,14 +77,14 @@ export async function createDayKind(profileId: number, userId: number, input: Da
     const isDefault = input.isDefault || others.length === 0;
     if (isDefault) await DayKindModel.update({ isDefault: false }, { where: { profileId }, transaction });
     const kind = await DayKindModel.create({ profileId, name: input.name, isDefault, longActingUnits: input.longActingUnits }, { transaction });
-    await writeBlocks(kind, input, transaction);
+    await writeTimesOfDay(kind, input, transaction);
     const view = dayKindToView(await findDayKind(profileId, kind.id, transaction), profile.glucoseUnit);
     await recordChange({ profileId, userId, subject: 'day_kind', subjectId: kind.id, subjectName: kind.name, action: 'created' }, null, stripTime(view), transaction);
     return view;
   });
 }
 
-/** Replaces a day kind's name, default flag, long-acting dose and blocks, and records the change. */
+/** Replaces a day kind's name, default flag, long-acting dose and times of day, and records the change. */
 export async function updateDayKind(profileId: number, dayKindId: number, userId: number, input: DayKindInput): Promise<DayKind> {
   return ProfileModel.sequelize!.transaction(async (transaction) => {
     const profile = await loadProfile(profileId, transaction);
@@ -98,7 +98,7 @@ export async function updateDayKind(profileId: number, dayKindId: number, userId
     await kind.update({ name: input.name, isDefault: input.isDefault, longActingUnits: input.longActingUnits }, { transaction });
     kind.changed('updatedAt', true);
     await kind.save({ transaction });
-    await writeBlocks(kind, input, transaction);
+    await writeTimesOfDay(kind, input, transaction);
     const after = dayKindToView(await findDayKind(profileId, kind.id, transaction), profile.glucoseUnit);
     await recordChange({ profileId, userId, subject: 'day_kind', subjectId: kind.id, subjectName: input.name, action: 'updated' }, stripTime(before), stripTime(after), transaction);
     return after;

@@ -1,7 +1,7 @@
 import type { DayKindRatios, DoseSettings } from '../../shared/compute/dose';
 import { AppError } from '../errors';
 import { DayKindModel, ProfileModel, ProfileSettingsModel } from '../models';
-import { withBlocks } from './day-kinds.service';
+import { withTimesOfDay } from './day-kinds.service';
 import { loadProfile } from './profiles.service';
 
 /** The engine's inputs for a profile: settings (mmol/L) and the chosen or default day kind; null parts when not set up. */
@@ -12,7 +12,7 @@ export async function loadDoseContext(
   const profile = await loadProfile(profileId);
   const row = await ProfileSettingsModel.findByPk(profileId);
   const where = dayKindId ? { profileId, id: dayKindId } : { profileId, isDefault: true };
-  const kind = await DayKindModel.findOne({ where, ...withBlocks });
+  const kind = await DayKindModel.findOne({ where, ...withTimesOfDay });
   if (dayKindId && !kind) throw AppError.validation({ dayKindId: ['That day kind is not on this profile.'] });
   const settings: DoseSettings | null = row && {
     penIncrement: row.penIncrement,
@@ -32,7 +32,7 @@ export async function loadDoseContext(
   const dayKind: DayKindRatios | null = kind && {
     id: kind.id,
     name: kind.name,
-    blocks: (kind.blocks ?? []).map((b) => ({
+    timesOfDay: (kind.timesOfDay ?? []).map((b) => ({
       startMinute: b.startMinute,
       endMinute: b.endMinute,
       carbRatio: b.carbRatio,

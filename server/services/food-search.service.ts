@@ -155,7 +155,7 @@ export async function searchFoods(query: FoodSearchQuery, userId: number): Promi
              WHEN f.head_vector @@ to_tsquery('english', unaccent(:tsAny)) THEN 1
              ELSE 2 END,
         CASE WHEN to_tsvector('english', split_part(f.name_key, ' ', 1)) @@ to_tsquery('english', unaccent(:tsAny)) THEN 0 ELSE 1 END,` : ''}
-        CASE WHEN f.source = CAST(:preferred AS enum_foods_source) THEN 0 WHEN f.source = 'label' THEN 1 ELSE 2 END,
+        CASE WHEN f.source = CAST(:preferred AS enum_foods_source) THEN 0 WHEN f.source = 'pack' THEN 1 ELSE 2 END,
         f.rank_penalty,
         ${q ? `ts_rank_cd(f.search_vector, to_tsquery('english', unaccent(:tsAll))) DESC,` : ''}
         length(f.name),

@@ -64,7 +64,7 @@ function visibleWhere(userId: number): WhereOptions<FoodModel> {
 }
 
 /**
- * Foods a user may use in a recipe, keyed by id: every table food, and label foods they own or that are
+ * Foods a user may use in a recipe, keyed by id: every table food, and pack foods they own or that are
  * shared with a profile they have access to. Ids the user may not use (or that do not exist) are absent.
  */
 export async function getUsableFoods(ids: number[], userId: number): Promise<Map<number, Food>> {
@@ -86,7 +86,7 @@ export async function getFood(id: number, userId: number): Promise<Food> {
   return food;
 }
 
-/** The stored photo path of a label food the user may see, or 404. */
+/** The stored photo path of a pack food the user may see, or 404. */
 export async function getFoodPhotoPath(id: number, userId: number): Promise<string> {
   const row = await FoodModel.findOne({ where: { [Op.and]: [{ id }, visibleWhere(userId)] }, attributes: ['photoPath'] });
   if (!row?.photoPath) throw AppError.notFound('photo');

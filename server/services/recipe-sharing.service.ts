@@ -93,7 +93,7 @@ export async function revokeShare(recipeId: number, ownerId: number, personId: n
  */
 async function copyForeignPackFoods(foodIds: number[], userId: number, storage: FileStorage): Promise<Map<number, number>> {
   const foreign = await FoodModel.findAll({
-    where: { id: { [Op.in]: [...new Set(foodIds)] }, source: 'label', ownerUserId: { [Op.ne]: userId } },
+    where: { id: { [Op.in]: [...new Set(foodIds)] }, source: 'pack', ownerUserId: { [Op.ne]: userId } },
     include: [{ model: FoodMeasureModel, as: 'measures' }],
   });
   const out = new Map<number, number>();

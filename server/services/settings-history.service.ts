@@ -24,7 +24,7 @@ function flatten(value: unknown, prefix = '', out: Record<string, unknown> = {})
 const FIELD_ORDER = [
   'name', 'isDefault', 'longActingUnits', 'glucoseUnit', 'carbBasis', 'carbUnit', 'preferredFoodTable', 'penIncrement', 'rounding', 'maxDoseUnits',
   'actionTimeHours', 'activeInsulinModel', 'targetLow', 'targetHigh', 'correctionTarget', 'hypoThreshold', 'veryHigh', 'allowNegativeCorrection',
-  'iobConvention', 'exerciseReductions', 'light', 'moderate', 'hard', 'min30', 'min60', 'blocks', 'from', 'to', 'carbRatio', 'correctionFactor',
+  'iobConvention', 'exerciseReductions', 'light', 'moderate', 'hard', 'min30', 'min60', 'timesOfDay', 'from', 'to', 'carbRatio', 'correctionFactor',
 ];
 function fieldRank(path: string): number[] {
   return path.split('.').map((p) => (/^\d+$/.test(p) ? Number(p) : FIELD_ORDER.indexOf(p) + 1000));
@@ -34,7 +34,7 @@ function compareRanks(a: number[], b: number[]): number {
   return a.length - b.length;
 }
 
-/** Field-by-field differences between two stored values (dot paths, e.g. "blocks.0.carbRatio"), in screen order. */
+/** Field-by-field differences between two stored values (dot paths, e.g. "timesOfDay.0.carbRatio"), in screen order. */
 export function diffValues(oldValue: unknown, newValue: unknown): SettingsChange['changes'] {
   const a = flatten(oldValue);
   const b = flatten(newValue);

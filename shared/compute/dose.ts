@@ -32,16 +32,16 @@ export type DoseSettings = {
   exerciseReductions: ExerciseReductionTable;
 };
 
-/** A time-of-day block, minutes from midnight [startMinute, endMinute); ratio in g per unit. */
-export type RatioBlock = { startMinute: number; endMinute: number; carbRatio: number; correctionFactorMmol: number };
-export type DayKindRatios = { id: number; name: string; blocks: RatioBlock[] };
+/** A time of day, minutes from midnight [startMinute, endMinute); ratio in g per unit. */
+export type TimeOfDay = { startMinute: number; endMinute: number; carbRatio: number; correctionFactorMmol: number };
+export type DayKindRatios = { id: number; name: string; timesOfDay: TimeOfDay[] };
 
 export type DoseInput = {
   /** Carbohydrate in grams, in the profile's basis. */
   carbsGrams: number;
   glucose?: { value: number; unit: GlucoseUnit; takenAt: number } | null;
   mealAt: number;
-  /** Local time of the meal, minutes from midnight (chooses the block). */
+  /** Local time of the meal, minutes from midnight (chooses the time of day). */
   mealMinuteOfDay: number;
   earlierDoses?: EarlierDose[];
   exercise?: PlannedExercise | null;
@@ -90,7 +90,7 @@ export type DoseResult =
   | {
       status: 'ok';
       dayKind: { id: number; name: string };
-      block: { startMinute: number; endMinute: number };
+      timeOfDay: { startMinute: number; endMinute: number };
       breakdown: DoseBreakdown;
       split: { nowUnits: number; laterUnits: number; laterMinutes: number; nowPercent: number } | null;
       fatProteinUnits: number | null;
@@ -118,10 +118,10 @@ export function roundToIncrement(units: number, increment: number, rounding: Rou
   return Math.max(0, n * increment);
 }
 
-/** The block holding a minute of the day (blocks are [start, end)); undefined when none does. */
-export function findBlock(blocks: readonly RatioBlock[], minuteOfDay: number): RatioBlock | undefined {
+/** The time of day holding a minute of the day (times of day are [start, end)); undefined when none does. */
+export function findTimeOfDay(timesOfDay: readonly TimeOfDay[], minuteOfDay: number): TimeOfDay | undefined {
   const m = ((Math.floor(minuteOfDay) % 1440) + 1440) % 1440;
-  return blocks.find((b) => m >= b.startMinute && m < b.endMinute);
+  return timesOfDay.find((b) => m >= b.startMinute && m < b.endMinute);
 }
 
 /** Fat-protein units (Pańkowska 2009): (9 kcal × fat g + 4 kcal × protein g) ÷ 100; null when neither is given. */
@@ -131,13 +131,13 @@ export function fatProteinUnits(fatGrams?: number | null, proteinGrams?: number 
 }
 
 /**
- * Computes a dose suggestion with every part shown. Without settings or a day kind with a block for the
+ * Computes a dose suggestion with every part shown. Without settings or a day kind with a time of day for the
  * meal time it suggests nothing; glucose at or below the hypoglycaemia threshold gives no dose.
  * The result is never negative and never above the maximum dose.
  */
 export function computeDose(settings: DoseSettings | null, dayKind: DayKindRatios | null, input: DoseInput): DoseResult {
-  const block = dayKind ? findBlock(dayKind.blocks, input.mealMinuteOfDay) : undefined;
-  if (!settings || !dayKind || !block) {
+  const timeOfDay = dayKind ? findTimeOfDay(dayKind.timesOfDay, input.mealMinuteOfDay) : undefined;
+  if (!settings || !dayKind || !timeOfDay) {
     const warnings: DoseWarning[] = [
       {
         code: 'no_settings',
@@ -185,7 +185,7 @@ export function computeDose(settings: DoseSettings | null, dayKind: DayKindRatio
     });
   }
 
-  const carbRatio = block.carbRatio;
+  const carbRatio = timeOfDay.carbRatio;
   const mealUnits = input.carbsGrams / carbRatio;
   const reduction = input.exercise ? exerciseReduction(input.exercise, settings.exerciseReductions) : null;
   const exercisePercent = reduction?.percent ?? 0;
@@ -199,11 +199,11 @@ export function computeDose(settings: DoseSettings | null, dayKind: DayKindRatio
   else if (!fresh) correctionReason = 'stale_glucose';
   else if (glucoseMmol > settings.targetHighMmol) {
     correctionReason = 'above_range';
-    correctionUnits = (glucoseMmol - settings.correctionTargetMmol) / block.correctionFactorMmol;
+    correctionUnits = (glucoseMmol - settings.correctionTargetMmol) / timeOfDay.correctionFactorMmol;
   } else if (glucoseMmol < settings.targetLowMmol) {
     if (settings.allowNegativeCorrection) {
       correctionReason = 'below_range_negative';
-      correctionUnits = (glucoseMmol - settings.correctionTargetMmol) / block.correctionFactorMmol;
+      correctionUnits = (glucoseMmol - settings.correctionTargetMmol) / timeOfDay.correctionFactorMmol;
       warnings.push({ code: 'negative_correction', tone: 'info', message: 'Glucose is below your target range, so the dose is lowered (negative correction).' });
     } else correctionReason = 'below_range_none';
   } else correctionReason = 'in_range';
@@ -247,7 +247,7 @@ export function computeDose(settings: DoseSettings | null, dayKind: DayKindRatio
   return {
     status: 'ok',
     dayKind: { id: dayKind.id, name: dayKind.name },
-    block: { startMinute: block.startMinute, endMinute: block.endMinute },
+    timeOfDay: { startMinute: timeOfDay.startMinute, endMinute: timeOfDay.endMinute },
     breakdown: {
       carbsGrams: input.carbsGrams,
       carbRatio,
@@ -257,7 +257,7 @@ export function computeDose(settings: DoseSettings | null, dayKind: DayKindRatio
       mealAfterExerciseUnits,
       glucoseMmol,
       correctionTargetMmol: settings.correctionTargetMmol,
-      correctionFactorMmol: block.correctionFactorMmol,
+      correctionFactorMmol: timeOfDay.correctionFactorMmol,
       correctionUnits,
       correctionReason,
       activeInsulinModel: settings.activeInsulinModel,

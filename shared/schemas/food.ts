@@ -2,7 +2,7 @@ import { z } from 'zod';
 import type { Nutrients } from '../compute/nutrients';
 
 /** Where a food's values come from: an open table, or a package label typed in by a member. */
-export const foodSourceSchema = z.enum(['ifct2017', 'usda_sr28', 'usda_fdc', 'label']);
+export const foodSourceSchema = z.enum(['ifct2017', 'usda_sr28', 'usda_fdc', 'pack']);
 export type FoodSource = z.infer<typeof foodSourceSchema>;
 
 const nutrientValue = z.number().nullable();
@@ -93,7 +93,7 @@ const optionalGrams = (label: string) => grams(label).nullable();
  * `convention` says what the printed carbohydrate means: 'eu' = available (fibre not included),
  * 'us' = total carbohydrate (fibre included).
  */
-export const createLabelFoodInputSchema = z
+export const createPackFoodInputSchema = z
   .object({
     name: z.string().trim().min(1, 'Give the food a name.').max(200, 'At most 200 characters.'),
     brand: z.string().trim().max(100, 'At most 100 characters.').nullable().default(null),
@@ -129,15 +129,15 @@ export const createLabelFoodInputSchema = z
       ctx.addIssue({ code: 'custom', path: ['sugars'], message: 'Sugars are part of carbohydrate, so they cannot be larger.' });
     }
   });
-export type CreateLabelFoodInput = z.input<typeof createLabelFoodInputSchema>;
-export type CreateLabelFoodValues = z.output<typeof createLabelFoodInputSchema>;
+export type CreatePackFoodInput = z.input<typeof createPackFoodInputSchema>;
+export type CreatePackFoodValues = z.output<typeof createPackFoodInputSchema>;
 
 /** Human names of the sources, for screens. */
 export const FOOD_SOURCE_LABELS: Record<FoodSource, string> = {
   ifct2017: 'Indian Food Composition Tables 2017',
   usda_sr28: 'USDA SR28',
   usda_fdc: 'USDA FoodData Central',
-  label: 'Package label',
+  pack: 'Package label',
 };
 
 /** A dataset import as the admin screen sees it. */

@@ -145,7 +145,7 @@ export function minutesToTime(minutes: number): string {
   return `${String(Math.floor(minutes / 60)).padStart(2, '0')}:${String(minutes % 60).padStart(2, '0')}`;
 }
 
-export const ratioBlockInputSchema = z.object({
+export const timeOfDayInputSchema = z.object({
   from: timeOfDaySchema,
   to: timeOfDaySchema,
   carbRatio: numberField('Enter the insulin-to-carb ratio.').refine(
@@ -155,7 +155,7 @@ export const ratioBlockInputSchema = z.object({
   correctionFactor: numberField('Enter the correction factor.').refine((v) => v > 0, 'The correction factor must be above 0.'),
 });
 
-/** A day kind with its time-of-day blocks, which must cover 00:00–24:00 in order, without gaps or overlaps. */
+/** A day kind with its times of day, which must cover 00:00–24:00 in order, without gaps or overlaps. */
 export const dayKindInputSchema = z
   .object({
     name: z.string().trim().min(1, 'Give this kind of day a name.').max(40, 'Use at most 40 characters.'),
@@ -165,22 +165,22 @@ export const dayKindInputSchema = z
       'Use 0 to 200 units, or leave it empty.',
     ),
     glucoseUnit: glucoseUnitSchema,
-    blocks: z.array(ratioBlockInputSchema).min(1, 'Add at least one time block.').max(24, 'Use at most 24 blocks.'),
+    timesOfDay: z.array(timeOfDayInputSchema).min(1, 'Add at least one time of day.').max(24, 'Use at most 24 times of day.'),
   })
   .superRefine((d, ctx) => {
-    d.blocks.forEach((b, i) => {
-      checkGlucose(ctx, d.glucoseUnit, 'correctionFactor', ['blocks', i, 'correctionFactor'], b.correctionFactor, 'The correction factor');
+    d.timesOfDay.forEach((b, i) => {
+      checkGlucose(ctx, d.glucoseUnit, 'correctionFactor', ['timesOfDay', i, 'correctionFactor'], b.correctionFactor, 'The correction factor');
       if (!TIME_RE.test(b.from) || !TIME_RE.test(b.to)) return;
       const from = timeToMinutes(b.from);
       const to = timeToMinutes(b.to);
-      if (from >= to) ctx.addIssue({ code: 'custom', path: ['blocks', i, 'to'], message: 'The block must end after it starts.' });
-      if (i === 0 && from !== 0) ctx.addIssue({ code: 'custom', path: ['blocks', 0, 'from'], message: 'The first block must start at 00:00.' });
-      if (i > 0 && TIME_RE.test(d.blocks[i - 1].to)) {
-        const prevEnd = timeToMinutes(d.blocks[i - 1].to);
-        if (from < prevEnd) ctx.addIssue({ code: 'custom', path: ['blocks', i, 'from'], message: `This block overlaps the one before (it ends at ${d.blocks[i - 1].to}).` });
-        else if (from > prevEnd) ctx.addIssue({ code: 'custom', path: ['blocks', i, 'from'], message: `There is a gap: the block before ends at ${d.blocks[i - 1].to}.` });
+      if (from >= to) ctx.addIssue({ code: 'custom', path: ['timesOfDay', i, 'to'], message: 'This time of day must end after it starts.' });
+      if (i === 0 && from !== 0) ctx.addIssue({ code: 'custom', path: ['timesOfDay', 0, 'from'], message: 'The first time of day must start at 00:00.' });
+      if (i > 0 && TIME_RE.test(d.timesOfDay[i - 1].to)) {
+        const prevEnd = timeToMinutes(d.timesOfDay[i - 1].to);
+        if (from < prevEnd) ctx.addIssue({ code: 'custom', path: ['timesOfDay', i, 'from'], message: `This time of day overlaps the one before (it ends at ${d.timesOfDay[i - 1].to}).` });
+        else if (from > prevEnd) ctx.addIssue({ code: 'custom', path: ['timesOfDay', i, 'from'], message: `There is a gap: the time of day before ends at ${d.timesOfDay[i - 1].to}.` });
       }
-      if (i === d.blocks.length - 1 && to !== 1440) ctx.addIssue({ code: 'custom', path: ['blocks', i, 'to'], message: 'The last block must end at 24:00.' });
+      if (i === d.timesOfDay.length - 1 && to !== 1440) ctx.addIssue({ code: 'custom', path: ['timesOfDay', i, 'to'], message: 'The last time of day must end at 24:00.' });
     });
   });
 export type DayKindInput = z.infer<typeof dayKindInputSchema>;
@@ -192,7 +192,7 @@ export type DayKind = {
   isDefault: boolean;
   longActingUnits: number | null;
   glucoseUnit: GlucoseUnit;
-  blocks: { from: string; to: string; carbRatio: number; correctionFactor: number }[];
+  timesOfDay: { from: string; to: string; carbRatio: number; correctionFactor: number }[];
   updatedAt: string;
 };
 

@@ -6,7 +6,7 @@ import { engineSettings } from '../helpers/dose-settings';
 
 const T0 = Date.UTC(2026, 2, 1, 12, 0);
 const settings: DoseSettings = engineSettings({ targetHighMmol: 7, maxDoseUnits: 15 });
-const rest = { id: 1, name: 'Rest', blocks: [{ startMinute: 0, endMinute: 1440, carbRatio: 10, correctionFactorMmol: 2.5 }] };
+const rest = { id: 1, name: 'Rest', timesOfDay: [{ startMinute: 0, endMinute: 1440, carbRatio: 10, correctionFactorMmol: 2.5 }] };
 
 function suggestion(glucose: number, extra: Partial<Parameters<typeof computeDose>[2]> = {}): DoseSuggestion {
   const result = computeDose(settings, rest, {

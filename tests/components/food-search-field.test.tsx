@@ -6,7 +6,7 @@ jest.setTimeout(30_000);
 
 // Invented pack food; the test checks the flow, not a number.
 const SAVED = {
-  id: 42, name: 'Seed crackers', source: 'label', sourceCode: 'x', group: null, altNames: [],
+  id: 42, name: 'Seed crackers', source: 'pack', sourceCode: 'x', group: null, altNames: [],
   per100g: { energyKcal: null, energyKj: null, carbAvailable: 30, carbTotal: null, fibre: null, sugars: null, protein: null, fat: null, water: null },
   carbMeasured: 'available', carbNote: null, derived: [], attribution: 'a', licence: 'l', ownerUserId: 1, sharedProfileId: null,
   labelConvention: 'eu', hasPhoto: false, scientificName: null, ndbNumber: null, brand: null, branded: false, fibreNotMeasured: false,

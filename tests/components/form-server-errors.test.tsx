@@ -82,7 +82,7 @@ describe('a server field error lands under its field', () => {
   it('dose check: the reading time (glucoseTakenAt in the request)', async () => {
     fakeApi({
       'GET /profiles/1/settings': [200, { glucoseUnit: 'mmol_l', carbBasis: 'available', carbUnit: 'g', settings: { penIncrement: 0.5 }, updatedAt: null }],
-      'GET /profiles/1/day-kinds': [200, { dayKinds: [{ id: 4, name: 'Rest', isDefault: true, longActingUnits: null, glucoseUnit: 'mmol_l', blocks: [], updatedAt: '' }] }],
+      'GET /profiles/1/day-kinds': [200, { dayKinds: [{ id: 4, name: 'Rest', isDefault: true, longActingUnits: null, glucoseUnit: 'mmol_l', timesOfDay: [], updatedAt: '' }] }],
       'GET /profiles/1/days': [200, { days: [] }],
       'POST /profiles/1/dose-suggestions': fieldErrors({ glucoseTakenAt: ['The reading is older than the meal by more than a day.'] }),
     });
@@ -129,7 +129,7 @@ describe('the dose check before anything is worked out', () => {
   it('shows the caution, leaves the reading time empty and asks for it once a reading is typed', async () => {
     const api = fakeApi({
       'GET /profiles/1/settings': [200, { glucoseUnit: 'mmol_l', carbBasis: 'available', carbUnit: 'g', settings: { penIncrement: 0.5 }, updatedAt: null }],
-      'GET /profiles/1/day-kinds': [200, { dayKinds: [{ id: 4, name: 'Rest', isDefault: true, longActingUnits: null, glucoseUnit: 'mmol_l', blocks: [], updatedAt: '' }] }],
+      'GET /profiles/1/day-kinds': [200, { dayKinds: [{ id: 4, name: 'Rest', isDefault: true, longActingUnits: null, glucoseUnit: 'mmol_l', timesOfDay: [], updatedAt: '' }] }],
       'GET /profiles/1/days': [200, { days: [] }],
     });
     renderSignedIn(() => <DoseCheckScreen />);

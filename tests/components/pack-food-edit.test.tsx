@@ -7,7 +7,7 @@ jest.setTimeout(30_000);
 
 // An invented pack food of the signed-in person (user 1): these tests check where messages land, not numbers.
 const PACK: Food = {
-  id: 5, name: 'Oat crackers (Hillside)', source: 'label', sourceCode: 'x', group: null, altNames: ['Hillside'],
+  id: 5, name: 'Oat crackers (Hillside)', source: 'pack', sourceCode: 'x', group: null, altNames: ['Hillside'],
   per100g: { energyKcal: 371, energyKj: 1552, carbAvailable: 60, carbTotal: 70, fibre: 10, sugars: 2, protein: 12, fat: 7, water: null },
   carbMeasured: 'available', carbNote: null, derived: ['carbTotal', 'energyKj'], attribution: 'Typed from a package label.', licence: 'Private.',
   ownerUserId: 1, sharedProfileId: null, labelConvention: 'eu', hasPhoto: false, scientificName: null, ndbNumber: null, brand: 'Hillside',

@@ -3,7 +3,7 @@ import { toContainerRequest } from '@/components/kitchen/containers-panel';
 import { cookFormDefaults, type CookFormValues } from '@/components/kitchen/cook-state';
 import { doseFormDefaults, toDoseRequest, type DoseFormValues } from '@/components/dose/dose-request';
 import { recipeFieldOf, recipeFormValues, toRecipeRequest, type RecipeFormValues } from '@/components/recipes/recipe-request';
-import { toLabelFoodRequest, emptyLabelFood } from '@/components/foods/label-food-form-values';
+import { toPackFoodRequest, emptyPackFood } from '@/components/foods/pack-food-form-values';
 import { emptyNutrients } from '@/shared/compute/nutrients';
 import { createBatchInputSchema } from '@/shared/schemas/batch';
 import { doseRequestSchema } from '@/shared/schemas/dose';
@@ -156,7 +156,7 @@ describe('small request builders', () => {
     { name: 'container: a typed empty weight is kept for the schema', got: toContainerRequest({ name: 'Pot', kind: 'pot', tareGrams: '1450' }), expected: { name: 'Pot', kind: 'pot', tareGrams: '1450' } },
     {
       name: 'pack food: shared with another profile',
-      got: toLabelFoodRequest({ ...emptyLabelFood, name: 'Crackers', carbohydrate: '61,2', share: '12' }),
+      got: toPackFoodRequest({ ...emptyPackFood, name: 'Crackers', carbohydrate: '61,2', share: '12' }),
       expected: { name: 'Crackers', carbohydrate: 61.2, fibre: null, servingGrams: null, sharedProfileId: 12 },
     },
   ])('$name', ({ got, expected }) => {

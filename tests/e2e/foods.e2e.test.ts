@@ -23,7 +23,7 @@ async function signUp(page: Page, email: string) {
 }
 
 describe('food table in the browser', () => {
-  it('searches "banana" at phone width, opens a food, and adds a label food', async () => {
+  it('searches "banana" at phone width, opens a food, and adds a pack food', async () => {
     const page = await rig.newPage(PHONE);
     await signUp(page, 'foods-phone@example.test');
 
@@ -48,25 +48,25 @@ describe('food table in the browser', () => {
     await page.goto(`${rig.baseUrl}/foods`);
     await page.getByText('Favourites').waitFor();
     await page.getByRole('button', { name: /^Banana, ripe, robusta,/ }).first().waitFor();
-    await page.getByRole('link', { name: 'Add a label food' }).click();
+    await page.getByRole('link', { name: 'Add a pack food' }).click();
     await page.waitForURL(/\/foods\/new$/);
     await page.getByLabel('Food name').fill('Oat crackers');
     await page.getByRole('radio', { name: 'Per serving' }).click();
     await page.getByLabel('Serving weight').fill('0');
     await page.getByLabel('Carbohydrate', { exact: true }).fill('18');
-    await page.getByRole('button', { name: 'Save label food' }).click();
+    await page.getByRole('button', { name: 'Save pack food' }).click();
     await page.getByText('Serving size must be more than 0 g.').waitFor();
     await rig.shot(page, 'phone-label-error');
     await page.getByLabel('Serving weight').fill('30');
     await page.getByLabel('Fibre').fill('1,5');
-    await page.getByRole('button', { name: 'Save label food' }).click();
+    await page.getByRole('button', { name: 'Save pack food' }).click();
 
     await page.waitForURL(/\/foods\/\d+$/);
     await page.getByRole('heading', { name: 'Oat crackers' }).waitFor();
     // 18 g per 30 g serving → 60 g per 100 g (EU label: available)
     await page.getByLabel('60 g per 100 g').waitFor();
     await page.getByText(/EU\/UK label: carbohydrate printed per 30 g serving/).waitFor();
-    await rig.shot(page, 'phone-label-food');
+    await rig.shot(page, 'phone-pack-food');
 
     // The owner edits it: 45 g per 100 g as printed (EU label) → 45 g per 100 g available; then deletes it.
     await page.getByRole('button', { name: 'Edit pack food' }).click();

@@ -18,7 +18,7 @@ const FOODS = [
   { name: 'Yogurt, Greek, plain, nonfat', carbTotal: 3.6, fibre: 0, planned: 250, reading: '247' },
   { name: 'Apple, raw, with skin', carbTotal: 13.81, fibre: 2.4, planned: 150, reading: '163' },
 ];
-const JARS = [
+const WEIGHED_PORTIONS = [
   ['212', '438'],
   ['215', '441'],
   ['209', '436'],
@@ -55,7 +55,7 @@ describe('the kitchen in the browser', () => {
     cook = await setUpCook();
   });
 
-  it('cooks a batch on a phone: weighing checklist, pot, five weighed jars, label sheet, portion page', async () => {
+  it('cooks a batch on a phone: weighing checklist, pot, five weighed portions, label sheet, portion page', async () => {
     const page = await rig.newPage(PHONE);
     await signIn(page, cook.email, cook.password);
 
@@ -83,7 +83,7 @@ describe('the kitchen in the browser', () => {
     await rig.shot(page, 'phone-pot');
     await page.getByRole('button', { name: 'Portion out', exact: true }).click();
 
-    for (const [i, [tare, gross]] of JARS.entries()) {
+    for (const [i, [tare, gross]] of WEIGHED_PORTIONS.entries()) {
       if (i > 0) await page.getByRole('button', { name: 'Add a container' }).click();
       await page.getByLabel(`Empty container ${i + 1} (tare)`).fill(tare);
       await page.getByLabel(`Full container ${i + 1} (gross)`).fill(gross);

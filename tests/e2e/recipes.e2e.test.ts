@@ -52,7 +52,7 @@ describe('recipes in the browser', () => {
     await rig.shot(page, 'phone-library-empty');
     await page.getByRole('button', { name: 'New recipe' }).click();
     await page.waitForURL(/\/recipes\/new/);
-    await page.getByLabel('Title', { exact: true }).fill('Overnight oats jars');
+    await page.getByLabel('Title', { exact: true }).fill('Overnight oats');
     await page.getByLabel('Portions', { exact: true }).fill('6');
     await page.getByLabel('Tags (separated by commas)', { exact: true }).fill('breakfast, no-cook');
     await page.getByRole('button', { name: 'Save recipe' }).click();
@@ -65,19 +65,19 @@ describe('recipes in the browser', () => {
     await page.getByRole('button', { name: 'Save recipe' }).click();
     await page.getByText('Grams must be more than 0.').waitFor();
     await page.getByLabel('Grams of Raisins, seedless', { exact: true }).fill('40');
-    await page.getByLabel('Method (one step per line)', { exact: true }).fill('Mix everything in a bowl.\nDivide into six jars and chill overnight.');
+    await page.getByLabel('Method (one step per line)', { exact: true }).fill('Mix everything in a bowl.\nDivide into six portions and chill overnight.');
     await rig.shot(page, 'phone-editor');
     await page.getByRole('button', { name: 'Save recipe' }).click();
 
     await page.waitForURL(/\/recipes\/\d+$/);
-    // Available carbohydrate by hand (check-values §2.4): 217.227 g / 6 = 36.2 g per jar; 18.889 g per 100 g → "36 g", "19 g".
+    // Available carbohydrate by hand (check-values §2.4): 217.227 g / 6 = 36.2 g per portion; 18.889 g per 100 g → "36 g", "19 g".
     await page.getByTestId('carb-per-portion').getByText('36 g').waitFor();
     await page.getByTestId('carb-per-100g').getByText('19 g').waitFor();
     await rig.shot(page, 'phone-recipe-page');
     const png = await page.screenshot({ clip: { x: 0, y: 0, width: 390, height: 240 } });
     await page.getByTestId('recipe-photo-input').setInputFiles({ name: 'oats.png', mimeType: 'image/png', buffer: png });
     await page.getByRole('button', { name: 'Change photo' }).waitFor({ timeout: 60_000 });
-    await page.getByLabel('Photo of Overnight oats jars', { exact: true }).last().waitFor();
+    await page.getByLabel('Photo of Overnight oats', { exact: true }).last().waitFor();
     await page.getByRole('button', { name: 'Change photo' }).waitFor();
     await page.getByRole('button', { name: '× 2' }).click();
     await page.getByText('Per portion (1 of 6)').waitFor();
@@ -93,14 +93,14 @@ describe('recipes in the browser', () => {
 
     const wide = await signedInPage(WIDE, guest.token);
     await wide.goto(`${rig.baseUrl}/recipes`);
-    await wide.getByRole('button', { name: 'Accept Overnight oats jars' }).click();
+    await wide.getByRole('button', { name: 'Accept Overnight oats' }).click();
     await wide.getByRole('tab', { name: 'Shared with me' }).click();
-    await wide.getByRole('listitem', { name: 'Overnight oats jars' }).waitFor();
+    await wide.getByRole('listitem', { name: 'Overnight oats' }).waitFor();
     await wide.getByText('Shared by Wren').waitFor();
     await wide.getByTestId('carb-per-portion').getByText('36 g').waitFor();
     await rig.shot(wide, 'wide-library-list-and-detail');
     await wide.getByRole('button', { name: 'Copy to my recipes' }).click();
     await wide.waitForURL(/\/recipes\/\d+$/);
-    await wide.getByText(/copied from “Overnight oats jars”/).waitFor();
+    await wide.getByText(/copied from “Overnight oats”/).waitFor();
   });
 });

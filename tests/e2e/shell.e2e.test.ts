@@ -64,7 +64,7 @@ async function setUpHousehold() {
     await request(rig.baseUrl)
       .post(`/api/profiles/${profileId}/day-kinds`)
       .set(auth)
-      .send({ name: 'Rest', isDefault: true, longActingUnits: null, glucoseUnit: 'mmol_l', blocks: [{ from: '00:00', to: '24:00', carbRatio: 10, correctionFactor: 3 }] }),
+      .send({ name: 'Rest', isDefault: true, longActingUnits: null, glucoseUnit: 'mmol_l', timesOfDay: [{ from: '00:00', to: '24:00', carbRatio: 10, correctionFactor: 3 }] }),
     'day kind',
   );
   // Invented round values: the checks here are about layout, not numbers.

@@ -37,7 +37,7 @@ async function setUpDoseSettings(profileId: number, auth: Record<string, string>
     const kind = await request(rig.baseUrl)
       .post(`/api/profiles/${profileId}/day-kinds`)
       .set(auth)
-      .send({ name, isDefault, longActingUnits: null, glucoseUnit: 'mmol_l', blocks: [{ from: '00:00', to: '24:00', carbRatio: ratio, correctionFactor: 3 }] });
+      .send({ name, isDefault, longActingUnits: null, glucoseUnit: 'mmol_l', timesOfDay: [{ from: '00:00', to: '24:00', carbRatio: ratio, correctionFactor: 3 }] });
     if (kind.status !== 201) throw new Error(`day kind: ${JSON.stringify(kind.body)}`);
   }
 }

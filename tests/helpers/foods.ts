@@ -16,7 +16,7 @@ export type FoodFixture = {
   sourceCode?: string;
   foodGroup?: string | null;
   altNames?: string[];
-  /** A label food of this member (source `label` unless given). */
+  /** A pack food of this member (source `pack` unless given). */
   ownerUserId?: number | null;
   sharedProfileId?: number | null;
   attribution?: string;
@@ -30,7 +30,7 @@ export async function createFood(f: FoodFixture): Promise<FoodModel> {
   counter += 1;
   const owner = f.ownerUserId ?? null;
   return FoodModel.create({
-    source: f.source ?? (owner ? 'label' : 'usda_sr28'),
+    source: f.source ?? (owner ? 'pack' : 'usda_sr28'),
     sourceCode: f.sourceCode ?? `fixture-${process.pid}-${Date.now()}-${counter}`,
     name: f.name,
     foodGroup: f.foodGroup ?? null,

@@ -51,7 +51,7 @@ async function fixtures(): Promise<Fixtures> {
   await recipe.update({ visibility: 'shared' });
   await RecipeShareModel.create({ recipeId: recipe.id, userId: carer.id, sharedByUserId: owner.id });
   const food = await createFood({ ...withAvailable(SR_LEGACY.rice), name: 'Matrix crackers' });
-  await FoodModel.update({ source: 'label', ownerUserId: owner.id, sharedProfileId: world.profileId }, { where: { id: food.id } });
+  await FoodModel.update({ source: 'pack', ownerUserId: owner.id, sharedProfileId: world.profileId }, { where: { id: food.id } });
   const offer = await RecipeShareOfferModel.create({ recipeId: recipe.id, senderUserId: owner.id, email: carerSettings.email });
   return { recipeId: recipe.id, foodId: food.id, offerId: offer.id, riceId: rice.id };
 }

@@ -12,7 +12,7 @@ export async function makeRecipe(ownerUserId: number, title: string, lines: { fo
   return recipe;
 }
 
-/** The week of overnight oats: four foods, a recipe and the weighed batch input with five jars. */
+/** The week of overnight oats: four foods, a recipe and the weighed batch input with five portions. */
 export async function overnightOats(ownerUserId: number) {
   const [oats, milk, yogurt, apple] = await Promise.all([
     createFood(withAvailable({ ...SR_LEGACY.oats, name: 'Oats, rolled, dry' })),

@@ -9,8 +9,8 @@ const ctx = useTestApp();
 
 const member = (name = 'Cook') => signUpMember(ctx.app, name);
 
-describe('POST /api/profiles/:profileId/batches (weighed jars)', () => {
-  it('saves the week of overnight oats with five weighed jars matching the hand calculation', async () => {
+describe('POST /api/profiles/:profileId/batches (weighed portions)', () => {
+  it('saves the week of overnight oats with five weighed portions matching the hand calculation', async () => {
     const cook = await member();
     const { input } = await overnightOats(cook.userId);
 
@@ -19,7 +19,7 @@ describe('POST /api/profiles/:profileId/batches (weighed jars)', () => {
     expect(res.status).toBe(201);
     const batch = res.body;
     // Hand calculation (tests/shared/batch.test.ts): raw 1158 g, cooked 1612 − 480 = 1132 g,
-    // available 196.4503 g, 17.35427 g/100 g; jars 226 g → 39.2206 g, 227 g → 39.3942 g.
+    // available 196.4503 g, 17.35427 g/100 g; portions 226 g → 39.2206 g, 227 g → 39.3942 g.
     expect(batch).toMatchObject({ rawGrams: 1158, cookedGrams: 1132, splitMode: 'weighed', basis: 'available', unit: 'g', gramsLeft: 0 });
     expect(batch.yieldFactor).toBeCloseTo(0.97755, 5);
     expect(batch.carbTotal.grams).toBeCloseTo(196.4503, 6);
@@ -62,7 +62,7 @@ describe('POST /api/profiles/:profileId/batches (weighed jars)', () => {
   });
 });
 
-describe('equal split and the profile basis and unit', () => {
+describe('equal portions and the profile basis and unit', () => {
   // check-values §2.3 / T1: porridge of oats 500 g, whole milk 1000 g, water 1000 g cooked to 2200 g, 8 portions.
   async function porridge() {
     const cook = await member();
@@ -160,17 +160,17 @@ describe('bad input gets a 400 naming the field and saves nothing', () => {
     { name: 'a missing scale reading', mutate: (i) => ({ ...i, ingredients: [{ ...i.ingredients[0], actualGrams: null }, ...i.ingredients.slice(1)] }), field: 'ingredients.0.actualGrams' },
     { name: 'cooked weight 0 (gross 0)', mutate: (i) => ({ ...i, cookedWeight: { grossGrams: 0, tareGrams: 0 } }), field: 'cookedWeight.grossGrams' },
     { name: 'pot tare equal to the gross weight', mutate: (i) => ({ ...i, cookedWeight: { grossGrams: 480, tareGrams: 480 } }), field: 'cookedWeight.tareGrams' },
-    { name: 'jar tare above its gross weight', mutate: (i) => ({ ...i, split: { mode: 'weighed', portions: [{ grossGrams: 200, tareGrams: 212 }] } }), field: 'split.portions.0.tareGrams' },
-    { name: 'more weighed into jars than the batch holds', mutate: (i) => ({ ...i, split: { mode: 'weighed', portions: [...i.split.portions, { grossGrams: 400, tareGrams: 200 }] } }), field: 'split.portions' },
+    { name: 'a container tare above its gross weight', mutate: (i) => ({ ...i, split: { mode: 'weighed', portions: [{ grossGrams: 200, tareGrams: 212 }] } }), field: 'split.portions.0.tareGrams' },
+    { name: 'more weighed into portions than the batch holds', mutate: (i) => ({ ...i, split: { mode: 'weighed', portions: [...i.split.portions, { grossGrams: 400, tareGrams: 200 }] } }), field: 'split.portions' },
     { name: '0 equal portions', mutate: (i) => ({ ...i, split: { mode: 'equal', count: 0 } }), field: 'split.count' },
     { name: 'an unknown food', mutate: (i) => ({ ...i, ingredients: [{ ...i.ingredients[0], foodId: 999999 }, ...i.ingredients.slice(1)] }), field: 'ingredients.0.foodId' },
-    { name: "another member's label food", mutate: (i, x) => ({ ...i, ingredients: [{ ...i.ingredients[0], foodId: x.strangerFoodId }, ...i.ingredients.slice(1)] }), field: 'ingredients.0.foodId' },
+    { name: "another member's pack food", mutate: (i, x) => ({ ...i, ingredients: [{ ...i.ingredients[0], foodId: x.strangerFoodId }, ...i.ingredients.slice(1)] }), field: 'ingredients.0.foodId' },
     { name: 'no ingredients', mutate: (i) => ({ ...i, ingredients: [] }), field: 'ingredients' },
     { name: 'every ingredient left out', mutate: (i) => ({ ...i, ingredients: i.ingredients.map((l: object) => ({ ...l, omitted: true })) }), field: 'ingredients' },
     { name: 'an unknown recipe', mutate: (i) => ({ ...i, recipeId: 999999 }), field: 'recipeId' },
     { name: 'a use-by date before cooking', mutate: (i) => ({ ...i, useBy: '2026-03-01' }), field: 'useBy' },
     // Checked inside the transaction after the batch row and its lines are written: the rollback must undo them.
-    { name: 'a jar of another profile', mutate: (i) => ({ ...i, split: { mode: 'weighed', portions: [{ ...i.split.portions[0], containerId: 999999 }] } }), field: 'split.portions.0.containerId' },
+    { name: 'a container of another profile', mutate: (i) => ({ ...i, split: { mode: 'weighed', portions: [{ ...i.split.portions[0], containerId: 999999 }] } }), field: 'split.portions.0.containerId' },
     { name: 'a container of another profile', mutate: (i) => ({ ...i, cookedWeight: { ...i.cookedWeight, containerId: 999999 } }), field: 'cookedWeight.containerId' },
   ];
 
@@ -178,8 +178,8 @@ describe('bad input gets a 400 naming the field and saves nothing', () => {
     const cook = await member();
     const stranger = await member('Stranger');
     const { input } = await overnightOats(cook.userId);
-    const strangerFood = await createFood(withAvailable({ name: 'Stranger label food', carbTotal: 10, fibre: 0 }));
-    await strangerFood.update({ source: 'label', ownerUserId: stranger.userId });
+    const strangerFood = await createFood(withAvailable({ name: 'Stranger pack food', carbTotal: 10, fibre: 0 }));
+    await strangerFood.update({ source: 'pack', ownerUserId: stranger.userId });
     const before = { batches: await BatchModel.count(), lines: await BatchIngredientModel.count(), portions: await PortionModel.count() };
 
     const res = await postBatch(ctx.app, cook.token, cook.profileId, mutate(input as Record<string, unknown>, { strangerFoodId: strangerFood.id }));

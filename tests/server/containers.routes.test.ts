@@ -7,15 +7,15 @@ const ctx = useTestApp();
 const member = (name = 'Cook') => signUpMember(ctx.app, name);
 
 describe('/api/profiles/:profileId/containers', () => {
-  it('saves a pot and a jar with their tares and lists pots first', async () => {
+  it('saves a pot and a container with their tares and lists pots first', async () => {
     const cook = await member();
     const base = `/api/profiles/${cook.profileId}/containers`;
 
-    const jar = await request(ctx.app).post(base).set(bearer(cook.token)).send({ name: 'Jar 1', kind: 'container', tareGrams: 212 });
+    const container = await request(ctx.app).post(base).set(bearer(cook.token)).send({ name: 'Jar 1', kind: 'container', tareGrams: 212 });
     const pot = await request(ctx.app).post(base).set(bearer(cook.token)).send({ name: 'Big pot', kind: 'pot', tareGrams: '1450.5' });
     const list = await request(ctx.app).get(base).set(bearer(cook.token));
 
-    expect(jar.status).toBe(201);
+    expect(container.status).toBe(201);
     expect(pot.status).toBe(201);
     expect(pot.body).toMatchObject({ name: 'Big pot', kind: 'pot', tareGrams: 1450.5, profileId: cook.profileId });
     expect(list.body.items.map((c: { name: string }) => c.name)).toEqual(['Big pot', 'Jar 1']);
@@ -39,14 +39,14 @@ describe('/api/profiles/:profileId/containers', () => {
   it('corrects a tare and deletes a container', async () => {
     const cook = await member();
     const base = `/api/profiles/${cook.profileId}/containers`;
-    const jar = await request(ctx.app).post(base).set(bearer(cook.token)).send({ name: 'Jar', tareGrams: 212 });
+    const container = await request(ctx.app).post(base).set(bearer(cook.token)).send({ name: 'Jar', tareGrams: 212 });
 
-    const patched = await request(ctx.app).patch(`${base}/${jar.body.id}`).set(bearer(cook.token)).send({ tareGrams: 214 });
-    const deleted = await request(ctx.app).delete(`${base}/${jar.body.id}`).set(bearer(cook.token));
+    const patched = await request(ctx.app).patch(`${base}/${container.body.id}`).set(bearer(cook.token)).send({ tareGrams: 214 });
+    const deleted = await request(ctx.app).delete(`${base}/${container.body.id}`).set(bearer(cook.token));
 
     expect(patched.body.tareGrams).toBe(214);
     expect(deleted.status).toBe(204);
-    expect(await ContainerModel.count({ where: { id: jar.body.id } })).toBe(0);
+    expect(await ContainerModel.count({ where: { id: container.body.id } })).toBe(0);
   });
 
   it('hides containers from strangers, lets clinicians look but not change', async () => {
@@ -55,16 +55,16 @@ describe('/api/profiles/:profileId/containers', () => {
     const clinician = await member('Clinician');
     await ProfileAccessModel.create({ profileId: cook.profileId, userId: clinician.userId, role: 'clinician', grantedByUserId: cook.userId });
     const base = `/api/profiles/${cook.profileId}/containers`;
-    const jar = await request(ctx.app).post(base).set(bearer(cook.token)).send({ name: 'Jar', tareGrams: 212 });
+    const container = await request(ctx.app).post(base).set(bearer(cook.token)).send({ name: 'Jar', tareGrams: 212 });
 
     const strangerList = await request(ctx.app).get(base).set(bearer(stranger.token));
-    const strangerEdit = await request(ctx.app).patch(`${base}/${jar.body.id}`).set(bearer(stranger.token)).send({ tareGrams: 1 });
+    const strangerEdit = await request(ctx.app).patch(`${base}/${container.body.id}`).set(bearer(stranger.token)).send({ tareGrams: 1 });
     const clinicianList = await request(ctx.app).get(base).set(bearer(clinician.token));
     const clinicianPost = await request(ctx.app).post(base).set(bearer(clinician.token)).send({ name: 'Jar', tareGrams: 5 });
-    const viaOwnProfile = await request(ctx.app).delete(`/api/profiles/${stranger.profileId}/containers/${jar.body.id}`).set(bearer(stranger.token));
+    const viaOwnProfile = await request(ctx.app).delete(`/api/profiles/${stranger.profileId}/containers/${container.body.id}`).set(bearer(stranger.token));
 
     expect([strangerList.status, strangerEdit.status, clinicianList.status, clinicianPost.status, viaOwnProfile.status]).toEqual([404, 404, 200, 403, 404]);
-    expect((await ContainerModel.findByPk(jar.body.id))!.tareGrams).toBe(212);
+    expect((await ContainerModel.findByPk(container.body.id))!.tareGrams).toBe(212);
   });
 });
 

@@ -11,7 +11,7 @@ const kind = (name: string, carbRatio: number, isDefault: boolean) => ({
   isDefault,
   longActingUnits: null,
   glucoseUnit: 'mmol_l',
-  blocks: [{ from: '00:00', to: '24:00', carbRatio, correctionFactor: 2 }],
+  timesOfDay: [{ from: '00:00', to: '24:00', carbRatio, correctionFactor: 2 }],
 });
 
 async function setUpProfile(name = 'Doser') {
@@ -69,7 +69,7 @@ describe('POST /api/profiles/:profileId/dose-suggestions', () => {
     await request(ctx.app)
       .put(`/api/profiles/${p.profileId}/day-kinds/${p.restId}`)
       .set(bearer(p.token))
-      .send({ ...kind('Rest', 10, true), blocks: [{ from: '00:00', to: '24:00', carbRatio: 10, correctionFactor: 2.5 }] })
+      .send({ ...kind('Rest', 10, true), timesOfDay: [{ from: '00:00', to: '24:00', carbRatio: 10, correctionFactor: 2.5 }] })
       .expect(200);
 
     const res = await request(ctx.app)

@@ -72,11 +72,11 @@ describe('GET /api/foods with a misspelt other-language name', () => {
     expect(await lexicon('kathirikkai')).toBe(1);
   });
 
-  it('keeps the names and aliases of label foods out of the lexicon and out of other people\'s corrections', async () => {
-    const owner = await signUpUser(ctx.app, 'Label owner');
+  it('keeps the names and aliases of pack foods out of the lexicon and out of other people\'s corrections', async () => {
+    const owner = await signUpUser(ctx.app, 'Pack food owner');
     const other = await signUpUser(ctx.app, 'Someone else');
     await FoodModel.create({
-      source: 'label', sourceCode: `label-${owner.me.user.id}-1`, name: 'Grandma crispbread', altNames: ['Qworvelkaka'], foodGroup: null,
+      source: 'pack', sourceCode: `pack-${owner.me.user.id}-1`, name: 'Grandma crispbread', altNames: ['Qworvelkaka'], foodGroup: null,
       energyKcal: null, energyKj: null, carbAvailable: 60, carbTotal: null, fibre: null, sugars: null, protein: null, fat: null, water: null,
       carbMeasured: 'available', attribution: 'Label typed by its owner', licence: 'none', ownerUserId: owner.me.user.id,
     });

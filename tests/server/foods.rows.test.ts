@@ -1,8 +1,8 @@
 import { emptyNutrients, type Nutrients } from '../../shared/compute/nutrients';
 import { completeEnergy, deriveCarbs } from '../../server/importers/food-rows';
 import { normaliseSearchText, searchKeys } from '../../server/search/search-text';
-import { labelNutrients } from '../../server/services/label-foods.service';
-import { createLabelFoodInputSchema } from '../../shared/schemas/food';
+import { packFoodNutrients } from '../../server/services/pack-foods.service';
+import { createPackFoodInputSchema } from '../../shared/schemas/food';
 
 const n = (patch: Partial<Nutrients>): Nutrients => ({ ...emptyNutrients(), ...patch });
 
@@ -59,8 +59,8 @@ describe('searchKeys', () => {
   });
 });
 
-describe('labelNutrients', () => {
-  const parse = (v: Record<string, unknown>) => createLabelFoodInputSchema.parse({ name: 'x', ...v });
+describe('packFoodNutrients', () => {
+  const parse = (v: Record<string, unknown>) => createPackFoodInputSchema.parse({ name: 'x', ...v });
 
   it.each([
     // check-values.md §1.3: US label total 24 g, fibre 4 g → available 20 g; EU declares 20 g and fibre 4 g
@@ -69,7 +69,7 @@ describe('labelNutrients', () => {
     { name: 'EU label per 25 g serving', input: { basis: 'perServing', servingGrams: 25, convention: 'eu', carbohydrate: 5, fibre: 1 }, available: 20, total: 24, measured: 'available' },
     { name: 'US label per 60 g serving', input: { basis: 'perServing', servingGrams: 60, convention: 'us', carbohydrate: 24, fibre: 3 }, available: 35, total: 40, measured: 'total' },
   ])('$name', ({ input, available, total, measured }) => {
-    const out = labelNutrients(parse(input));
+    const out = packFoodNutrients(parse(input));
 
     expect(out.carbMeasured).toBe(measured);
     expect(out.nutrients.carbAvailable).toBeCloseTo(available, 9);

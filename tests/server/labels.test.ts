@@ -25,7 +25,7 @@ describe('GET /api/profiles/:profileId/batches/:id/labels', () => {
     expect(res.status).toBe(200);
     expect(res.body.labels).toHaveLength(5);
     expect(res.body.labels.map((l: { code: string }) => l.code)).toEqual(batch.portions.map((p: { code: string }) => p.code));
-    // Hand calculation (tests/shared/batch.test.ts): 226 g jar 39.2206 g = 3.9 CP; 227 g jar 39.3942 g; 17.35 g/100 g.
+    // Hand calculation (tests/shared/batch.test.ts): 226 g portion 39.2206 g = 3.9 CP; 227 g portion 39.3942 g; 17.35 g/100 g.
     expect(res.body.labels[0]).toMatchObject({
       recipeTitle: 'Overnight oats',
       cookedOn: '2026-03-10',

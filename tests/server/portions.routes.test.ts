@@ -8,7 +8,7 @@ const ctx = useTestApp();
 
 const member = (name = 'Cook') => signUpMember(ctx.app, name);
 
-async function cookedJars() {
+async function cookedPortions() {
   const cook = await member();
   const { input } = await overnightOats(cook.userId);
   const res = await postBatch(ctx.app, cook.token, cook.profileId, input);
@@ -17,19 +17,19 @@ async function cookedJars() {
 
 describe('GET /api/portions/:code', () => {
   it('shows the portion with its batch numbers, accepting the code typed in lower case with a dash', async () => {
-    const { cook, code } = await cookedJars();
+    const { cook, code } = await cookedPortions();
 
     const res = await request(ctx.app).get(`/api/portions/${formatPortionCode(code).toLowerCase()}`).set(bearer(cook.token));
 
     expect(res.status).toBe(200);
     expect(res.body).toMatchObject({ code, recipeTitle: 'Overnight oats', cookedOn: '2026-03-10', useBy: '2026-03-12', netGrams: 226, status: 'available', basis: 'available', unit: 'g' });
-    // Hand calculation in tests/shared/batch.test.ts: 226 g jar → 39.2206 g; 17.35427 g/100 g.
+    // Hand calculation in tests/shared/batch.test.ts: 226 g portion → 39.2206 g; 17.35427 g/100 g.
     expect(res.body.carb.grams).toBeCloseTo(39.2206, 3);
     expect(res.body.carbPer100g.grams).toBeCloseTo(17.35427, 4);
   });
 
   it('shows the portion to a carer of the profile and hides it from a stranger', async () => {
-    const { cook, code } = await cookedJars();
+    const { cook, code } = await cookedPortions();
     const carer = await member('Carer');
     const stranger = await member('Stranger');
     await ProfileAccessModel.create({ profileId: cook.profileId, userId: carer.userId, role: 'carer', grantedByUserId: cook.userId });
@@ -54,7 +54,7 @@ describe('GET /api/portions/:code', () => {
 
 describe('POST /api/portions/:code/status', () => {
   it('marks a portion eaten once and answers 409 the second time', async () => {
-    const { cook, code } = await cookedJars();
+    const { cook, code } = await cookedPortions();
 
     const first = await request(ctx.app).post(`/api/portions/${code}/status`).set(bearer(cook.token)).send({ status: 'eaten' });
     const second = await request(ctx.app).post(`/api/portions/${code}/status`).set(bearer(cook.token)).send({ status: 'discarded' });
@@ -68,7 +68,7 @@ describe('POST /api/portions/:code/status', () => {
   });
 
   it('lets exactly one of ten simultaneous taps win', async () => {
-    const { cook, code } = await cookedJars();
+    const { cook, code } = await cookedPortions();
 
     const results = await Promise.all(
       Array.from({ length: 10 }, (_, i) =>
@@ -81,7 +81,7 @@ describe('POST /api/portions/:code/status', () => {
   });
 
   it('counts the change in the inventory', async () => {
-    const { cook, batch } = await cookedJars();
+    const { cook, batch } = await cookedPortions();
     await request(ctx.app).post(`/api/portions/${batch.portions[0].code}/status`).set(bearer(cook.token)).send({ status: 'eaten' });
     await request(ctx.app).post(`/api/portions/${batch.portions[1].code}/status`).set(bearer(cook.token)).send({ status: 'discarded' });
 
@@ -91,7 +91,7 @@ describe('POST /api/portions/:code/status', () => {
   });
 
   it('drops a batch from the available inventory once every portion is gone, but keeps it under all', async () => {
-    const { cook, batch } = await cookedJars();
+    const { cook, batch } = await cookedPortions();
     for (const p of batch.portions) {
       await request(ctx.app).post(`/api/portions/${p.code}/status`).set(bearer(cook.token)).send({ status: 'eaten' });
     }
@@ -104,7 +104,7 @@ describe('POST /api/portions/:code/status', () => {
   });
 
   it('refuses a clinician (403), a stranger (404) and an unknown status (400)', async () => {
-    const { cook, code } = await cookedJars();
+    const { cook, code } = await cookedPortions();
     const clinician = await member('Clinician');
     const stranger = await member('Stranger');
     await ProfileAccessModel.create({ profileId: cook.profileId, userId: clinician.userId, role: 'clinician', grantedByUserId: cook.userId });
@@ -121,7 +121,7 @@ describe('POST /api/portions/:code/status', () => {
 
 describe('POST /api/portions/:code/status back to available (the undo)', () => {
   it.each([{ from: 'eaten' }, { from: 'discarded' }])('undoes $from: the portion is not eaten yet again and can be marked anew', async ({ from }) => {
-    const { cook, code } = await cookedJars();
+    const { cook, code } = await cookedPortions();
     await request(ctx.app).post(`/api/portions/${code}/status`).set(bearer(cook.token)).send({ status: from });
 
     const undo = await request(ctx.app).post(`/api/portions/${code}/status`).set(bearer(cook.token)).send({ status: 'available' });
@@ -135,7 +135,7 @@ describe('POST /api/portions/:code/status back to available (the undo)', () => {
   });
 
   it('records who undid it in the database and counts the portion as not eaten yet in the inventory', async () => {
-    const { cook, code } = await cookedJars();
+    const { cook, code } = await cookedPortions();
     const carer = await member('Carer');
     await ProfileAccessModel.create({ profileId: cook.profileId, userId: carer.userId, role: 'carer', grantedByUserId: cook.userId });
     await request(ctx.app).post(`/api/portions/${code}/status`).set(bearer(cook.token)).send({ status: 'discarded' });
@@ -151,7 +151,7 @@ describe('POST /api/portions/:code/status back to available (the undo)', () => {
   });
 
   it('answers 409 for a portion that is already not eaten yet, and 403 to a clinician, leaving the row as it was', async () => {
-    const { cook, code } = await cookedJars();
+    const { cook, code } = await cookedPortions();
     const clinician = await member('Clinician');
     await ProfileAccessModel.create({ profileId: cook.profileId, userId: clinician.userId, role: 'clinician', grantedByUserId: cook.userId });
 

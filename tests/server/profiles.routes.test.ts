@@ -1,5 +1,5 @@
 import request from 'supertest';
-import { DayKindModel, ProfileAccessModel, ProfileSettingsModel, RatioBlockModel, SettingsChangeModel } from '../../server/models';
+import { DayKindModel, ProfileAccessModel, ProfileSettingsModel, SettingsChangeModel, TimeOfDayModel } from '../../server/models';
 import { bearer, signUpMember, signUpUser, useTestApp } from '../helpers/api';
 import { TEST_DOSE_SETTINGS } from '../helpers/dose-settings';
 
@@ -13,7 +13,7 @@ const REST = {
   isDefault: true,
   longActingUnits: 18,
   glucoseUnit: 'mmol_l',
-  blocks: [
+  timesOfDay: [
     { from: '00:00', to: '11:00', carbRatio: 8, correctionFactor: 2 },
     { from: '11:00', to: '24:00', carbRatio: 10, correctionFactor: 2.5 },
   ],
@@ -141,14 +141,14 @@ describe('PUT /api/profiles/:profileId/settings', () => {
 });
 
 describe('day kinds', () => {
-  it('creates two day kinds, keeps one default and lists them with their blocks', async () => {
+  it('creates two day kinds, keeps one default and lists them with their times of day', async () => {
     const o = await owner();
 
     const rest = await request(ctx.app).post(`/api/profiles/${o.profileId}/day-kinds`).set(bearer(o.token)).send(REST);
     const ride = await request(ctx.app)
       .post(`/api/profiles/${o.profileId}/day-kinds`)
       .set(bearer(o.token))
-      .send({ ...REST, name: 'Long ride', isDefault: false, blocks: [{ from: '00:00', to: '24:00', carbRatio: 15, correctionFactor: 3 }] });
+      .send({ ...REST, name: 'Long ride', isDefault: false, timesOfDay: [{ from: '00:00', to: '24:00', carbRatio: 15, correctionFactor: 3 }] });
     const list = await request(ctx.app).get(`/api/profiles/${o.profileId}/day-kinds`).set(bearer(o.token));
 
     expect(rest.status).toBe(201);
@@ -157,35 +157,35 @@ describe('day kinds', () => {
       ['Rest', true],
       ['Long ride', false],
     ]);
-    expect(list.body.dayKinds[0].blocks).toEqual(REST.blocks);
+    expect(list.body.dayKinds[0].timesOfDay).toEqual(REST.timesOfDay);
     expect(list.body.dayKinds[0].longActingUnits).toBe(18);
   });
 
   it.each([
-    { name: 'a ratio of 0', blocks: [{ from: '00:00', to: '24:00', carbRatio: 0, correctionFactor: 2 }], field: 'blocks.0.carbRatio' },
-    { name: 'a correction factor of 0', blocks: [{ from: '00:00', to: '24:00', carbRatio: 10, correctionFactor: 0 }], field: 'blocks.0.correctionFactor' },
+    { name: 'a ratio of 0', timesOfDay: [{ from: '00:00', to: '24:00', carbRatio: 0, correctionFactor: 2 }], field: 'timesOfDay.0.carbRatio' },
+    { name: 'a correction factor of 0', timesOfDay: [{ from: '00:00', to: '24:00', carbRatio: 10, correctionFactor: 0 }], field: 'timesOfDay.0.correctionFactor' },
     {
-      name: 'overlapping blocks',
-      blocks: [
+      name: 'overlapping times of day',
+      timesOfDay: [
         { from: '00:00', to: '12:00', carbRatio: 10, correctionFactor: 2 },
         { from: '11:00', to: '24:00', carbRatio: 10, correctionFactor: 2 },
       ],
-      field: 'blocks.1.from',
+      field: 'timesOfDay.1.from',
     },
     {
-      name: 'a gap between blocks',
-      blocks: [
+      name: 'a gap between times of day',
+      timesOfDay: [
         { from: '00:00', to: '10:00', carbRatio: 10, correctionFactor: 2 },
         { from: '11:00', to: '24:00', carbRatio: 10, correctionFactor: 2 },
       ],
-      field: 'blocks.1.from',
+      field: 'timesOfDay.1.from',
     },
-    { name: 'a day that stops before midnight', blocks: [{ from: '00:00', to: '22:00', carbRatio: 10, correctionFactor: 2 }], field: 'blocks.0.to' },
-    { name: 'a time like 25:00', blocks: [{ from: '00:00', to: '25:00', carbRatio: 10, correctionFactor: 2 }], field: 'blocks.0.to' },
-  ])('returns 400 naming the field for $name and saves nothing', async ({ blocks, field }) => {
+    { name: 'a day that stops before midnight', timesOfDay: [{ from: '00:00', to: '22:00', carbRatio: 10, correctionFactor: 2 }], field: 'timesOfDay.0.to' },
+    { name: 'a time like 25:00', timesOfDay: [{ from: '00:00', to: '25:00', carbRatio: 10, correctionFactor: 2 }], field: 'timesOfDay.0.to' },
+  ])('returns 400 naming the field for $name and saves nothing', async ({ timesOfDay, field }) => {
     const o = await owner();
 
-    const res = await request(ctx.app).post(`/api/profiles/${o.profileId}/day-kinds`).set(bearer(o.token)).send({ ...REST, blocks });
+    const res = await request(ctx.app).post(`/api/profiles/${o.profileId}/day-kinds`).set(bearer(o.token)).send({ ...REST, timesOfDay });
 
     expect(res.status).toBe(400);
     expect(res.body.error.fieldErrors[field]).toBeDefined();
@@ -202,25 +202,25 @@ describe('day kinds', () => {
     expect(res.body.error.fieldErrors.name).toBeDefined();
   });
 
-  it('lets a clinician with the ratios permission change a ratio, replaces the blocks and records old and new values in the history', async () => {
+  it('lets a clinician with the ratios permission change a ratio, replaces the times of day and records old and new values in the history', async () => {
     const o = await owner();
     const clinician = await grant(o.profileId, 'clinician', ['ratios']);
     const created = await request(ctx.app).post(`/api/profiles/${o.profileId}/day-kinds`).set(bearer(o.token)).send(REST);
-    const blocks = [{ ...REST.blocks[0], carbRatio: 7 }, REST.blocks[1]];
+    const timesOfDay = [{ ...REST.timesOfDay[0], carbRatio: 7 }, REST.timesOfDay[1]];
 
-    const res = await request(ctx.app).put(`/api/profiles/${o.profileId}/day-kinds/${created.body.id}`).set(bearer(clinician)).send({ ...REST, blocks });
+    const res = await request(ctx.app).put(`/api/profiles/${o.profileId}/day-kinds/${created.body.id}`).set(bearer(clinician)).send({ ...REST, timesOfDay });
     const history = await request(ctx.app).get(`/api/profiles/${o.profileId}/settings/history`).set(bearer(o.token));
 
     expect(res.status).toBe(200);
-    expect(res.body.blocks[0].carbRatio).toBe(7);
-    expect(await RatioBlockModel.count({ where: { dayKindId: created.body.id } })).toBe(2);
+    expect(res.body.timesOfDay[0].carbRatio).toBe(7);
+    expect(await TimeOfDayModel.count({ where: { dayKindId: created.body.id } })).toBe(2);
     expect(history.body.changes).toHaveLength(2);
     expect(history.body.changes[0]).toMatchObject({
       subject: 'day_kind',
       subjectName: 'Rest',
       action: 'updated',
       changedBy: { displayName: 'clinician' },
-      changes: [{ field: 'blocks.0.carbRatio', from: 8, to: 7 }],
+      changes: [{ field: 'timesOfDay.0.carbRatio', from: 8, to: 7 }],
     });
     expect(history.body.changes[1]).toMatchObject({ action: 'created', changedBy: { displayName: 'Owner' } });
     expect(history.body.changes[1].changes.map((c: { field: string }) => c.field).slice(0, 8)).toEqual([
@@ -228,25 +228,25 @@ describe('day kinds', () => {
       'isDefault',
       'longActingUnits',
       'glucoseUnit',
-      'blocks.0.from',
-      'blocks.0.to',
-      'blocks.0.carbRatio',
-      'blocks.0.correctionFactor',
+      'timesOfDay.0.from',
+      'timesOfDay.0.to',
+      'timesOfDay.0.carbRatio',
+      'timesOfDay.0.correctionFactor',
     ]);
   });
 
-  it('keeps the old blocks when an update is invalid', async () => {
+  it('keeps the old times of day when an update is invalid', async () => {
     const o = await owner();
     const created = await request(ctx.app).post(`/api/profiles/${o.profileId}/day-kinds`).set(bearer(o.token)).send(REST);
 
     const res = await request(ctx.app)
       .put(`/api/profiles/${o.profileId}/day-kinds/${created.body.id}`)
       .set(bearer(o.token))
-      .send({ ...REST, blocks: [{ from: '00:00', to: '24:00', carbRatio: -1, correctionFactor: 2 }] });
+      .send({ ...REST, timesOfDay: [{ from: '00:00', to: '24:00', carbRatio: -1, correctionFactor: 2 }] });
 
     expect(res.status).toBe(400);
-    const blocks = await RatioBlockModel.findAll({ where: { dayKindId: created.body.id } });
-    expect(blocks.map((b) => b.carbRatio).sort()).toEqual([10, 8]);
+    const timesOfDay = await TimeOfDayModel.findAll({ where: { dayKindId: created.body.id } });
+    expect(timesOfDay.map((b) => b.carbRatio).sort()).toEqual([10, 8]);
   });
 
   it('moves the default when another day kind is made default, and refuses to drop the default without one', async () => {
@@ -350,7 +350,7 @@ describe('PUT /api/profiles/:profileId/days/:date', () => {
       const res = await request(ctx.app)
         .post(`/api/profiles/${m.profileId}/day-kinds`)
         .set(bearer(m.token))
-        .send({ name, isDefault: name === 'Rest', longActingUnits: 18, glucoseUnit: 'mmol_l', blocks: [{ from: '00:00', to: '24:00', carbRatio: 10, correctionFactor: 2 }] });
+        .send({ name, isDefault: name === 'Rest', longActingUnits: 18, glucoseUnit: 'mmol_l', timesOfDay: [{ from: '00:00', to: '24:00', carbRatio: 10, correctionFactor: 2 }] });
       kinds.push(res.body.id);
     }
 

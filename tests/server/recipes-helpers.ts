@@ -4,7 +4,7 @@ import type { RecipeInput } from '../../shared/schemas/recipe';
 import { bearer } from '../helpers/api';
 import { createFood, SR_LEGACY, type FoodFixture } from '../helpers/foods';
 
-/** Inserts a table food (or a member's label food) and returns its id; the values passed in say where they come from. */
+/** Inserts a table food (or a member's pack food) and returns its id; the values passed in say where they come from. */
 export async function insertFood(f: FoodFixture): Promise<number> {
   return (await createFood(f)).id;
 }
@@ -22,9 +22,9 @@ export async function insertOatsFoods() {
 
 export function oatsRecipe(f: Awaited<ReturnType<typeof insertOatsFoods>>, over: Partial<RecipeInput> = {}): RecipeInput {
   return {
-    title: 'Overnight oats jars',
+    title: 'Overnight oats',
     description: 'A week of breakfasts.',
-    methodSteps: ['Mix everything in a bowl.', 'Divide into jars and chill overnight.'],
+    methodSteps: ['Mix everything in a bowl.', 'Divide into portions and chill overnight.'],
     tags: ['Breakfast', 'no-cook'],
     defaultPortions: 6,
     visibility: 'private',

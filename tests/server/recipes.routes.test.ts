@@ -16,10 +16,10 @@ describe('POST /api/recipes', () => {
     const res = await request(ctx.app).post('/api/recipes').set(bearer(cook.token)).send(oatsRecipe(foods));
 
     expect(res.status).toBe(201);
-    expect(res.body).toMatchObject({ title: 'Overnight oats jars', tags: ['breakfast', 'no-cook'], isOwner: true, basis: 'available', unit: 'g' });
+    expect(res.body).toMatchObject({ title: 'Overnight oats', tags: ['breakfast', 'no-cook'], isOwner: true, basis: 'available', unit: 'g' });
     expect(res.body.ingredients.map((i: { grams: number }) => i.grams)).toEqual([240, 480, 240, 150, 40]);
     expect(res.body.ingredients[1]).toMatchObject({ measureLabel: '2 cups', food: { name: 'Milk, whole, 3.25%' } });
-    // check-values §2.4: available 217.227 g in 1150 g → 36.20 g per jar, 18.889 g per 100 g.
+    // check-values §2.4: available 217.227 g in 1150 g → 36.20 g per portion, 18.889 g per 100 g.
     expect(res.body.nutrition.carbTotal.grams).toBeCloseTo(217.227, 6);
     expect(res.body.nutrition.carbPerPortion.grams).toBeCloseTo(36.2, 2);
     expect(res.body.nutrition.carbPer100gRaw.grams).toBeCloseTo(18.889, 3);
@@ -48,7 +48,7 @@ describe('POST /api/recipes', () => {
     expect(await RecipeModel.count({ where: { ownerUserId: cook.me.user.id } })).toBe(0);
   });
 
-  it('refuses another member’s label food as an unknown food', async () => {
+  it('refuses another member’s pack food as an unknown food', async () => {
     const other = await signUpUser(ctx.app, 'LabelOwner');
     const cook = await signUpUser(ctx.app, 'Borrower');
     const label = await insertFood({ name: 'Their granola (label)', carbTotal: 60, fibre: 8, ownerUserId: other.me.user.id });
@@ -76,7 +76,7 @@ describe('GET /api/recipes/:id', () => {
     const res = await request(ctx.app).get(`/api/recipes/${id}`).set(bearer(cook.token));
 
     expect(res.body).toMatchObject({ basis: 'total', unit: 'exchange15' });
-    // 246.547 g total / 6 = 41.091 g per jar = 2.739 exchanges of 15 g (check-values §2.4, §6).
+    // 246.547 g total / 6 = 41.091 g per portion = 2.739 exchanges of 15 g (check-values §2.4, §6).
     expect(res.body.nutrition.carbPerPortion.grams).toBeCloseTo(41.091, 3);
     expect(res.body.nutrition.carbPerPortion.inUnit).toBeCloseTo(2.7394, 4);
   });
@@ -150,7 +150,7 @@ describe('PUT /api/recipes/:id', () => {
 
     expect(res.status).toBe(400);
     expect(res.body.error.fieldErrors['ingredients.1.foodId']).toBeDefined();
-    expect((await RecipeModel.findByPk(id))!.title).toBe('Overnight oats jars');
+    expect((await RecipeModel.findByPk(id))!.title).toBe('Overnight oats');
     expect(await RecipeIngredientModel.count({ where: { recipeId: id } })).toBe(5);
   });
 
@@ -166,7 +166,7 @@ describe('PUT /api/recipes/:id', () => {
 
     expect(asStranger.status).toBe(404);
     expect(asFriend.status).toBe(403);
-    expect((await RecipeModel.findByPk(id))!.title).toBe('Overnight oats jars');
+    expect((await RecipeModel.findByPk(id))!.title).toBe('Overnight oats');
   });
 });
 
@@ -179,7 +179,7 @@ describe('DELETE /api/recipes/:id and POST /api/recipes/:id/copy', () => {
     await request(ctx.app).put(`/api/recipes/${copy.body.id}`).set(bearer(cook.token)).send(oatsRecipe(foods, { title: 'Changed copy', ingredients: [{ foodId: foods.milk, grams: 100 }] }));
 
     expect(copy.status).toBe(201);
-    expect(copy.body).toMatchObject({ title: 'Overnight oats jars (copy)', copiedFromRecipeId: id, copiedFrom: { id }, visibility: 'private' });
+    expect(copy.body).toMatchObject({ title: 'Overnight oats (copy)', copiedFromRecipeId: id, copiedFrom: { id }, visibility: 'private' });
     expect(await RecipeIngredientModel.count({ where: { recipeId: id } })).toBe(5);
   });
 
@@ -214,7 +214,7 @@ describe('GET /api/recipes', () => {
 
     expect(byTitle.body.items.map((r: { title: string }) => r.title)).toEqual(['Red lentil soup']);
     expect(byTag.body.items.map((r: { title: string }) => r.title)).toEqual(['Milk pudding']);
-    expect(byIngredient.body.items.map((r: { title: string }) => r.title)).toEqual(['Overnight oats jars']);
+    expect(byIngredient.body.items.map((r: { title: string }) => r.title)).toEqual(['Overnight oats']);
     // Available per portion by hand: pudding 24 / 2 = 12 g; lentils 200 × 49 / 100 / 4 = 24.5 g; oats 36.2 g.
     expect(sorted.body.items.map((r: { carbPerPortionGrams: number }) => Math.round(r.carbPerPortionGrams * 10) / 10)).toEqual([12, 24.5, 36.2]);
   });

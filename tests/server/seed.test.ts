@@ -27,7 +27,7 @@ describe('seedDemo', () => {
     expect(await BatchModel.count({ where: { storage: 'fridge' } })).toBe(2);
     expect(await PortionModel.count()).toBe(9);
     expect(await RecipeModel.count({ where: { visibility: 'public' } })).toBe(1);
-    expect(await FoodModel.count({ where: { source: 'label' } })).toBe(2);
+    expect(await FoodModel.count({ where: { source: 'pack' } })).toBe(2);
 
     const signIn = await request(ctx.app).post('/api/auth/sign-in').send({ email: first.email, password: first.password });
     expect(signIn.status).toBe(200);
@@ -43,7 +43,7 @@ describe('seedDemo', () => {
     expect(first.created).toEqual(expect.arrayContaining(['dose settings', 'day kind Rest day', 'day kind Swim training']));
   }, 120_000);
 
-  it('builds the overnight oats only from generic USDA SR28 foods and splits them into five weighed jars', async () => {
+  it('builds the overnight oats only from generic USDA SR28 foods and portions them out into five weighed portions', async () => {
     const recipe = (await RecipeModel.findOne({ where: { title: 'Sunday overnight oats' } }))!;
     const batch = (await BatchModel.findOne({ where: { recipeId: recipe.id }, include: [{ model: BatchIngredientModel, as: 'ingredients' }] }))!;
     const portions = await PortionModel.findAll({ where: { batchId: batch.id }, order: [['position', 'ASC']] });
@@ -51,7 +51,7 @@ describe('seedDemo', () => {
 
     expect(foods.map((f) => `${f.source} ${f.sourceCode}`).sort()).toEqual(['usda_sr28 01077', 'usda_sr28 01293', 'usda_sr28 08120', 'usda_sr28 09050']);
     expect(foods.some((f) => f.extra.branded)).toBe(false);
-    // Bowl 1790 g − 642 g tare = 1148 g; jars 443, 441, 445, 440, 437 g − 214 g tare each.
+    // Bowl 1790 g − 642 g tare = 1148 g; portions 443, 441, 445, 440, 437 g − 214 g tare each.
     expect(batch.cookedGrams).toBe(1148);
     expect(portions.map((p) => p.netGrams)).toEqual([229, 227, 231, 226, 223]);
     // Available carbohydrate by hand from USDA SR28 per 100 g (205 by difference − 291 fibre, check-values §11 for
@@ -59,7 +59,7 @@ describe('seedDemo', () => {
     // 247 g × (3.98 − 0), blueberries 156 g × (14.49 − 2.4) = 145.152 + 24.24 + 9.8306 + 18.8604 = 198.083 g.
     const available = (252 * 57.6 + 505 * 4.8 + 247 * 3.98 + 156 * 12.09) / 100;
     expect(available).toBeCloseTo(198.083, 3);
-    // First jar: 198.083 g × 229 / 1148 = 39.51 g.
+    // First portion: 198.083 g × 229 / 1148 = 39.51 g.
     expect(portions[0].carbAvailable).toBeCloseTo((available * 229) / 1148, 6);
     expect(portions[0].carbAvailable).toBeCloseTo(39.513, 2);
   });

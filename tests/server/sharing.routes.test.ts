@@ -81,11 +81,11 @@ describe('POST /api/recipes/:id/shares (an offer)', () => {
     const acceptAgain = await request(ctx.app).post(`/api/recipe-offers/${offers.body.items[0].id}/accept`).set(bearer(people.sharedWith.token));
 
     expect(res.status).toBe(202);
-    expect(mail.text).toContain('Overnight oats jars');
+    expect(mail.text).toContain('"Overnight oats"');
     expect(shelfBefore).toEqual([]);
     expect(pageBefore.status).toBe(404);
     expect(ownerList.body).toMatchObject({ items: [], offers: [{ email: people.sharedWith.email }] });
-    expect(offers.body.items).toEqual([expect.objectContaining({ recipeId: id, recipeTitle: 'Overnight oats jars', senderName: 'Owner' })]);
+    expect(offers.body.items).toEqual([expect.objectContaining({ recipeId: id, recipeTitle: 'Overnight oats', senderName: 'Owner' })]);
     expect(accept.status).toBe(204);
     expect(acceptAgain.status).toBe(404);
     expect(await shelf(people.sharedWith.token, 'shared')).toEqual([id]);
@@ -190,7 +190,7 @@ describe('a pack food in a shared recipe', () => {
 
     expect(copy.status).toBe(201);
     expect(deleted.status).toBe(204);
-    expect(copiedFood).toMatchObject({ source: 'label', ownerUserId: friend.me.user.id, name: 'Oat crackers', carbAvailable: 60, fibre: 10 });
+    expect(copiedFood).toMatchObject({ source: 'pack', ownerUserId: friend.me.user.id, name: 'Oat crackers', carbAvailable: 60, fibre: 10 });
     // 100 g at 60 g available per 100 g in 2 portions: 30 g a portion.
     expect(mine.body.nutrition.carbPerPortion.grams).toBeCloseTo(30, 6);
   });
@@ -207,7 +207,7 @@ describe('revoking and copying', () => {
     expect((await request(ctx.app).get(`/api/recipes/${id}`).set(bearer(people.sharedWith.token))).status).toBe(404);
     const mine = await request(ctx.app).get(`/api/recipes/${copy.body.id}`).set(bearer(people.sharedWith.token));
     expect(mine.status).toBe(200);
-    expect(mine.body).toMatchObject({ isOwner: true, title: 'Overnight oats jars', copiedFromRecipeId: id, copiedFrom: null });
+    expect(mine.body).toMatchObject({ isOwner: true, title: 'Overnight oats', copiedFromRecipeId: id, copiedFrom: null });
     expect(mine.body.nutrition.carbPerPortion.grams).toBeCloseTo(36.2, 2);
   });
 
@@ -234,7 +234,7 @@ describe('revoking and copying', () => {
 });
 
 describe('POST /api/profiles/:profileId/batches (a recipe shared with me)', () => {
-  it('lets the person a recipe was shared with cook it when it uses the owner’s label food', async () => {
+  it('lets the person a recipe was shared with cook it when it uses the owner’s pack food', async () => {
     const owner = await member('Owner');
     const friend = await signUpUser(ctx.app, 'Friend');
     // check-values.md §1.2 worked example label: 60 g available carbohydrate and 10 g fibre per 100 g.
@@ -264,7 +264,7 @@ describe('POST /api/profiles/:profileId/batches (a recipe shared with me)', () =
     expect(cooked.body.portions.map((p: { carb: { grams: number } }) => p.carb.grams)).toEqual([30, 30]);
   });
 
-  it('still refuses another member’s private label food that is not in the recipe', async () => {
+  it('still refuses another member’s private pack food that is not in the recipe', async () => {
     const owner = await member('Owner');
     const stranger = await member('Stranger');
     const hidden = await request(ctx.app)

@@ -25,15 +25,15 @@ const line = (n: Nutrients, actualGrams: number, omitted = false): BatchIngredie
 
 // Worked example A (check-values §2.3), FAO recipe method (Greenfield & Southgate 2003) on SR Legacy.
 const porridge = [line(oats, 500), line(wholeMilk, 1000), line(water, 1000)];
-// Worked example B (check-values §2.4), 1150 g uncooked jars.
-const jars = [line(oats, 240), line(wholeMilk, 480), line(greekYogurt, 240), line(apple, 150), line(raisins, 40)];
+// Worked example B (check-values §2.4), 1150 g uncooked.
+const t4Lines = [line(oats, 240), line(wholeMilk, 480), line(greekYogurt, 240), line(apple, 150), line(raisins, 40)];
 
 describe('computeBatch against the worked examples of check-values §2 (T1–T4)', () => {
   it.each([
     { name: 'T1 porridge, total basis, 8 portions', lines: porridge, cooked: 2200, basis: 'total' as const, n: 8, yf: 0.88, per100: 17.568, perPortion: 48.3125 },
     { name: 'T1 porridge, available basis, 8 portions', lines: porridge, cooked: 2200, basis: 'available' as const, n: 8, yf: 0.88, per100: 15.273, perPortion: 42.0 },
-    { name: 'T4 overnight-oats jars, total basis, 6 jars', lines: jars, cooked: 1150, basis: 'total' as const, n: 6, yf: 1, per100: 21.439, perPortion: 41.09 },
-    { name: 'T4 overnight-oats jars, available basis, 6 jars', lines: jars, cooked: 1150, basis: 'available' as const, n: 6, yf: 1, per100: 18.889, perPortion: 36.2 },
+    { name: 'T4 overnight oats, total basis, 6 portions', lines: t4Lines, cooked: 1150, basis: 'total' as const, n: 6, yf: 1, per100: 21.439, perPortion: 41.09 },
+    { name: 'T4 overnight oats, available basis, 6 portions', lines: t4Lines, cooked: 1150, basis: 'available' as const, n: 6, yf: 1, per100: 18.889, perPortion: 36.2 },
   ])('$name', ({ lines, cooked, basis, n, yf, per100: expectedPer100, perPortion }) => {
     const batch = computeBatch(lines, cooked, basis);
     const split = splitEqually(batch, n);
@@ -66,13 +66,13 @@ describe('computeBatch against the worked examples of check-values §2 (T1–T4)
   });
 });
 
-describe('a realistic weighed week of overnight oats in five jars', () => {
+describe('a realistic weighed week of overnight oats in five portions', () => {
   // Planned oats 250, milk 500, yogurt 250, apple 150; the scale read 252, 496, 247, 163.
   const lines = [line(oats, 252), line(wholeMilk, 496), line(greekYogurt, 247), line(apple, 163)];
   // Settled mix in the mixing bowl: gross 1612 g − bowl tare 480 g = 1132 g (a little stays on the spoon).
   const cooked = netGrams(1612, 480);
-  // Jars: gross − jar tare.
-  const jarNets = [netGrams(438, 212), netGrams(441, 215), netGrams(436, 209), netGrams(440, 213), netGrams(437, 211)];
+  // Portions: gross − container tare.
+  const portionNets = [netGrams(438, 212), netGrams(441, 215), netGrams(436, 209), netGrams(440, 213), netGrams(437, 211)];
 
   // Hand calculation, written out:
   //   total carbohydrate = 252×0.677 + 496×0.048 + 247×0.036 + 163×0.1381
@@ -81,22 +81,22 @@ describe('a realistic weighed week of overnight oats in five jars', () => {
   //   available          = 225.8143 − 29.364 = 196.4503 g
   //   raw weight         = 252 + 496 + 247 + 163 = 1158 g; yield factor = 1132 / 1158 = 0.97755
   //   available / 100 g  = 196.4503 / 1132 × 100 = 17.35427 g
-  //   jar of 226 g       = 17.35427 × 2.26 = 39.2206 g; jar of 227 g = 39.3942 g
+  //   portion of 226 g       = 17.35427 × 2.26 = 39.2206 g; portion of 227 g = 39.3942 g
   it('gets the nets, yield factor and per-100 g the hand calculation gets', () => {
     const batch = computeBatch(lines, cooked, 'available');
 
     expect(cooked).toBe(1132);
-    expect(jarNets).toEqual([226, 226, 227, 227, 226]);
+    expect(portionNets).toEqual([226, 226, 227, 227, 226]);
     expect(batch.rawGrams).toBe(1158);
     expect(batch.yieldFactor).toBeCloseTo(0.97755, 5);
     expect(batch.carbTotal).toBeCloseTo(196.4503, 6);
     expect(batch.carbPer100g).toBeCloseTo(17.35427, 5);
-    expect(gramsLeftToSplit(cooked, jarNets)).toBe(0);
+    expect(gramsLeftToSplit(cooked, portionNets)).toBe(0);
   });
 
   it.each([
-    { name: 'a 226 g jar', net: 226, available: 39.2206, total: 45.0831 },
-    { name: 'a 227 g jar', net: 227, available: 39.3942, total: 45.2825 },
+    { name: 'a 226 g portion', net: 226, available: 39.2206, total: 45.0831 },
+    { name: 'a 227 g portion', net: 227, available: 39.3942, total: 45.2825 },
   ])('gives $name the hand-calculated carbohydrate in both bases', ({ net, available, total }) => {
     const avail = computeBatch(lines, cooked, 'available');
     const tot = computeBatch(lines, cooked, 'total');
@@ -106,7 +106,7 @@ describe('a realistic weighed week of overnight oats in five jars', () => {
     expect(weighedPortionCarb(tot.carbPer100g, net)).toBeCloseTo(total, 3);
   });
 
-  it('agrees with the equal split when the jars weigh the same', () => {
+  it('agrees with equal portions when the portions weigh the same', () => {
     const batch = computeBatch(lines, cooked, 'available');
     const equal = splitEqually(batch, 5);
 
@@ -121,7 +121,7 @@ describe('a realistic weighed week of overnight oats in five jars', () => {
     { name: '10 g portions', unit: 'portion10' as const, expected: 3.929006 },
     { name: '12 g units', unit: 'unit12' as const, expected: 3.274172 },
     { name: '15 g exchanges', unit: 'exchange15' as const, expected: 2.619337 },
-  ])('shows an equal jar in $name', ({ unit, expected }) => {
+  ])('shows an equal portion in $name', ({ unit, expected }) => {
     const equal = splitEqually(computeBatch(lines, cooked, 'available'), 5);
 
     expect(gramsToCarbUnit(equal[0].carbGrams!, unit)).toBeCloseTo(expected, 5);
@@ -132,13 +132,13 @@ describe('splitBatch: both carbohydrate bases at once, equal and weighed', () =>
   // Expected values per portion, each from outside the code under test:
   //   T1 porridge (check-values §2.3/T1, FAO recipe method, Greenfield & Southgate 2003, on SR Legacy): 2200 g cooked,
   //     8 portions of 275 g → total 48.3125 g, available 42.000 g (±0.01 g).
-  //   T4 jars (check-values §2.4/T4): 1150 g, 6 jars → total 41.09 g, available 36.20 g (±0.01 g).
+  //   T4 portions (check-values §2.4/T4): 1150 g, 6 portions → total 41.09 g, available 36.20 g (±0.01 g).
   //   T2 and §2.3 weighed porridge portions: 250 g → total 43.92, available 38.18; 300 g → 52.70 / 45.82 (±0.01 g).
-  //   Five oat jars: the hand calculation written out above (226 g → 39.2206 / 45.0831; 227 g → 39.3942 / 45.2825).
+  //   Five oat portions: the hand calculation written out above (226 g → 39.2206 / 45.0831; 227 g → 39.3942 / 45.2825).
   const oatLines = [line(oats, 252), line(wholeMilk, 496), line(greekYogurt, 247), line(apple, 163)];
   it.each([
     { name: 'T1 porridge, 8 equal portions', lines: porridge, cooked: 2200, split: { mode: 'equal' as const, count: 8 }, expected: [{ net: 275, available: 42.0, total: 48.3125 }] },
-    { name: 'T4 jars, 6 equal jars', lines: jars, cooked: 1150, split: { mode: 'equal' as const, count: 6 }, expected: [{ net: 1150 / 6, available: 36.2, total: 41.09 }] },
+    { name: 'T4 portions, 6 equal portions', lines: t4Lines, cooked: 1150, split: { mode: 'equal' as const, count: 6 }, expected: [{ net: 1150 / 6, available: 36.2, total: 41.09 }] },
     {
       name: 'T2 / §2.3 porridge, weighed 250 g and 300 g in containers',
       lines: porridge,
@@ -147,7 +147,7 @@ describe('splitBatch: both carbohydrate bases at once, equal and weighed', () =>
       expected: [{ net: 250, available: 38.18, total: 43.92 }, { net: 300, available: 45.82, total: 52.7 }],
     },
     {
-      name: 'five weighed oat jars (hand calculation)',
+      name: 'five weighed oat portions (hand calculation)',
       lines: oatLines,
       cooked: 1132,
       split: { mode: 'weighed' as const, portions: [{ grossGrams: 438, tareGrams: 212 }, { grossGrams: 436, tareGrams: 209 }] },

@@ -10,7 +10,7 @@ const MIN = 60_000;
 const SECOND = 1_000;
 
 const settings = engineSettings;
-const rest: DayKindRatios = { id: 1, name: 'Rest', blocks: [{ startMinute: 0, endMinute: 1440, carbRatio: 10, correctionFactorMmol: 2 }] };
+const rest: DayKindRatios = { id: 1, name: 'Rest', timesOfDay: [{ startMinute: 0, endMinute: 1440, carbRatio: 10, correctionFactorMmol: 2 }] };
 const input = (over: Partial<DoseInput> = {}): DoseInput => ({ carbsGrams: 60, mealAt: T0, mealMinuteOfDay: 720, ...over });
 const glucose = (value: number, minutesBeforeMeal = 5) => ({ value, unit: 'mmol_l' as const, takenAt: T0 - minutesBeforeMeal * MIN });
 function ok(r: ReturnType<typeof computeDose>) {

@@ -1,4 +1,4 @@
-import { computeDose, findBlock, roundToIncrement, TREAT_LOW_GUIDANCE, type DayKindRatios, type DoseInput, type RatioBlock } from '../../shared/compute/dose';
+import { computeDose, findTimeOfDay, roundToIncrement, TREAT_LOW_GUIDANCE, type DayKindRatios, type DoseInput, type TimeOfDay } from '../../shared/compute/dose';
 import { engineSettings } from '../helpers/dose-settings';
 
 // Dose-engine edges that mutation testing (npm run mutate, 2 December 2026) found untested. Settings are the invented
@@ -6,16 +6,16 @@ import { engineSettings } from '../helpers/dose-settings';
 const T0 = Date.UTC(2026, 2, 1, 12, 0);
 const MIN = 60_000;
 const input = (over: Partial<DoseInput> = {}): DoseInput => ({ carbsGrams: 60, mealAt: T0, mealMinuteOfDay: 720, ...over });
-const rest: DayKindRatios = { id: 1, name: 'Rest', blocks: [{ startMinute: 0, endMinute: 1440, carbRatio: 10, correctionFactorMmol: 2 }] };
+const rest: DayKindRatios = { id: 1, name: 'Rest', timesOfDay: [{ startMinute: 0, endMinute: 1440, carbRatio: 10, correctionFactorMmol: 2 }] };
 
-describe('findBlock with blocks not in time order', () => {
-  const block = (startMinute: number, endMinute: number, carbRatio: number): RatioBlock => ({ startMinute, endMinute, carbRatio, correctionFactorMmol: 2 });
+describe('findTimeOfDay with times of day not in time order', () => {
+  const timeOfDay = (startMinute: number, endMinute: number, carbRatio: number): TimeOfDay => ({ startMinute, endMinute, carbRatio, correctionFactorMmol: 2 });
 
   it.each([
-    { name: 'minute 100 is in the morning block even when the afternoon block is listed first', blocks: [block(660, 1440, 12), block(0, 660, 8)], minute: 100, ratio: 8 },
-    { name: 'minute 100 is before a block that starts at 600: no block', blocks: [block(600, 1440, 12)], minute: 100, ratio: undefined },
-  ])('$name', ({ blocks, minute, ratio }) => {
-    expect(findBlock(blocks, minute)?.carbRatio).toBe(ratio);
+    { name: 'minute 100 is in the morning time of day even when the afternoon one is listed first', timesOfDay: [timeOfDay(660, 1440, 12), timeOfDay(0, 660, 8)], minute: 100, ratio: 8 },
+    { name: 'minute 100 is before a time of day that starts at 600: none', timesOfDay: [timeOfDay(600, 1440, 12)], minute: 100, ratio: undefined },
+  ])('$name', ({ timesOfDay, minute, ratio }) => {
+    expect(findTimeOfDay(timesOfDay, minute)?.carbRatio).toBe(ratio);
   });
 });
 

@@ -30,7 +30,7 @@ const settingsArb: fc.Arbitrary<DoseSettings> = fc
 
 const dayKindArb: fc.Arbitrary<DayKindRatios> = fc
   .record({ carbRatio: fc.double({ min: 1, max: 150, noNaN: true }), cf: fc.double({ min: 0.2, max: 20, noNaN: true }) })
-  .map(({ carbRatio, cf }) => ({ id: 1, name: 'Any', blocks: [{ startMinute: 0, endMinute: 1440, carbRatio, correctionFactorMmol: cf }] }));
+  .map(({ carbRatio, cf }) => ({ id: 1, name: 'Any', timesOfDay: [{ startMinute: 0, endMinute: 1440, carbRatio, correctionFactorMmol: cf }] }));
 
 const inputArb: fc.Arbitrary<DoseInput> = fc.record({
   carbsGrams: fc.double({ min: 0, max: 500, noNaN: true }),
@@ -73,7 +73,7 @@ describe('computeDose properties', () => {
       fc.property(settingsArb, dayKindArb, inputArb, (s, k, i) => {
         const r = computeDose(s, k, i);
         if (r.status !== 'ok') return;
-        expect(r.breakdown.mealUnits).toBeCloseTo(i.carbsGrams / k.blocks[0].carbRatio, 9);
+        expect(r.breakdown.mealUnits).toBeCloseTo(i.carbsGrams / k.timesOfDay[0].carbRatio, 9);
       }),
     );
   });

@@ -1,4 +1,4 @@
-import { computeDose, fatProteinUnits, findBlock, roundToIncrement, type DayKindRatios, type DoseInput } from '../../shared/compute/dose';
+import { computeDose, fatProteinUnits, findTimeOfDay, roundToIncrement, type DayKindRatios, type DoseInput } from '../../shared/compute/dose';
 import { carbUnitToGrams, glucoseToMmol, gramsToCarbUnit, mgdlToMmol, mmolToMgdl } from '../../shared/compute/units';
 import { engineSettings } from '../helpers/dose-settings';
 
@@ -7,7 +7,7 @@ const MIN = 60_000;
 
 const settings = engineSettings;
 function dayKind(carbRatio: number, correctionFactorMmol: number, name = 'Rest'): DayKindRatios {
-  return { id: 1, name, blocks: [{ startMinute: 0, endMinute: 1440, carbRatio, correctionFactorMmol }] };
+  return { id: 1, name, timesOfDay: [{ startMinute: 0, endMinute: 1440, carbRatio, correctionFactorMmol }] };
 }
 function input(over: Partial<DoseInput> = {}): DoseInput {
   return { carbsGrams: 60, mealAt: T0, mealMinuteOfDay: 720, ...over };
@@ -276,11 +276,11 @@ describe('computeDose rules and warnings', () => {
     expect(r.fatProteinUnits).toBe(3);
   });
 
-  it('picks the time block holding the meal time and names it', () => {
+  it('picks the time of day holding the meal time and names it', () => {
     const kind: DayKindRatios = {
       id: 7,
       name: 'Long ride',
-      blocks: [
+      timesOfDay: [
         { startMinute: 0, endMinute: 660, carbRatio: 8, correctionFactorMmol: 2 },
         { startMinute: 660, endMinute: 1440, carbRatio: 12, correctionFactorMmol: 3 },
       ],
@@ -292,15 +292,15 @@ describe('computeDose rules and warnings', () => {
     expect(breakfast.breakdown.carbRatio).toBe(8);
     expect(lunch.breakdown.carbRatio).toBe(12);
     expect(lunch.dayKind).toEqual({ id: 7, name: 'Long ride' });
-    expect(lunch.block).toEqual({ startMinute: 660, endMinute: 1440 });
-    expect(findBlock(kind.blocks, 1439)?.carbRatio).toBe(12);
-    expect(findBlock(kind.blocks, 659.9)?.carbRatio).toBe(8);
-    expect(findBlock(kind.blocks, 1440)?.carbRatio).toBe(8);
-    expect(findBlock(kind.blocks, -1)?.carbRatio).toBe(12);
+    expect(lunch.timeOfDay).toEqual({ startMinute: 660, endMinute: 1440 });
+    expect(findTimeOfDay(kind.timesOfDay, 1439)?.carbRatio).toBe(12);
+    expect(findTimeOfDay(kind.timesOfDay, 659.9)?.carbRatio).toBe(8);
+    expect(findTimeOfDay(kind.timesOfDay, 1440)?.carbRatio).toBe(8);
+    expect(findTimeOfDay(kind.timesOfDay, -1)?.carbRatio).toBe(12);
   });
 
-  it('suggests nothing when no block covers the meal time', () => {
-    const partial: DayKindRatios = { id: 2, name: 'Half', blocks: [{ startMinute: 0, endMinute: 600, carbRatio: 10, correctionFactorMmol: 2 }] };
+  it('suggests nothing when no time of day covers the meal time', () => {
+    const partial: DayKindRatios = { id: 2, name: 'Half', timesOfDay: [{ startMinute: 0, endMinute: 600, carbRatio: 10, correctionFactorMmol: 2 }] };
 
     expect(computeDose(settings(), partial, input({ mealMinuteOfDay: 700 })).status).toBe('no_settings');
   });

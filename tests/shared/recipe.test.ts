@@ -9,7 +9,7 @@ const food = (carbTotal: number, fibre: number, extra: Partial<Nutrients> = {}):
   ...extra,
 });
 
-// check-values §2.4, worked example B (overnight oats jars), per-100 g values from USDA SR Legacy:
+// check-values §2.4, worked example B (overnight oats), per-100 g values from USDA SR Legacy:
 // oats 08120 67.70 / fibre 10.1; whole milk 01077 4.80 / 0; nonfat Greek yogurt 01256 3.60 / 0
 // (8.640 g in 240 g); apple with skin 09003 13.81 / 2.4 (20.715 g, 3.60 g in 150 g);
 // raisins 09298 79.18 / 3.7 (31.672 g, 1.48 g in 40 g).
@@ -22,9 +22,9 @@ const overnightOats: RecipeLine[] = [
 ];
 
 describe('computeRecipe', () => {
-  it('matches the hand calculation for six overnight-oats jars in total carbohydrate', () => {
+  it('matches the hand calculation for six overnight-oats portions in total carbohydrate', () => {
     // By hand: 162.48 + 23.04 + 8.64 + 20.715 + 31.672 = 246.547 g in 1150 g;
-    // 246.547 / 6 = 41.091 g per jar; 246.547 / 1150 × 100 = 21.439 g per 100 g (check-values §2.4).
+    // 246.547 / 6 = 41.091 g per portion; 246.547 / 1150 × 100 = 21.439 g per 100 g (check-values §2.4).
     const r = computeRecipe(overnightOats, { portions: 6, basis: 'total' });
 
     expect(r.rawWeightGrams).toBe(1150);
@@ -40,9 +40,9 @@ describe('computeRecipe', () => {
     ]);
   });
 
-  it('matches the hand calculation for the same jars in available carbohydrate', () => {
+  it('matches the hand calculation for the same portions in available carbohydrate', () => {
     // By hand: fibre 24.24 + 3.60 + 1.48 = 29.32 g; available 246.547 − 29.32 = 217.227 g;
-    // 217.227 / 6 = 36.20 g per jar; 217.227 / 1150 × 100 = 18.889 g per 100 g (check-values §2.4).
+    // 217.227 / 6 = 36.20 g per portion; 217.227 / 1150 × 100 = 18.889 g per 100 g (check-values §2.4).
     const r = computeRecipe(overnightOats, { portions: 6, basis: 'available' });
 
     expect(r.carbTotal.grams).toBeCloseTo(217.227, 6);
@@ -57,7 +57,7 @@ describe('computeRecipe', () => {
     { name: '10 g carbohydrate portions', unit: 'portion10' as const, expected: 4.109117, shown: '4.1 CP' },
     { name: '12 g bread units', unit: 'unit12' as const, expected: 3.424264, shown: '3.4 BU' },
     { name: '15 g exchanges', unit: 'exchange15' as const, expected: 2.739411, shown: '2.7 ex' },
-  ])('gives the per-jar carbohydrate in $name', ({ unit, expected, shown }) => {
+  ])('gives the per-portion carbohydrate in $name', ({ unit, expected, shown }) => {
     const r = computeRecipe(overnightOats, { portions: 6, basis: 'total', unit });
 
     expect(r.carbPerPortion.inUnit).toBeCloseTo(expected, 5);

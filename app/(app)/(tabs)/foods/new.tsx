@@ -1,11 +1,11 @@
 import { Stack } from 'expo-router';
-import { LabelFoodScreen } from '@/components/foods/label-food-screen';
+import { PackFoodScreen } from '@/components/foods/pack-food-screen';
 
-export default function NewLabelFoodRoute() {
+export default function NewPackFoodRoute() {
   return (
     <>
-      <Stack.Screen options={{ title: 'Add a label food · Carbwright' }} />
-      <LabelFoodScreen />
+      <Stack.Screen options={{ title: 'Add a pack food · Carbwright' }} />
+      <PackFoodScreen />
     </>
   );
 }

@@ -1,19 +1,19 @@
 import { router } from 'expo-router';
-import { useCreateLabelFood } from '../api/foods';
+import { useCreatePackFood } from '../api/foods';
 import { Screen } from '../ui/screen';
 import { ErrorState, LoadingState } from '../ui/states';
-import { LabelFoodForm } from './label-food-form';
+import { PackFoodForm } from './pack-food-form';
 import { usePackFoodShareOptions } from './pack-food-share';
 
 /** Add a food from a package label; afterwards its page opens. */
-export function LabelFoodScreen() {
+export function PackFoodScreen() {
   const { me, shareOptions } = usePackFoodShareOptions();
-  const create = useCreateLabelFood();
+  const create = useCreatePackFood();
   if (me.isPending) return <LoadingState />;
   if (me.isError) return <ErrorState error={me.error} onRetry={() => void me.refetch()} />;
   return (
-    <Screen title="Add a label food" subtitle="Type the nutrition panel of a package" backHref="/foods">
-      <LabelFoodForm
+    <Screen title="Add a pack food" subtitle="Type the nutrition panel of a package" backHref="/foods">
+      <PackFoodForm
         shareOptions={shareOptions}
         submitting={create.isPending}
         submitError={create.error}

@@ -1,8 +1,8 @@
-import { createLabelFoodInputSchema, type Food } from '../../shared/schemas/food';
+import { createPackFoodInputSchema, type Food } from '../../shared/schemas/food';
 import { requestFormSchema } from '../ui/request-form-schema';
 
 /** What the form holds: text exactly as typed; turned into numbers only for validation and sending. */
-export type LabelFoodFormValues = {
+export type PackFoodFormValues = {
   name: string;
   brand: string;
   basis: 'per100g' | 'perServing';
@@ -18,13 +18,13 @@ export type LabelFoodFormValues = {
   share: string;
 };
 
-export const LABEL_FOOD_FIELDS = ['name', 'brand', 'basis', 'servingGrams', 'convention', 'carbohydrate', 'fibre', 'sugars', 'protein', 'fat', 'energyKcal'] as const;
+export const PACK_FOOD_FIELDS = ['name', 'brand', 'basis', 'servingGrams', 'convention', 'carbohydrate', 'fibre', 'sugars', 'protein', 'fat', 'energyKcal'] as const;
 
 /** Where a request field's error lands in the form. */
-export const labelFoodFieldOf = (path: string) =>
-  path === 'sharedProfileId' ? ('share' as const) : (LABEL_FOOD_FIELDS as readonly string[]).includes(path) ? (path as (typeof LABEL_FOOD_FIELDS)[number]) : undefined;
+export const packFoodFieldOf = (path: string) =>
+  path === 'sharedProfileId' ? ('share' as const) : (PACK_FOOD_FIELDS as readonly string[]).includes(path) ? (path as (typeof PACK_FOOD_FIELDS)[number]) : undefined;
 
-export const emptyLabelFood: LabelFoodFormValues = {
+export const emptyPackFood: PackFoodFormValues = {
   name: '',
   brand: '',
   basis: 'per100g',
@@ -42,7 +42,7 @@ export const emptyLabelFood: LabelFoodFormValues = {
 const typed = (v: number | null) => (v == null ? '' : String(v));
 
 /** The edit form's starting values from a saved pack food: its values per 100 g as stored (a per-serving label was converted on save). */
-export function labelFoodValuesOf(food: Food): LabelFoodFormValues {
+export function packFoodValuesOf(food: Food): PackFoodFormValues {
   const brand = food.brand ?? '';
   const suffix = brand ? ` (${brand})` : '';
   const us = food.labelConvention === 'us';
@@ -71,7 +71,7 @@ const num = (s: string): number | null | string => {
 };
 
 /** The request body from the typed values (unparsable numbers are passed on for the shared schema to reject). */
-export function toLabelFoodRequest(v: LabelFoodFormValues): Record<string, unknown> {
+export function toPackFoodRequest(v: PackFoodFormValues): Record<string, unknown> {
   return {
     name: v.name,
     brand: v.brand.trim() || null,
@@ -89,4 +89,4 @@ export function toLabelFoodRequest(v: LabelFoodFormValues): Record<string, unkno
 }
 
 /** The form's schema: the shared create schema, read from the typed values (for zodResolver). */
-export const labelFoodFormSchema = requestFormSchema(createLabelFoodInputSchema, (v: LabelFoodFormValues) => ({ request: toLabelFoodRequest(v), fieldOf: labelFoodFieldOf }));
+export const packFoodFormSchema = requestFormSchema(createPackFoodInputSchema, (v: PackFoodFormValues) => ({ request: toPackFoodRequest(v), fieldOf: packFoodFieldOf }));

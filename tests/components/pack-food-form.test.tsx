@@ -1,13 +1,13 @@
 import { fireEvent, render, screen, waitFor } from '@testing-library/react';
-import { LabelFoodForm } from '@/components/foods/label-food-form';
+import { PackFoodForm } from '@/components/foods/pack-food-form';
 import { ApiError } from '@/components/api/client';
 
 const shareOptions = [{ profileId: null, label: 'Only me' }];
 
-describe('LabelFoodForm', () => {
+describe('PackFoodForm', () => {
   it('sends per-serving values as numbers with the label convention, reading a decimal comma', async () => {
     const onSubmit = jest.fn();
-    render(<LabelFoodForm onSubmit={onSubmit} shareOptions={shareOptions} />);
+    render(<PackFoodForm onSubmit={onSubmit} shareOptions={shareOptions} />);
 
     fireEvent.change(screen.getByLabelText('Food name'), { target: { value: 'Oat crackers' } });
     fireEvent.click(screen.getByRole('radio', { name: 'Per serving' }));
@@ -15,7 +15,7 @@ describe('LabelFoodForm', () => {
     fireEvent.click(screen.getByRole('radio', { name: 'US “Total carbohydrate”' }));
     fireEvent.change(screen.getByLabelText('Total carbohydrate'), { target: { value: '24' } });
     fireEvent.change(screen.getByLabelText('Fibre'), { target: { value: '4,5' } });
-    fireEvent.click(screen.getByRole('button', { name: 'Save label food' }));
+    fireEvent.click(screen.getByRole('button', { name: 'Save pack food' }));
 
     await waitFor(() => expect(onSubmit).toHaveBeenCalledTimes(1));
     expect(onSubmit.mock.calls[0][0]).toMatchObject({
@@ -29,13 +29,13 @@ describe('LabelFoodForm', () => {
     { name: 'a negative carbohydrate', serving: '30', carb: '-2', message: 'Carbohydrate cannot be negative.' },
   ])('shows the shared schema message for $name and does not submit', async ({ serving, carb, message }) => {
     const onSubmit = jest.fn();
-    render(<LabelFoodForm onSubmit={onSubmit} shareOptions={shareOptions} />);
+    render(<PackFoodForm onSubmit={onSubmit} shareOptions={shareOptions} />);
 
     fireEvent.change(screen.getByLabelText('Food name'), { target: { value: 'Crackers' } });
     fireEvent.click(screen.getByRole('radio', { name: 'Per serving' }));
     fireEvent.change(await screen.findByLabelText('Serving weight'), { target: { value: serving } });
     fireEvent.change(screen.getByLabelText('Carbohydrate'), { target: { value: carb } });
-    fireEvent.click(screen.getByRole('button', { name: 'Save label food' }));
+    fireEvent.click(screen.getByRole('button', { name: 'Save pack food' }));
 
     expect(await screen.findByText(message)).toBeInTheDocument();
     expect(onSubmit).not.toHaveBeenCalled();
@@ -43,7 +43,7 @@ describe('LabelFoodForm', () => {
 
   it('places a server field error on its field', async () => {
     render(
-      <LabelFoodForm
+      <PackFoodForm
         onSubmit={jest.fn()}
         shareOptions={shareOptions}
         submitError={new ApiError(400, 'validation_failed', 'Some fields are invalid.', { name: ['Give the food a name.'] })}

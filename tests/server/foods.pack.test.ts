@@ -24,13 +24,13 @@ const member = (name = 'Member') => signUpMember(ctx.app, name);
 const post = (token: string, body: unknown) => request(ctx.app).post('/api/foods').set(bearer(token)).send(body as object);
 const euPer100 = { name: 'Oat crackers', basis: 'per100g', convention: 'eu', carbohydrate: 60, fibre: 10, sugars: 2, protein: 12, fat: 7, energyKcal: 371 };
 
-describe('POST /api/foods (label food)', () => {
+describe('POST /api/foods (pack food)', () => {
   it('stores an EU label as available carbohydrate and derives total = available + fibre', async () => {
     const res = await post(owner.token, euPer100);
 
     // check-values.md §1.2 worked example: available 60 g, fibre 10 g, protein 12 g, fat 7 g → 371 kcal
     expect(res.status).toBe(201);
-    expect(res.body.food).toMatchObject({ source: 'label', carbMeasured: 'available', labelConvention: 'eu', ownerUserId: owner.me.user.id });
+    expect(res.body.food).toMatchObject({ source: 'pack', carbMeasured: 'available', labelConvention: 'eu', ownerUserId: owner.me.user.id });
     expect(res.body.food.per100g).toMatchObject({ carbAvailable: 60, carbTotal: 70, fibre: 10, protein: 12, fat: 7, energyKcal: 371 });
     expect(res.body.food.per100g.energyKj).toBeCloseTo(371 * 4.184, 6);
   });
@@ -78,7 +78,7 @@ describe('POST /api/foods (label food)', () => {
     expect(await FoodModel.count()).toBe(before);
   });
 
-  it('keeps a label food private to its owner unless shared with a profile the other person cares for', async () => {
+  it('keeps a pack food private to its owner unless shared with a profile the other person cares for', async () => {
     const created = await post(owner.token, euPer100);
     const id = created.body.food.id;
 
@@ -135,7 +135,7 @@ describe('POST /api/foods (label food)', () => {
     expect(await FoodModel.count()).toBe(before);
   });
 
-  it('lets only the owner delete a label food', async () => {
+  it('lets only the owner delete a pack food', async () => {
     const created = await post(owner.token, { ...euPer100, name: 'Doomed crackers' });
     const id = created.body.food.id;
 
@@ -145,7 +145,7 @@ describe('POST /api/foods (label food)', () => {
   });
 });
 
-describe('label food photos', () => {
+describe('pack food photos', () => {
   const values = { name: 'Photo crackers', basis: 'per100g', convention: 'eu', carbohydrate: 60, fibre: 10 };
 
   it('refuses a "photo" whose bytes are not an image, whatever type it claims, and saves no food', async () => {

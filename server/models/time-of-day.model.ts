@@ -1,8 +1,8 @@
 import { DataTypes, Model } from 'sequelize';
 import type { CreationOptional, InferAttributes, InferCreationAttributes, Sequelize } from 'sequelize';
 
-/** One time-of-day block of a day kind: [startMinute, endMinute), ratio in g/unit, correction factor in mmol/L per unit. */
-export class RatioBlockModel extends Model<InferAttributes<RatioBlockModel>, InferCreationAttributes<RatioBlockModel>> {
+/** One time of day of a day kind: [startMinute, endMinute), ratio in g/unit, correction factor in mmol/L per unit. */
+export class TimeOfDayModel extends Model<InferAttributes<TimeOfDayModel>, InferCreationAttributes<TimeOfDayModel>> {
   declare id: CreationOptional<number>;
   declare dayKindId: number;
   declare startMinute: number;
@@ -11,7 +11,7 @@ export class RatioBlockModel extends Model<InferAttributes<RatioBlockModel>, Inf
   declare correctionFactorMmol: number;
 
   static initModel(sequelize: Sequelize) {
-    RatioBlockModel.init(
+    TimeOfDayModel.init(
       {
         id: { type: DataTypes.INTEGER, autoIncrement: true, primaryKey: true },
         dayKindId: { type: DataTypes.INTEGER, allowNull: false },
@@ -20,7 +20,7 @@ export class RatioBlockModel extends Model<InferAttributes<RatioBlockModel>, Inf
         carbRatio: { type: DataTypes.DOUBLE, allowNull: false },
         correctionFactorMmol: { type: DataTypes.DOUBLE, allowNull: false },
       },
-      { sequelize, tableName: 'ratio_blocks', underscored: true, timestamps: false },
+      { sequelize, tableName: 'times_of_day', underscored: true, timestamps: false },
     );
   }
 }

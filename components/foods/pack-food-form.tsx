@@ -2,8 +2,8 @@ import { zodResolver } from '@hookform/resolvers/zod';
 import { useEffect, useState } from 'react';
 import { useForm, useWatch } from 'react-hook-form';
 import { StyleSheet, View } from 'react-native';
-import type { CreateLabelFoodValues } from '../../shared/schemas/food';
-import type { LabelPhotoFile } from '../api/foods';
+import type { CreatePackFoodValues } from '../../shared/schemas/food';
+import type { PackPhotoFile } from '../api/foods';
 import { applyServerErrors } from '../ui/form-errors';
 import { Button } from '../ui/button';
 import { Callout } from '../ui/callout';
@@ -11,34 +11,34 @@ import { Card } from '../ui/card';
 import { FormTextField } from '../ui/form-text-field';
 import { Text } from '../ui/text';
 import { FormChoiceGroup } from '../ui/form-choice-group';
-import { emptyLabelFood, labelFoodFieldOf, labelFoodFormSchema, type LabelFoodFormValues } from './label-food-form-values';
+import { emptyPackFood, packFoodFieldOf, packFoodFormSchema, type PackFoodFormValues } from './pack-food-form-values';
 import { PhotoInput } from './photo-input';
 
 export type ShareOption = { profileId: number | null; label: string };
 
 type Props = {
-  onSubmit: (values: CreateLabelFoodValues, photo: LabelPhotoFile | null) => void;
+  onSubmit: (values: CreatePackFoodValues, photo: PackPhotoFile | null) => void;
   submitting?: boolean;
   /** The error of the last submit, if any: field errors are placed on their fields. */
   submitError?: unknown;
   shareOptions: ShareOption[];
-  defaultValues?: LabelFoodFormValues;
+  defaultValues?: PackFoodFormValues;
   submitLabel?: string;
   /** False when editing: the label photo is kept as it is. */
   withPhoto?: boolean;
 };
 
-/** The add-a-label-food form: values as printed, per 100 g or per serving, with the label's carbohydrate convention. */
-export function LabelFoodForm({ onSubmit, submitting, submitError, shareOptions, defaultValues = emptyLabelFood, submitLabel = 'Save label food', withPhoto = true }: Props) {
-  const form = useForm<LabelFoodFormValues, unknown, CreateLabelFoodValues>({ resolver: zodResolver(labelFoodFormSchema), defaultValues, mode: 'onSubmit' });
-  const [photo, setPhoto] = useState<LabelPhotoFile | null>(null);
+/** The add-a-pack-food form: values as printed, per 100 g or per serving, with the label's carbohydrate convention. */
+export function PackFoodForm({ onSubmit, submitting, submitError, shareOptions, defaultValues = emptyPackFood, submitLabel = 'Save pack food', withPhoto = true }: Props) {
+  const form = useForm<PackFoodFormValues, unknown, CreatePackFoodValues>({ resolver: zodResolver(packFoodFormSchema), defaultValues, mode: 'onSubmit' });
+  const [photo, setPhoto] = useState<PackPhotoFile | null>(null);
   const [formError, setFormError] = useState<string | undefined>();
   const basis = useWatch({ control: form.control, name: 'basis' });
   const convention = useWatch({ control: form.control, name: 'convention' });
   const per = basis === 'perServing' ? 'per serving' : 'per 100 g';
 
   useEffect(() => {
-    if (submitError) setFormError(applyServerErrors(submitError, form.setError, labelFoodFieldOf));
+    if (submitError) setFormError(applyServerErrors(submitError, form.setError, packFoodFieldOf));
   }, [submitError, form.setError]);
 
   const submit = form.handleSubmit((values) => {

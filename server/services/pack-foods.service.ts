@@ -1,7 +1,7 @@
 import { randomUUID } from 'node:crypto';
 import { ForeignKeyConstraintError } from 'sequelize';
 import type { Food } from '../../shared/schemas/food';
-import type { CreateLabelFoodValues } from '../../shared/schemas/food';
+import type { CreatePackFoodValues } from '../../shared/schemas/food';
 import { emptyNutrients } from '../../shared/compute/nutrients';
 import { AppError } from '../errors';
 import { completeEnergy, deriveCarbs, roundTo } from '../importers/food-rows';
@@ -11,19 +11,19 @@ import { logger } from '../logger';
 import { FoodModel, ProfileAccessModel, RecipeIngredientModel, RecipeModel } from '../models';
 import { getFood } from './foods.service';
 
-export const LABEL_ATTRIBUTION = 'Typed from a package label by a Carbwright member; not checked by anyone else.';
-export const LABEL_LICENCE = 'Private to the member who added it, and to the care team of a profile it is shared with.';
+export const PACK_FOOD_ATTRIBUTION = 'Typed from a package label by a Carbwright member; not checked by anyone else.';
+export const PACK_FOOD_LICENCE = 'Private to the member who added it, and to the care team of a profile it is shared with.';
 
-export const LABEL_PHOTO_MAX_BYTES = 8 * 1024 * 1024;
+export const PACK_PHOTO_MAX_BYTES = 8 * 1024 * 1024;
 
 /** An uploaded label photo with the one storage and photo processor of the app. */
-export type LabelPhoto = { buffer: Buffer; storage: FileStorage; photos: PhotoProcessor };
+export type PackPhoto = { buffer: Buffer; storage: FileStorage; photos: PhotoProcessor };
 
 /**
  * Checks a label photo by its bytes (JPEG, PNG or WebP, whatever its name or declared type), re-encodes it off the
  * request thread like recipe photos (so EXIF and location data are gone) and stores the large variant; returns its key.
  */
-async function storeLabelPhoto(photo: LabelPhoto): Promise<string> {
+async function storePackPhoto(photo: PackPhoto): Promise<string> {
   const header = readImageHeader(photo.buffer);
   if (!header) throw AppError.validation({ photo: ['The photo must be a JPEG, PNG or WebP image.'] });
   if (!isReasonableSize(header)) {
@@ -46,7 +46,7 @@ async function storeLabelPhoto(photo: LabelPhoto): Promise<string> {
  * EU/UK labels print available carbohydrate (fibre separate, Reg. (EU) 1169/2011 Annex I); US labels print total
  * carbohydrate with fibre included (21 CFR 101.9(c)(6)). The other basis is derived where fibre is printed.
  */
-export function labelNutrients(v: CreateLabelFoodValues) {
+export function packFoodNutrients(v: CreatePackFoodValues) {
   const factor = v.basis === 'perServing' ? 100 / v.servingGrams! : 1;
   const scale = (x: number | null) => (x == null ? null : roundTo(x * factor, 6));
   const n = emptyNutrients();
@@ -72,8 +72,8 @@ async function checkShare(userId: number, sharedProfileId: number | null): Promi
 }
 
 /** The stored columns of a pack food from its label values (create and edit use the same rule). */
-function labelFoodColumns(input: CreateLabelFoodValues) {
-  const { nutrients, derived, carbMeasured } = labelNutrients(input);
+function packFoodColumns(input: CreatePackFoodValues) {
+  const { nutrients, derived, carbMeasured } = packFoodNutrients(input);
   const servingNote = input.basis === 'perServing' ? ` per ${input.servingGrams} g serving, converted to per 100 g` : ' per 100 g';
   return {
     name: input.brand ? `${input.name} (${input.brand})` : input.name,
@@ -104,17 +104,17 @@ function labelFoodColumns(input: CreateLabelFoodValues) {
 }
 
 /** Adds a food from a package label, private to the user (or shared with a profile's care team), with its re-encoded photo. */
-export async function createLabelFood(userId: number, input: CreateLabelFoodValues, photo?: LabelPhoto): Promise<Food> {
+export async function createPackFood(userId: number, input: CreatePackFoodValues, photo?: PackPhoto): Promise<Food> {
   await checkShare(userId, input.sharedProfileId);
-  const photoPath = photo ? await storeLabelPhoto(photo) : null;
+  const photoPath = photo ? await storePackPhoto(photo) : null;
   try {
     const food = await FoodModel.create({
-      source: 'label',
+      source: 'pack',
       sourceCode: randomUUID(),
       foodGroup: null,
-      ...labelFoodColumns(input),
-      attribution: LABEL_ATTRIBUTION,
-      licence: LABEL_LICENCE,
+      ...packFoodColumns(input),
+      attribution: PACK_FOOD_ATTRIBUTION,
+      licence: PACK_FOOD_LICENCE,
       ownerUserId: userId,
       photoPath,
     });
@@ -129,11 +129,11 @@ export async function createLabelFood(userId: number, input: CreateLabelFoodValu
  * Replaces the values of a pack food the user owns (404 otherwise). Recipes read food rows when they are shown, so they
  * count the new values from now on; batches keep the values they were cooked with (their ingredients are snapshots).
  */
-export async function updateLabelFood(id: number, userId: number, input: CreateLabelFoodValues): Promise<Food> {
-  const food = await FoodModel.findOne({ where: { id, source: 'label', ownerUserId: userId } });
+export async function updatePackFood(id: number, userId: number, input: CreatePackFoodValues): Promise<Food> {
+  const food = await FoodModel.findOne({ where: { id, source: 'pack', ownerUserId: userId } });
   if (!food) throw AppError.notFound('food');
   await checkShare(userId, input.sharedProfileId);
-  await food.update(labelFoodColumns(input));
+  await food.update(packFoodColumns(input));
   return getFood(food.id, userId);
 }
 
@@ -141,8 +141,8 @@ export async function updateLabelFood(id: number, userId: number, input: CreateL
  * Deletes a pack food the user owns (404 otherwise) with its photo. Refused (409) while the user's own recipes use it,
  * naming them in the message and in `fieldErrors.recipes`; any other recipe still holding it also refuses (409).
  */
-export async function deleteLabelFood(id: number, userId: number, storage: FileStorage): Promise<void> {
-  const food = await FoodModel.findOne({ where: { id, source: 'label', ownerUserId: userId } });
+export async function deletePackFood(id: number, userId: number, storage: FileStorage): Promise<void> {
+  const food = await FoodModel.findOne({ where: { id, source: 'pack', ownerUserId: userId } });
   if (!food) throw AppError.notFound('food');
   const own = await RecipeModel.findAll({
     where: { ownerUserId: userId },
