@@ -1,5 +1,6 @@
 import { queryOptions, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 import type { ChangePasswordInput, Me, PasswordResetInput, PasswordResetRequestInput, Session, SignInInput, SignUpInput } from '../../shared/schemas/auth';
+import { activeProfileStore, useActiveProfileId } from '../auth/active-profile-store';
 import { useSession } from '../auth/session';
 import { apiFetch } from './client';
 
@@ -14,11 +15,16 @@ export function useMe() {
   return useQuery({ ...meQueryOptions(), enabled: status === 'signed-in' });
 }
 
-/** The profile the person is working on: their own first, else the first they may open. */
+/** The profile the person is working on: the one they switched to (kept on this device), else their own, else the first. */
 export function useActiveProfile() {
   const me = useMe();
-  return { ...me, profile: me.data?.profiles[0] };
+  const chosen = useActiveProfileId();
+  const profiles = me.data?.profiles ?? [];
+  return { ...me, profile: profiles.find((p) => p.id === chosen) ?? profiles[0] };
 }
+
+/** Makes another profile the active one; every screen and call follows it. */
+export const switchProfile = (id: number) => activeProfileStore.set(id);
 
 function useStartSession() {
   const { signIn } = useSession();

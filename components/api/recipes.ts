@@ -1,5 +1,5 @@
 import { queryOptions, useMutation, useQuery, useQueryClient, type QueryClient } from '@tanstack/react-query';
-import type { RecipeDetail, RecipeInput, RecipePhoto, RecipeScope, RecipeShare, RecipeSort, RecipeSummary } from '../../shared/schemas/recipe';
+import type { RecipeDetail, RecipeInput, RecipeOffer, RecipePhoto, RecipeScope, RecipeSort, RecipeSummary } from '../../shared/schemas/recipe';
 import { apiFetch, queryString } from './client';
 
 export type RecipeFilters = { scope: RecipeScope; q: string; sort: RecipeSort; profileId?: number };
@@ -76,7 +76,23 @@ export const useUploadRecipePhoto = (id: number) =>
   });
 
 export const useShareRecipe = (id: number) =>
-  useRecipeMutation((email: string) => apiFetch<{ items: RecipeShare[] }>(`/recipes/${id}/shares`, { method: 'POST', body: { email } }));
+  useRecipeMutation((email: string) => apiFetch<{ status: 'offered' }>(`/recipes/${id}/shares`, { method: 'POST', body: { email } }));
+
+export const offerKeys = { mine: ['recipe-offers'] as const };
+
+/** Recipes offered to me and not yet answered. */
+export function useRecipeOffers() {
+  return useQuery({ queryKey: offerKeys.mine, queryFn: () => apiFetch<{ items: RecipeOffer[] }>('/recipe-offers').then((r) => r.items) });
+}
+
+/** Accepts (the recipe joins my shared shelf) or declines an offer. */
+export function useAnswerOffer() {
+  const queryClient = useQueryClient();
+  return useMutation({
+    mutationFn: ({ id, accept }: { id: number; accept: boolean }) => apiFetch<void>(`/recipe-offers/${id}/${accept ? 'accept' : 'decline'}`, { method: 'POST' }),
+    onSuccess: () => queryClient.invalidateQueries(),
+  });
+}
 
 export const useRevokeShare = (id: number) =>
   useRecipeMutation((userId: number) => apiFetch<void>(`/recipes/${id}/shares/${userId}`, { method: 'DELETE' }));

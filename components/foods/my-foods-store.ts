@@ -1,5 +1,6 @@
 import { useSyncExternalStore } from 'react';
 import type { FoodSummary } from '../../shared/schemas/food';
+import { deviceStorage } from '../auth/device-storage';
 
 const KEY = 'carbwright.my-foods';
 const RECENT_MAX = 20;
@@ -7,17 +8,10 @@ const RECENT_MAX = 20;
 type State = { recent: FoodSummary[]; favourites: FoodSummary[] };
 const EMPTY: State = { recent: [], favourites: [] };
 
-function storage(): Storage | undefined {
-  try {
-    return typeof globalThis.localStorage === 'undefined' ? undefined : globalThis.localStorage;
-  } catch {
-    return undefined;
-  }
-}
 
 function load(): State {
   try {
-    const raw = storage()?.getItem(KEY);
+    const raw = deviceStorage()?.getItem(KEY);
     const parsed = raw ? (JSON.parse(raw) as State) : EMPTY;
     return { recent: parsed.recent ?? [], favourites: parsed.favourites ?? [] };
   } catch {
@@ -30,7 +24,7 @@ const listeners = new Set<() => void>();
 
 function set(next: State) {
   state = next;
-  storage()?.setItem(KEY, JSON.stringify(next));
+  deviceStorage()?.setItem(KEY, JSON.stringify(next));
   for (const l of listeners) l();
 }
 

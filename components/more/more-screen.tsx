@@ -43,6 +43,11 @@ export function MoreScreen() {
         ]}
       />
       <LinkCard
+        title="People with access"
+        description="Invite a carer or a clinician to the profile you are on, see who has access and since when, and revoke it."
+        links={[{ href: '/more/people', label: 'People with access' }]}
+      />
+      <LinkCard
         title="Settings"
         description="Units, safety limits, day kinds with their ratios, and the change history."
         links={[{ href: '/settings', label: 'Settings' }]}

@@ -7,6 +7,7 @@ import { Icon, type IconName } from '../ui/icon';
 import { Text } from '../ui/text';
 import { useLayout, useTheme } from '../theme/use-theme';
 import { Brand } from './mark';
+import { ProfileSwitcher } from './profile-switcher';
 
 /** The five areas in the tab bar; `also` names the pages outside the bar that belong to an area (it stays lit there). */
 export const TABS: { name: string; href: Extract<Href, string>; label: string; icon: IconName; also: string[] }[] = [
@@ -14,7 +15,7 @@ export const TABS: { name: string; href: Extract<Href, string>; label: string; i
   { name: 'recipes', href: '/recipes', label: 'Recipes', icon: 'recipes', also: [] },
   { name: 'kitchen', href: '/kitchen', label: 'Kitchen', icon: 'kitchen', also: ['portions', 'batches'] },
   { name: 'plan', href: '/plan', label: 'Plan', icon: 'plan', also: [] },
-  { name: 'more', href: '/more', label: 'You', icon: 'more', also: ['settings', 'foods', 'admin'] },
+  { name: 'more', href: '/more', label: 'You', icon: 'more', also: ['settings', 'foods', 'admin', 'invitation'] },
 ];
 
 /**
@@ -29,6 +30,7 @@ const HIDDEN = [
   { name: 'foods', href: '/foods' },
   { name: 'admin/imports', href: '/admin/imports' },
   { name: 'logbook', href: '/logbook' },
+  { name: 'invitation', href: '/invitation' },
 ];
 
 type Triggers = Parameters<typeof useTabsWithTriggers>[0]['triggers'];
@@ -83,6 +85,7 @@ export function AppTabs() {
     <NavigationContent>
       <View style={[styles.fill, isWide && styles.row]}>
         <View role="main" style={styles.fill}>
+          <ProfileSwitcher />
           <TabSlot style={styles.fill} />
         </View>
         <View

@@ -4,6 +4,7 @@ import { useDeferredValue, useMemo, useState } from 'react';
 import { Pressable, StyleSheet, View } from 'react-native';
 import type { RecipeScope, RecipeSort, RecipeSummary } from '../../shared/schemas/recipe';
 import { useActiveProfile } from '../api/auth';
+import { RecipeOffers } from './recipe-offers';
 import { useLayout, useTheme } from '../theme/use-theme';
 import { Button } from '../ui/button';
 import { Card } from '../ui/card';
@@ -52,6 +53,7 @@ export function RecipesScreen() {
 
   const list = (
     <View style={styles.stack}>
+      <RecipeOffers />
       <View style={styles.row} role="tablist" aria-label="Shelves">
         {SCOPES.map((s) => (
           <Button

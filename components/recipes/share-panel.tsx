@@ -27,7 +27,9 @@ export function SharePanel({ recipeId, shares }: { recipeId: number; shares: Rec
   return (
     <Card>
       <Text variant="heading">Share</Text>
-      <Text color="textMuted">People you share with can read this recipe and copy it into their own library. They cannot change yours.</Text>
+      <Text color="textMuted">
+        We send an offer: once they accept, they can read this recipe and copy it into their own library. They cannot change yours.
+      </Text>
       <View style={styles.row}>
         <View style={styles.grow}>
           <FormTextField
@@ -39,8 +41,9 @@ export function SharePanel({ recipeId, shares }: { recipeId: number; shares: Rec
             onSubmitEditing={() => void submit()}
           />
         </View>
-        <Button label="Share" onPress={() => void submit()} loading={share.isPending} />
+        <Button label="Offer" onPress={() => void submit()} loading={share.isPending} />
       </View>
+      {share.isSuccess ? <Text color="textMuted">Offer sent. It appears here once they accept.</Text> : null}
       {shares.length ? (
         <View style={styles.list} role="list" aria-label="Shared with">
           {shares.map((s) => (

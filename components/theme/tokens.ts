@@ -23,6 +23,16 @@ export const palette = {
 
 export type ThemeColor = keyof typeof palette;
 
+/** The shade of each profile colour (the names live in shared/schemas/auth.ts), dark enough to read on the cream. */
+export const profileShades = {
+  teal: '#1F6B6B',
+  plum: '#6A3A7A',
+  amber: '#8A5A00',
+  sky: '#2B5F8A',
+  rose: '#9A3350',
+  moss: '#4E6B2A',
+} as const;
+
 export const space = { xxs: 2, xs: 4, sm: 8, md: 12, lg: 16, xl: 24, xxl: 32, xxxl: 48 } as const;
 export const radius = { sm: 6, md: 10, lg: 16, pill: 999 } as const;
 

@@ -24,6 +24,9 @@ import { PlanMealModel, PlanMealNameModel, PlannedCookModel, PlanSettingsModel, 
 import { CapturedMailModel, MailOutboxModel } from './mail-outbox.model';
 import { AccountTokenModel } from './account-token.model';
 import { AccountAuditModel } from './account-audit.model';
+import { AccessEventModel } from './access-event.model';
+import { InvitationModel } from './invitation.model';
+import { RecipeShareOfferModel } from './recipe-share-offer.model';
 
 export { DatasetImportModel, FoodMeasureModel, FoodModel, FoodSynonymModel };
 export { ProfileAccessModel, ProfileModel, RevokedTokenModel, UserModel };
@@ -33,6 +36,7 @@ export { RecipeIngredientModel, RecipeModel, RecipeShareModel };
 export { LogEntryChangeModel, LogEntryModel };
 export { PlanMealModel, PlanMealNameModel, PlannedCookModel, PlanSettingsModel, PlanWeekdayModel, ShoppingTickModel };
 export { AccountAuditModel, AccountTokenModel, CapturedMailModel, MailOutboxModel };
+export { AccessEventModel, InvitationModel, RecipeShareOfferModel };
 
 /** Initialises every model once, then wires every association in one place. */
 export function initModels(sequelize: Sequelize): void {
@@ -63,11 +67,20 @@ export function initModels(sequelize: Sequelize): void {
   CapturedMailModel.initModel(sequelize);
   AccountTokenModel.initModel(sequelize);
   AccountAuditModel.initModel(sequelize);
+  InvitationModel.initModel(sequelize);
+  AccessEventModel.initModel(sequelize);
+  RecipeShareOfferModel.initModel(sequelize);
 
   ProfileModel.belongsTo(UserModel, { as: 'owner', foreignKey: 'ownerUserId' });
   ProfileAccessModel.belongsTo(ProfileModel, { as: 'profile', foreignKey: 'profileId' });
   ProfileAccessModel.belongsTo(UserModel, { as: 'user', foreignKey: 'userId' });
   ProfileModel.hasMany(ProfileAccessModel, { as: 'accesses', foreignKey: 'profileId' });
+  InvitationModel.belongsTo(ProfileModel, { as: 'profile', foreignKey: 'profileId' });
+  InvitationModel.belongsTo(UserModel, { as: 'invitedBy', foreignKey: 'invitedByUserId' });
+  AccessEventModel.belongsTo(UserModel, { as: 'actor', foreignKey: 'actorUserId' });
+  AccessEventModel.belongsTo(UserModel, { as: 'subject', foreignKey: 'subjectUserId' });
+  RecipeShareOfferModel.belongsTo(RecipeModel, { as: 'recipe', foreignKey: 'recipeId' });
+  RecipeShareOfferModel.belongsTo(UserModel, { as: 'sender', foreignKey: 'senderUserId' });
   DayKindModel.hasMany(TimeOfDayModel, { as: 'timesOfDay', foreignKey: 'dayKindId' });
   DayKindDayModel.belongsTo(DayKindModel, { as: 'dayKind', foreignKey: 'dayKindId' });
   SettingsChangeModel.belongsTo(UserModel, { as: 'user', foreignKey: 'userId' });

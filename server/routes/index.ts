@@ -1,5 +1,6 @@
 import { Router } from 'express';
 import { buildOpenApiDocument } from '../openapi';
+import { accessRoutes } from './access.routes';
 import { adminRoutes } from './admin.routes';
 import { authRoutes } from './auth.routes';
 import { batchesRoutes } from './batches.routes';
@@ -36,6 +37,7 @@ export function apiRoutes(deps: AppDeps): AnyRoute[] {
     ...recipesRoutes(deps),
     ...photosRoutes(deps),
     ...profilesRoutes(),
+    ...accessRoutes(),
     ...doseRoutes(),
     ...containersRoutes(),
     ...batchesRoutes(deps),

@@ -2,7 +2,7 @@ import multer from 'multer';
 import { idParamSchema } from '../../shared/schemas/common';
 import { recipeInputSchema, recipeListQuerySchema, recipeShareParamsSchema, recipeViewQuerySchema, shareRecipeInputSchema } from '../../shared/schemas/recipe';
 import { removeRecipePhoto, setRecipePhoto } from '../services/photos.service';
-import { copyRecipe, listShares, revokeShare, shareRecipe } from '../services/recipe-sharing.service';
+import { answerOffer, copyRecipe, listOffersForMe, listOffersOfRecipe, listShares, offerRecipe, revokeShare } from '../services/recipe-sharing.service';
 import { createRecipe, deleteRecipe, getRecipeForUser, listRecipes, updateRecipe } from '../services/recipes.service';
 import { access, defineRoute, type AnyRoute, type AppDeps } from './registry';
 
@@ -58,19 +58,40 @@ export function recipesRoutes({ storage, photos }: AppDeps): AnyRoute[] {
       },
     }),
     defineRoute({
-      method: 'get', path: '/recipes/:id/shares', access: signedIn, params, summary: 'Who the owner shared the recipe with.',
-      handler: async ({ params: p, user }, _req, res) => res.json({ items: await listShares(p.id, user.id) }),
+      method: 'get', path: '/recipes/:id/shares', access: signedIn, params, summary: 'Who has accepted the owner\'s offer (`items`) and the offers still open (`offers`).',
+      handler: async ({ params: p, user }, _req, res) => res.json({ items: await listShares(p.id, user.id), offers: await listOffersOfRecipe(p.id, user.id) }),
     }),
     defineRoute({
-      method: 'post', path: '/recipes/:id/shares', access: signedIn, params, body: shareRecipeInputSchema, status: 201,
-      summary: 'Share by `{ email }` (owner); 400 on `email` when no account uses it.',
-      handler: async ({ params: p, body, user }, _req, res) => res.status(201).json({ items: await shareRecipe(p.id, user.id, body.email) }),
+      method: 'post', path: '/recipes/:id/shares', access: signedIn, params, body: shareRecipeInputSchema, status: 202,
+      summary: 'Offer the recipe to `{ email }` (owner): the same 202 whether or not an account uses it; they accept or decline. At most 20 offers an hour (429).',
+      handler: async ({ params: p, body, user }, _req, res) => {
+        await offerRecipe(p.id, user.id, body.email);
+        res.status(202).json({ status: 'offered' });
+      },
     }),
     defineRoute({
       method: 'delete', path: '/recipes/:id/shares/:userId', access: signedIn, params: recipeShareParamsSchema, status: 204,
       summary: 'Withdraw one person\'s access (owner); their copies stay theirs.',
       handler: async ({ params: p, user }, _req, res) => {
         await revokeShare(p.id, user.id, p.userId);
+        res.status(204).end();
+      },
+    }),
+    defineRoute({
+      method: 'get', path: '/recipe-offers', access: signedIn, summary: 'Recipes offered to me and not yet answered.',
+      handler: async ({ user }, _req, res) => res.json({ items: await listOffersForMe(user.id) }),
+    }),
+    defineRoute({
+      method: 'post', path: '/recipe-offers/:id/accept', access: signedIn, params, status: 204, summary: 'Accept an offer: the recipe joins my shared shelf.',
+      handler: async ({ params: p, user }, _req, res) => {
+        await answerOffer(p.id, user.id, true);
+        res.status(204).end();
+      },
+    }),
+    defineRoute({
+      method: 'post', path: '/recipe-offers/:id/decline', access: signedIn, params, status: 204, summary: 'Decline an offer.',
+      handler: async ({ params: p, user }, _req, res) => {
+        await answerOffer(p.id, user.id, false);
         res.status(204).end();
       },
     }),

@@ -37,8 +37,8 @@ export async function getMe(userId: number, known?: User): Promise<Me> {
   const user = known ?? (await UserModel.findByPk(userId))?.toUser();
   if (!user) throw AppError.unauthorized();
   // One plain query: the profiles are read, never changed, here.
-  const rows = await UserModel.sequelize!.query<{ id: number; display_name: string; role: ProfileAccessRole; glucose_unit: Me['profiles'][number]['glucoseUnit']; carb_basis: Me['profiles'][number]['carbBasis']; carb_unit: Me['profiles'][number]['carbUnit']; preferred_food_table: Me['profiles'][number]['preferredFoodTable']; time_zone: string }>(
-    `SELECT p.id, p.display_name, pa.role, p.glucose_unit, p.carb_basis, p.carb_unit, p.preferred_food_table, p.time_zone
+  const rows = await UserModel.sequelize!.query<{ id: number; display_name: string; role: ProfileAccessRole; glucose_unit: Me['profiles'][number]['glucoseUnit']; carb_basis: Me['profiles'][number]['carbBasis']; carb_unit: Me['profiles'][number]['carbUnit']; preferred_food_table: Me['profiles'][number]['preferredFoodTable']; time_zone: string; permissions: GrantPermission[] | null; colour: Me['profiles'][number]['colour']; managed: boolean }>(
+    `SELECT p.id, p.display_name, pa.role, pa.permissions, p.colour, p.managed, p.glucose_unit, p.carb_basis, p.carb_unit, p.preferred_food_table, p.time_zone
        FROM profile_access pa JOIN profiles p ON p.id = pa.profile_id
       WHERE pa.user_id = :userId
       ORDER BY pa.created_at ASC, pa.id ASC`,
@@ -50,6 +50,9 @@ export async function getMe(userId: number, known?: User): Promise<Me> {
       id: r.id,
       displayName: r.display_name,
       access: r.role,
+      permissions: r.permissions ?? [],
+      colour: r.colour,
+      managed: r.managed,
       glucoseUnit: r.glucose_unit,
       carbBasis: r.carb_basis,
       carbUnit: r.carb_unit,

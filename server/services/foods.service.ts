@@ -72,11 +72,11 @@ export async function loadFoods(ids: number[], opts: { userId?: number; measures
 
 /**
  * The one visibility rule for foods: every table food; a pack food to the person who typed it and to the care team
- * (owner, carers, clinicians) of the profile it is shared with. `userId` must be a bound parameter or an integer.
+ * (owner and carers; not clinicians) of the profile it is shared with. `userId` must be a bound parameter or an integer.
  */
 export function visibleFoodSql(alias: string, userId: string): string {
   return `(${alias}.owner_user_id IS NULL OR ${alias}.owner_user_id = ${userId}
-    OR ${alias}.shared_profile_id IN (SELECT pa.profile_id FROM profile_access pa WHERE pa.user_id = ${userId}))`;
+    OR ${alias}.shared_profile_id IN (SELECT pa.profile_id FROM profile_access pa WHERE pa.user_id = ${userId} AND pa.role IN ('owner', 'carer')))`;
 }
 
 /** The visibility rule as a Sequelize condition on FoodModel. */

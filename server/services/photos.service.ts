@@ -5,6 +5,7 @@ import { DecodeTimeoutError, isCutShort, isReasonableSize, MAX_PIXELS, MAX_SIDE,
 import { newStorageKey, type FileStorage } from '../lib/storage';
 import { logger } from '../logger';
 import { RecipeModel } from '../models';
+import { findOwnedRecipe } from './recipes.service';
 
 /** Signed photo links stay valid for one to two hours, and are stable within each hour so browsers can cache them. */
 const LINK_HOURS = 1;
@@ -101,9 +102,8 @@ export async function setRecipePhoto(
   file: Buffer | undefined,
   deps: { storage: FileStorage; processor: PhotoProcessor },
 ): Promise<RecipePhoto> {
-  const recipe = await RecipeModel.findByPk(recipeId);
-  if (!recipe || (recipe.ownerUserId !== userId && recipe.visibility === 'private')) throw AppError.notFound('recipe');
-  if (recipe.ownerUserId !== userId) throw AppError.forbidden('Only the owner can change the photo.');
+  // 404 unless the user may see the recipe (a share with someone else does not make it known), 403 for a viewer.
+  const recipe = await findOwnedRecipe(recipeId, userId);
   if (!file?.length) throw AppError.validation({ photo: ['Choose a photo to upload.'] });
   const processed = await decodeUploadedPhoto(file, deps.processor);
   const largeKey = newStorageKey('recipes', 'jpg');
@@ -123,9 +123,8 @@ export async function setRecipePhoto(
 
 /** Removes a recipe's photo (owner only). */
 export async function removeRecipePhoto(recipeId: number, userId: number, storage: FileStorage): Promise<void> {
-  const recipe = await RecipeModel.findByPk(recipeId);
-  if (!recipe || (recipe.ownerUserId !== userId && recipe.visibility === 'private')) throw AppError.notFound('recipe');
-  if (recipe.ownerUserId !== userId) throw AppError.forbidden('Only the owner can change the photo.');
+  // 404 unless the user may see the recipe (a share with someone else does not make it known), 403 for a viewer.
+  const recipe = await findOwnedRecipe(recipeId, userId);
   const old = [recipe.photoLargeKey, recipe.photoThumbKey];
   await recipe.update({ photoLargeKey: null, photoThumbKey: null });
   await removeQuietly(storage, old);

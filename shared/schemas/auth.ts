@@ -11,6 +11,14 @@ export type ProfileAccessRole = z.infer<typeof profileAccessRoleSchema>;
 
 export { PASSWORD_MIN_LENGTH };
 
+/** Extra permissions a grant can carry (carer: settings; clinician: ratios); what each adds is in profile-actions.ts. */
+export const grantPermissionSchema = z.enum(['settings', 'ratios']);
+
+/** The colours a profile can wear (names; the theme maps each to its shade), shown beside its name wherever numbers are. */
+export const PROFILE_COLOURS = ['teal', 'plum', 'amber', 'sky', 'rose', 'moss'] as const;
+export const profileColourSchema = z.enum(PROFILE_COLOURS);
+export type ProfileColour = z.infer<typeof profileColourSchema>;
+
 export const emailSchema = z
   .string()
   .trim()
@@ -75,6 +83,11 @@ export const profileSummarySchema = z.object({
   id: z.number().int(),
   displayName: z.string(),
   access: profileAccessRoleSchema,
+  /** Extra permissions of this grant (carer: settings; clinician: ratios). */
+  permissions: z.array(grantPermissionSchema),
+  colour: profileColourSchema,
+  /** Kept by a carer for someone without an account. */
+  managed: z.boolean(),
   glucoseUnit: glucoseUnitSchema,
   carbBasis: carbBasisSchema,
   carbUnit: carbUnitSchema,

@@ -7,10 +7,13 @@ import type { ProfileAccessRole } from './auth';
 export const PROFILE_ACTIONS = {
   /** Units, safety limits, day kinds, dates, history: read. */
   'profile.read': ['owner', 'carer', 'clinician'],
-  /** Units, safety limits, active-insulin model. */
-  'settings.write': ['owner', 'carer', 'clinician'],
-  /** Day kinds, their times of day (ratios, correction factors) and which date is which kind. */
-  'ratios.write': ['owner', 'carer', 'clinician'],
+  /** Units, safety limits, active-insulin model: the owner; a carer with the settings permission. */
+  'settings.write': ['owner'],
+  /**
+   * Day kinds, their times of day (ratios, correction factors) and which date is which kind: the owner; a carer with
+   * the settings permission (ratios are dose settings too); a clinician with the ratios permission.
+   */
+  'ratios.write': ['owner'],
   /** Batches, portions, containers, labels: read. */
   'kitchen.read': ['owner', 'carer', 'clinician'],
   /** Cook, portion out, move, throw away. */
@@ -31,7 +34,7 @@ export type ProfileAction = keyof typeof PROFILE_ACTIONS;
 
 /** A grant's extra permissions and the actions each one adds. */
 export const GRANT_PERMISSIONS = {
-  settings: ['settings.write'],
+  settings: ['settings.write', 'ratios.write'],
   ratios: ['ratios.write'],
 } as const satisfies Record<string, readonly ProfileAction[]>;
 

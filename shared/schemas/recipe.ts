@@ -92,6 +92,10 @@ export const recipeShareParamsSchema = idParamSchema.extend({ userId: positiveId
 export type RecipePerson = { id: number; displayName: string };
 export type RecipePhoto = { largeUrl: string; thumbUrl: string };
 export type RecipeShare = { userId: number; displayName: string; email: string; sharedAt: string };
+/** An offer the owner made and nobody has answered yet. */
+export type RecipeOfferSent = { id: number; email: string; offeredAt: string };
+/** A recipe offered to the signed-in person: accept to put it on the shared shelf, or decline. */
+export type RecipeOffer = { id: number; recipeId: number; recipeTitle: string; senderName: string; offeredAt: string };
 
 /** A recipe on a library shelf, with its carbohydrate per portion in the requested basis (full precision). */
 export type RecipeSummary = {

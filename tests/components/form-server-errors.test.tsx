@@ -23,7 +23,7 @@ describe('a server field error lands under its field', () => {
     renderSignedIn(() => <SharePanel recipeId={3} shares={[]} />);
 
     type('Their email address', 'sam@example.test');
-    press('Share');
+    press('Offer');
 
     await expectErrorUnder('Their email address', 'That person already has this recipe.');
   });

@@ -14,7 +14,7 @@ export type Routes = Record<string, Reply | ((body: unknown) => Reply)>;
 
 export const ME: Me = {
   user: { id: 1, email: 'cook@example.test', displayName: 'Robin', role: 'member', createdAt: '2026-03-01T00:00:00.000Z' },
-  profiles: [{ id: 1, displayName: 'Robin', access: 'owner', glucoseUnit: 'mmol_l', carbBasis: 'available', carbUnit: 'g', preferredFoodTable: 'usda_sr28', timeZone: 'UTC' }],
+  profiles: [{ id: 1, displayName: 'Robin', access: 'owner', permissions: [], colour: 'teal', managed: false, glucoseUnit: 'mmol_l', carbBasis: 'available', carbUnit: 'g', preferredFoodTable: 'usda_sr28', timeZone: 'UTC' }],
 };
 
 /**

@@ -83,15 +83,17 @@ describe('recipes in the browser', () => {
     await page.getByText('Per portion (1 of 6)').waitFor();
     await page.getByText('480 g').first().waitFor();
     await page.getByLabel('Their email address', { exact: true }).fill('nobody-at-all@example.test');
-    await page.getByRole('button', { name: 'Share', exact: true }).click();
-    await page.getByText(/No Carbwright account uses that email/).waitFor();
+    await page.getByRole('button', { name: 'Offer', exact: true }).click();
+    // The same answer whether or not an account uses the address (issue 14 §3).
+    await page.getByText('Offer sent. It appears here once they accept.').waitFor();
     await page.getByLabel('Their email address', { exact: true }).fill(guest.email);
-    await page.getByRole('button', { name: 'Share', exact: true }).click();
-    await page.getByRole('button', { name: 'Stop sharing with Juniper' }).waitFor();
+    await page.getByRole('button', { name: 'Offer', exact: true }).click();
+    await page.getByText('Offer sent. It appears here once they accept.').waitFor();
     await rig.shot(page, 'phone-recipe-shared');
 
     const wide = await signedInPage(WIDE, guest.token);
     await wide.goto(`${rig.baseUrl}/recipes`);
+    await wide.getByRole('button', { name: 'Accept Overnight oats' }).click();
     await wide.getByRole('tab', { name: 'Shared with me' }).click();
     await wide.getByRole('listitem', { name: 'Overnight oats' }).waitFor();
     await wide.getByText('Shared by Wren').waitFor();

@@ -50,6 +50,7 @@ const PLACES: { name: string; path: (ids: Ids) => string }[] = [
   { name: 'ratio-review', path: () => '/logbook/review' },
   { name: 'readings-import', path: () => '/logbook/import' },
   { name: 'review-sheet', path: () => '/logbook/print' },
+  { name: 'people', path: () => '/more/people' },
 ];
 
 const SIGNED_OUT = ['/sign-in', '/sign-up'];

@@ -24,9 +24,9 @@ async function owner(name = 'Owner') {
   return { token: s.token, userId: s.me.user.id, profileId: s.me.profiles[0].id };
 }
 
-async function grant(profileId: number, role: 'carer' | 'clinician') {
+async function grant(profileId: number, role: 'carer' | 'clinician', permissions: ('settings' | 'ratios')[] = []) {
   const s = await signUpUser(ctx.app, role);
-  await ProfileAccessModel.create({ profileId, userId: s.me.user.id, role, grantedByUserId: null });
+  await ProfileAccessModel.create({ profileId, userId: s.me.user.id, role, grantedByUserId: null, permissions });
   return s.token;
 }
 
@@ -50,9 +50,9 @@ describe('GET /api/profiles/:profileId/settings', () => {
 });
 
 describe('PUT /api/profiles/:profileId/settings', () => {
-  it.each(['owner', 'carer', 'clinician'] as const)('lets the %s save settings and records who did it', async (role) => {
+  it.each(['owner', 'carer'] as const)('lets the %s (a carer with the settings permission) save settings and records who did it', async (role) => {
     const o = await owner();
-    const token = role === 'owner' ? o.token : await grant(o.profileId, role);
+    const token = role === 'owner' ? o.token : await grant(o.profileId, role, ['settings']);
 
     const res = await request(ctx.app).put(`/api/profiles/${o.profileId}/settings`).set(bearer(token)).send(SETTINGS);
 
@@ -202,9 +202,9 @@ describe('day kinds', () => {
     expect(res.body.error.fieldErrors.name).toBeDefined();
   });
 
-  it('lets a clinician change a ratio, replaces the times of day and records old and new values in the history', async () => {
+  it('lets a clinician with the ratios permission change a ratio, replaces the times of day and records old and new values in the history', async () => {
     const o = await owner();
-    const clinician = await grant(o.profileId, 'clinician');
+    const clinician = await grant(o.profileId, 'clinician', ['ratios']);
     const created = await request(ctx.app).post(`/api/profiles/${o.profileId}/day-kinds`).set(bearer(o.token)).send(REST);
     const timesOfDay = [{ ...REST.timesOfDay[0], carbRatio: 7 }, REST.timesOfDay[1]];
 

@@ -1,5 +1,6 @@
 import request from 'supertest';
-import { RecipeModel, RecipeShareModel } from '../../server/models';
+import { FoodModel, RecipeModel, RecipeShareModel, RecipeShareOfferModel } from '../../server/models';
+import { lastCapturedId, linkIn, waitForMail } from '../helpers/mail';
 import { bearer, signUpMember, signUpUser, useTestApp } from '../helpers/api';
 import { createRecipeAs, insertOatsFoods, oatsRecipe } from './recipes-helpers';
 import { createFood, SR_LEGACY, withAvailable } from '../helpers/foods';
@@ -56,17 +57,37 @@ describe('who sees a recipe', () => {
   });
 });
 
-describe('POST /api/recipes/:id/shares', () => {
-  it('shares by email: the person sees it under shared with me, the owner sees who has it', async () => {
+/** Offers the recipe to the person and has them accept the offer from their list. */
+async function offerAndAccept(id: number, ownerToken: string, person: { token: string; email: string }) {
+  const offered = await request(ctx.app).post(`/api/recipes/${id}/shares`).set(bearer(ownerToken)).send({ email: person.email });
+  const offers = await request(ctx.app).get('/api/recipe-offers').set(bearer(person.token));
+  const offer = offers.body.items.find((o: { recipeId: number }) => o.recipeId === id);
+  const accepted = await request(ctx.app).post(`/api/recipe-offers/${offer.id}/accept`).set(bearer(person.token));
+  return [offered.status, accepted.status];
+}
+
+describe('POST /api/recipes/:id/shares (an offer)', () => {
+  it('offers by email: nothing on their shelf until they accept; then they see it and the owner sees who has it', async () => {
     const { id, people } = await household('private', false);
+    const after = await lastCapturedId(ctx.sequelize);
 
-    const res = await request(ctx.app)
-      .post(`/api/recipes/${id}/shares`)
-      .set(bearer(people.owner.token))
-      .send({ email: people.sharedWith.email.toUpperCase() });
+    const res = await request(ctx.app).post(`/api/recipes/${id}/shares`).set(bearer(people.owner.token)).send({ email: people.sharedWith.email.toUpperCase() });
+    const mail = await waitForMail(ctx.sequelize, people.sharedWith.email, { after });
+    const shelfBefore = await shelf(people.sharedWith.token, 'shared');
+    const pageBefore = await request(ctx.app).get(`/api/recipes/${id}`).set(bearer(people.sharedWith.token));
+    const ownerList = await request(ctx.app).get(`/api/recipes/${id}/shares`).set(bearer(people.owner.token));
+    const offers = await request(ctx.app).get('/api/recipe-offers').set(bearer(people.sharedWith.token));
+    const accept = await request(ctx.app).post(`/api/recipe-offers/${offers.body.items[0].id}/accept`).set(bearer(people.sharedWith.token));
+    const acceptAgain = await request(ctx.app).post(`/api/recipe-offers/${offers.body.items[0].id}/accept`).set(bearer(people.sharedWith.token));
 
-    expect(res.status).toBe(201);
-    expect(res.body.items).toEqual([expect.objectContaining({ userId: people.sharedWith.me.user.id, email: people.sharedWith.email })]);
+    expect(res.status).toBe(202);
+    expect(mail.text).toContain('"Overnight oats"');
+    expect(shelfBefore).toEqual([]);
+    expect(pageBefore.status).toBe(404);
+    expect(ownerList.body).toMatchObject({ items: [], offers: [{ email: people.sharedWith.email }] });
+    expect(offers.body.items).toEqual([expect.objectContaining({ recipeId: id, recipeTitle: 'Overnight oats', senderName: 'Owner' })]);
+    expect(accept.status).toBe(204);
+    expect(acceptAgain.status).toBe(404);
     expect(await shelf(people.sharedWith.token, 'shared')).toEqual([id]);
     expect((await RecipeModel.findByPk(id))!.visibility).toBe('shared');
     const page = await request(ctx.app).get(`/api/recipes/${id}`).set(bearer(people.sharedWith.token));
@@ -75,21 +96,66 @@ describe('POST /api/recipes/:id/shares', () => {
     expect(ownerPage.body.sharedWith).toHaveLength(1);
   });
 
-  it.each([
-    { name: 'an email with no account', email: () => 'nobody-here@example.test', message: /No Carbwright account/ },
-    { name: 'a malformed email', email: () => 'not an email', message: /valid email/ },
-  ])('returns 400 on email for $name and shares nothing', async ({ email, message }) => {
+  it('a declined offer leaves nothing on their shelf and no offer open', async () => {
+    const { id, people } = await household('private', false);
+    await request(ctx.app).post(`/api/recipes/${id}/shares`).set(bearer(people.owner.token)).send({ email: people.sharedWith.email });
+    const offers = await request(ctx.app).get('/api/recipe-offers').set(bearer(people.sharedWith.token));
+
+    const decline = await request(ctx.app).post(`/api/recipe-offers/${offers.body.items[0].id}/decline`).set(bearer(people.sharedWith.token));
+    const strangerTries = await request(ctx.app).post(`/api/recipe-offers/${offers.body.items[0].id}/accept`).set(bearer(people.stranger.token));
+
+    expect(decline.status).toBe(204);
+    expect(strangerTries.status).toBe(404);
+    expect(await shelf(people.sharedWith.token, 'shared')).toEqual([]);
+    expect((await request(ctx.app).get('/api/recipe-offers').set(bearer(people.sharedWith.token))).body.items).toEqual([]);
+    expect(await RecipeShareModel.count({ where: { recipeId: id } })).toBe(0);
+  });
+
+  it('answers the same for an unknown address, which gets a mail asking them to join; the offer waits for their account', async () => {
+    const { id, people } = await household('private', false);
+    const unknown = `newcomer-${process.pid}@example.test`;
+    const after = await lastCapturedId(ctx.sequelize);
+
+    const known = await request(ctx.app).post(`/api/recipes/${id}/shares`).set(bearer(people.owner.token)).send({ email: people.stranger.email });
+    const res = await request(ctx.app).post(`/api/recipes/${id}/shares`).set(bearer(people.owner.token)).send({ email: unknown });
+    const mail = await waitForMail(ctx.sequelize, unknown, { after });
+    const joined = await request(ctx.app).post('/api/auth/sign-up').send({ email: unknown, displayName: 'Newcomer', password: 'correct horse battery' });
+    const offers = await request(ctx.app).get('/api/recipe-offers').set(bearer(joined.body.token));
+
+    expect([known.status, known.body]).toEqual([res.status, res.body]);
+    expect(linkIn(mail, '/sign-up').searchParams.get('email')).toBe(unknown);
+    expect(offers.body.items.map((o: { recipeId: number }) => o.recipeId)).toEqual([id]);
+  });
+
+  it('is rate-limited per sender: the 21st offer in an hour answers 429 and sends nothing', async () => {
+    const { id, people } = await household('private', false);
+    const statuses: number[] = [];
+    for (let i = 0; i < 21; i++) {
+      statuses.push((await request(ctx.app).post(`/api/recipes/${id}/shares`).set(bearer(people.owner.token)).send({ email: `probe${i}@example.test` })).status);
+    }
+    const otherSender = await signUpUser(ctx.app, 'Other');
+    const { id: otherId } = await createRecipeAs(ctx.app, otherSender.token, oatsRecipe(foods, { visibility: 'private' }));
+    const other = await request(ctx.app).post(`/api/recipes/${otherId}/shares`).set(bearer(otherSender.token)).send({ email: 'probe0@example.test' });
+
+    // 20 an hour is the product's own limit (SHARE_OFFERS_PER_HOUR), chosen as common practice for invitation forms.
+    expect(statuses.slice(0, 20).every((s) => s === 202)).toBe(true);
+    expect(statuses[20]).toBe(429);
+    expect(other.status).toBe(202);
+    expect(await RecipeShareOfferModel.count({ where: { email: 'probe20@example.test' } })).toBe(0);
+  });
+
+  it('returns 400 on email for a malformed address and offers nothing', async () => {
     const { id, people } = await household('private', false);
 
-    const res = await request(ctx.app).post(`/api/recipes/${id}/shares`).set(bearer(people.owner.token)).send({ email: email() });
+    const res = await request(ctx.app).post(`/api/recipes/${id}/shares`).set(bearer(people.owner.token)).send({ email: 'not an email' });
 
     expect(res.status).toBe(400);
-    expect(res.body.error.fieldErrors.email[0]).toMatch(message);
-    expect(await RecipeShareModel.count({ where: { recipeId: id } })).toBe(0);
+    expect(res.body.error.fieldErrors.email[0]).toMatch(/valid email/);
+    expect(await RecipeShareOfferModel.count({ where: { recipeId: id } })).toBe(0);
     expect((await RecipeModel.findByPk(id))!.visibility).toBe('private');
   });
 
-  it('lets only the owner share: 404 for a stranger, 403 for someone it is shared with', async () => {
+  it('lets only the owner offer: 404 for a stranger, 403 for someone it is shared with', async () => {
     const { id, people } = await household('shared', true);
 
     const asStranger = await request(ctx.app).post(`/api/recipes/${id}/shares`).set(bearer(people.stranger.token)).send({ email: people.stranger.email });
@@ -97,7 +163,36 @@ describe('POST /api/recipes/:id/shares', () => {
 
     expect(asStranger.status).toBe(404);
     expect(asGuest.status).toBe(403);
-    expect(await RecipeShareModel.count({ where: { recipeId: id } })).toBe(1);
+    expect(await RecipeShareOfferModel.count({ where: { recipeId: id } })).toBe(0);
+  });
+});
+
+describe('a pack food in a shared recipe', () => {
+  it('is copied into the copy (values and photo), so its owner can delete theirs after someone copied the recipe', async () => {
+    const owner = await signUpUser(ctx.app, 'Owner');
+    const friend = await signUpUser(ctx.app, 'Friend');
+    // check-values.md §1.2 worked example label: 60 g available carbohydrate and 10 g fibre per 100 g.
+    const crackers = await request(ctx.app)
+      .post('/api/foods')
+      .set(bearer(owner.token))
+      .send({ name: 'Oat crackers', basis: 'per100g', convention: 'eu', carbohydrate: 60, fibre: 10, protein: 12, fat: 7 });
+    const recipe = await request(ctx.app)
+      .post('/api/recipes')
+      .set(bearer(owner.token))
+      .send({ title: 'Cracker snack', defaultPortions: 2, visibility: 'private', ingredients: [{ foodId: crackers.body.food.id, grams: 100 }] });
+    await offerAndAccept(recipe.body.id, owner.token, friend);
+    const copy = await request(ctx.app).post(`/api/recipes/${recipe.body.id}/copy`).set(bearer(friend.token));
+    await request(ctx.app).delete(`/api/recipes/${recipe.body.id}`).set(bearer(owner.token));
+
+    const deleted = await request(ctx.app).delete(`/api/foods/${crackers.body.food.id}`).set(bearer(owner.token));
+    const mine = await request(ctx.app).get(`/api/recipes/${copy.body.id}`).set(bearer(friend.token));
+    const copiedFood = await FoodModel.findByPk(mine.body.ingredients[0].foodId);
+
+    expect(copy.status).toBe(201);
+    expect(deleted.status).toBe(204);
+    expect(copiedFood).toMatchObject({ source: 'pack', ownerUserId: friend.me.user.id, name: 'Oat crackers', carbAvailable: 60, fibre: 10 });
+    // 100 g at 60 g available per 100 g in 2 portions: 30 g a portion.
+    expect(mine.body.nutrition.carbPerPortion.grams).toBeCloseTo(30, 6);
   });
 });
 
@@ -151,7 +246,7 @@ describe('POST /api/profiles/:profileId/batches (a recipe shared with me)', () =
       .post('/api/recipes')
       .set(bearer(owner.token))
       .send({ title: 'Cracker snack', defaultPortions: 2, visibility: 'private', ingredients: [{ foodId: crackers.body.food.id, grams: 100 }] });
-    const share = await request(ctx.app).post(`/api/recipes/${recipe.body.id}/shares`).set(bearer(owner.token)).send({ email: friend.email });
+    const share = await offerAndAccept(recipe.body.id, owner.token, { token: friend.token, email: friend.email });
 
     const cooked = await postBatch(ctx.app, friend.token, friend.me.profiles[0].id, {
       recipeId: recipe.body.id,
@@ -162,7 +257,7 @@ describe('POST /api/profiles/:profileId/batches (a recipe shared with me)', () =
       split: { mode: 'equal', count: 2 },
     });
 
-    expect([crackers.status, recipe.status, share.status]).toEqual([201, 201, 201]);
+    expect([crackers.status, recipe.status, ...share]).toEqual([201, 201, 202, 204]);
     expect(cooked.status).toBe(201);
     // 100 g at 60 g available per 100 g, split in two: 30 g each.
     expect(cooked.body.carbTotal.grams).toBeCloseTo(60, 6);
