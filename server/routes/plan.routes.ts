@@ -6,13 +6,13 @@ import { getNextPlanMeal, getPlanWeek } from '../services/plan-week.service';
 import { createPlanMeal, deletePlanMeal, deletePlannedCook, savePlannedCook, updatePlanMeal } from '../services/plan.service';
 import { getShoppingList, setShoppingTick, shoppingListCsv } from '../services/shopping-list.service';
 import { loadProfile } from '../services/profiles.service';
-import { localClock } from '../../shared/compute/plan';
+import { toLocalTime } from '../../shared/compute/local-time';
 import { access, defineRoute, type AnyRoute } from './registry';
 
 const idResponse = z.object({ id: z.number().int() });
 
 async function weekDate(profileId: number, date: string | undefined): Promise<string> {
-  return date ?? localClock(Date.now(), (await loadProfile(profileId)).timeZone).date;
+  return date ?? toLocalTime(Date.now(), (await loadProfile(profileId)).timeZone).localDate;
 }
 
 /** The week plan: the week with its numbers, planned meals and cooks, the weekly pattern and meals, the shopping list. */

@@ -1,6 +1,6 @@
 import { Op } from 'sequelize';
 import type { DayKindRatios, DoseSettings } from '../../shared/compute/dose';
-import { minuteToClock } from '../../shared/compute/local-time';
+import { minutesToTime } from '../../shared/schemas/profile-settings';
 import type { LoggedDose } from '../../shared/schemas/dose';
 import { AppError } from '../errors';
 import { DayKindModel, LogEntryModel, ProfileModel, ProfileSettingsModel } from '../models';
@@ -57,5 +57,5 @@ export async function loggedRapidDoses(profileId: number, at: Date, actionTimeHo
   });
   return rows
     .filter((r) => r.units != null && r.units > 0)
-    .map((r) => ({ entryId: r.id, units: r.units!, takenAt: r.occurredAt.toISOString(), localDate: r.localDate, localTime: minuteToClock(r.localMinute) }));
+    .map((r) => ({ entryId: r.id, units: r.units!, takenAt: r.occurredAt.toISOString(), localDate: r.localDate, localTime: minutesToTime(r.localMinute) }));
 }

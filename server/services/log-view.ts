@@ -1,5 +1,5 @@
 import type { Includeable } from 'sequelize';
-import { minuteToClock } from '../../shared/compute/local-time';
+import { minutesToTime } from '../../shared/schemas/profile-settings';
 import { glucoseFromMmol } from '../../shared/compute/units';
 import type { GlucoseUnit } from '../../shared/schemas/units';
 import type { LogEntry } from '../../shared/schemas/logbook';
@@ -22,7 +22,7 @@ export function toLogEntry(row: LogEntryModel, glucoseUnit: GlucoseUnit, changed
     kind: row.kind,
     occurredAt: row.occurredAt.toISOString(),
     localDate: row.localDate,
-    localTime: minuteToClock(row.localMinute),
+    localTime: minutesToTime(row.localMinute),
     timeZone: row.timeZone,
     dayKindId: row.dayKindId,
     dayKindName: row.dayKind?.name ?? null,

@@ -1,8 +1,9 @@
+import { toLocalTime } from '../../shared/compute/local-time';
 import { Op, QueryTypes } from 'sequelize';
 import { carbUnderstated } from '../../shared/compute/batch';
 import type { DayKindRatios } from '../../shared/compute/dose';
 import {
-  addDaysIso, dayKindFor, dayTotals, isoWeekday, localClock, mealCarbGrams, nextPlannedMeal, plannedMealDose, planWarnings, portionsUse, weekDates, weekTotals,
+  addDaysIso, dayKindFor, dayTotals, isoWeekday, mealCarbGrams, nextPlannedMeal, plannedMealDose, planWarnings, portionsUse, weekDates, weekTotals,
   type Holder, type MealAmount, type WarnMeal,
 } from '../../shared/compute/plan';
 import { batchContainsRice } from '../../shared/compute/use-by';
@@ -22,7 +23,7 @@ const fmt = (n: number) => String(Math.round(n * 10) / 10);
 export async function getPlanWeek(profileId: number, date: string | undefined, nowMs: number): Promise<PlanWeek> {
   const { profile, settings } = await loadDoseContext(profileId);
   const plan = await getPlanSettings(profileId);
-  const today = localClock(nowMs, profile.timeZone).date;
+  const today = toLocalTime(nowMs, profile.timeZone).localDate;
   const dates = weekDates(date ?? today, plan.weekStart);
   const [from, to] = [dates[0], dates[6]];
   const basis = profile.carbBasis;

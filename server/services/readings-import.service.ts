@@ -4,7 +4,7 @@ import { parse } from 'csv-parse/sync';
 import { Op } from 'sequelize';
 import { columnDateOrder, parseReadingTime, parseReadingValue, type DateOrder } from '../../shared/compute/reading-rows';
 import { glucoseFromMmol } from '../../shared/compute/units';
-import { localParts } from '../../shared/compute/zoned-time';
+import { toLocalTime } from '../../shared/compute/local-time';
 import type {
   ImportedRow,
   ImportRowError,
@@ -138,8 +138,8 @@ export async function previewReadingsImport(profileId: number, bytes: Buffer, ch
   if (result.dateOrderNeeded) return { ...base, dateOrderNeeded: true, firstRows: [], duplicates: 0, errors: [] };
   const dups = await markDuplicates(profileId, result.readings);
   const firstRows: ImportedRow[] = result.readings.slice(0, PREVIEW_ROWS).map((r) => {
-    const local = localParts(r.at, profile.timeZone);
-    return { line: r.line, occurredAt: new Date(r.at).toISOString(), localDate: local.date, localTime: minutesToTime(local.minute), glucose: glucoseFromMmol(r.mmol, profile.glucoseUnit), duplicate: dups.has(r.line) };
+    const local = toLocalTime(r.at, profile.timeZone);
+    return { line: r.line, occurredAt: new Date(r.at).toISOString(), localDate: local.localDate, localTime: minutesToTime(local.localMinute), glucose: glucoseFromMmol(r.mmol, profile.glucoseUnit), duplicate: dups.has(r.line) };
   });
   return { ...base, dateOrderNeeded: false, firstRows, duplicates: dups.size, errors: result.errors.slice(0, ERRORS_LISTED) };
 }
@@ -165,18 +165,18 @@ export async function importReadings(profileId: number, userId: number, bytes: B
     const dups = await markDuplicates(profileId, result.readings);
     const fresh = result.readings.filter((r) => !dups.has(r.line));
     if (!fresh.length) return { imported: 0, duplicatesSkipped: dups.size, groupKey: null };
-    const locals = fresh.map((r) => localParts(r.at, profile.timeZone));
-    const dates = locals.map((l) => l.date).sort();
+    const locals = fresh.map((r) => toLocalTime(r.at, profile.timeZone));
+    const dates = locals.map((l) => l.localDate).sort();
     const kinds = new Map((await listDayKindDays(profileId, dates[0], dates[dates.length - 1])).map((d) => [d.date, d.dayKindId]));
     const groupKey = randomUUID();
     const rows = fresh.map((r, i) => ({
       profileId,
       kind: 'reading' as const,
       occurredAt: new Date(r.at),
-      localDate: locals[i].date,
-      localMinute: locals[i].minute,
+      localDate: locals[i].localDate,
+      localMinute: locals[i].localMinute,
       timeZone: profile.timeZone,
-      dayKindId: kinds.get(locals[i].date) ?? null,
+      dayKindId: kinds.get(locals[i].localDate) ?? null,
       groupKey,
       enteredByUserId: userId,
       glucoseMmol: r.mmol,

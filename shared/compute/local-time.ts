@@ -18,6 +18,7 @@ function formatterFor(timeZone: string): Intl.DateTimeFormat {
       day: '2-digit',
       hour: '2-digit',
       minute: '2-digit',
+      second: '2-digit',
     });
     formatters.set(timeZone, f);
   }
@@ -46,7 +47,25 @@ export function toLocalTime(instant: Date | number, timeZone: string): LocalTime
   };
 }
 
-/** A minute of the day as HH:MM (the dose engine's local time). */
-export function minuteToClock(minute: number): string {
-  return `${String(Math.floor(minute / 60)).padStart(2, '0')}:${String(minute % 60).padStart(2, '0')}`;
+function offsetMs(instantMs: number, timeZone: string): number {
+  const parts = Object.fromEntries(formatterFor(timeZone).formatToParts(new Date(instantMs)).map((p) => [p.type, p.value]));
+  const asUtc = Date.UTC(+parts.year, +parts.month - 1, +parts.day, +parts.hour, +parts.minute, +parts.second);
+  return asUtc - Math.floor(instantMs / 1000) * 1000;
+}
+
+/**
+ * The instant a local wall-clock time names in a zone. A time skipped when the clocks go forward is read with the
+ * offset before the change (02:30 on a spring-forward night becomes 03:30); a repeated hour takes its first instant.
+ */
+export function zonedToInstant(date: string, minute: number, timeZone: string, second = 0): number {
+  const [y, m, d] = date.split('-').map(Number);
+  const wall = Date.UTC(y, m - 1, d, 0, minute, second);
+  const before = wall - offsetMs(wall - 12 * 3_600_000, timeZone);
+  const after = wall - offsetMs(wall + 12 * 3_600_000, timeZone);
+  const fits = (t: number) => {
+    const p = toLocalTime(t, timeZone);
+    return p.localDate === date && p.localMinute === minute;
+  };
+  const matches = [before, after].filter(fits);
+  return matches.length ? Math.min(...matches) : before;
 }

@@ -28,15 +28,6 @@ export function weekDates(date: string, weekStart: number): string[] {
   return Array.from({ length: 7 }, (_, i) => addDaysIso(first, i));
 }
 
-/** Local date and minute of an instant in an IANA time zone. */
-export function localClock(nowMs: number, timeZone: string): { date: string; minute: number } {
-  const parts = new Intl.DateTimeFormat('en-CA', {
-    timeZone, year: 'numeric', month: '2-digit', day: '2-digit', hour: '2-digit', minute: '2-digit', hourCycle: 'h23',
-  }).formatToParts(new Date(nowMs));
-  const get = (t: string) => parts.find((p) => p.type === t)!.value;
-  return { date: `${get('year')}-${get('month')}-${get('day')}`, minute: Number(get('hour')) * 60 + Number(get('minute')) };
-}
-
 export type DayKindSource = 'date' | 'pattern' | 'default';
 
 /** The kind of day in force on a date: the one set for the date, else the weekly pattern's, else the default. */

@@ -1,5 +1,5 @@
 import { glucoseToMmol } from './units';
-import { zonedToInstant } from './zoned-time';
+import { zonedToInstant } from './local-time';
 import type { GlucoseUnit } from '../schemas/units';
 
 /**

@@ -1,4 +1,5 @@
-import { isTimeZone, minuteToClock, toLocalTime } from '../../shared/compute/local-time';
+import { isTimeZone, toLocalTime } from '../../shared/compute/local-time';
+import { minutesToTime } from '../../shared/schemas/profile-settings';
 
 // Summer time in the EU (and the UK, which follows the same dates): Directive 2000/84/EC, art. 2 and 3 — starts and
 // ends at 01:00 UTC on the last Sunday of March and of October. 2026: Sunday 29 March and Sunday 25 October.
@@ -30,7 +31,7 @@ describe('toLocalTime', () => {
     const local = toLocalTime(new Date(at), tz);
 
     expect(local.localDate).toBe(date);
-    expect(minuteToClock(local.localMinute)).toBe(time);
+    expect(minutesToTime(local.localMinute)).toBe(time);
   });
 
   it('accepts epoch milliseconds as well as a Date', () => {

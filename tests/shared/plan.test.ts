@@ -1,8 +1,8 @@
+import { toLocalTime } from '../../shared/compute/local-time';
 import type { DayKindRatios } from '../../shared/compute/dose';
 import {
   dayKindFor,
   dayTotals,
-  localClock,
   mealCarbGrams,
   nextPlannedMeal,
   planWarnings,
@@ -181,7 +181,7 @@ describe('planWarnings: each warning by its own case', () => {
   });
 });
 
-describe('nextPlannedMeal and localClock', () => {
+describe('nextPlannedMeal and the local clock it reads', () => {
   it('offers the first meal not logged from today on', () => {
     const meals = [
       { id: 1, date: '2026-03-09', minute: 450, logged: false },
@@ -195,10 +195,10 @@ describe('nextPlannedMeal and localClock', () => {
 
   it.each([
     // 2026-03-10T23:30Z is 00:30 the next day in Berlin (UTC+1 in March before the switch) and 19:30 in New York (UTC−4 after 8 March).
-    { zone: 'Europe/Berlin', expected: { date: '2026-03-11', minute: 30 } },
-    { zone: 'America/New_York', expected: { date: '2026-03-10', minute: 19 * 60 + 30 } },
-    { zone: 'UTC', expected: { date: '2026-03-10', minute: 23 * 60 + 30 } },
+    { zone: 'Europe/Berlin', expected: { localDate: '2026-03-11', localMinute: 30 } },
+    { zone: 'America/New_York', expected: { localDate: '2026-03-10', localMinute: 19 * 60 + 30 } },
+    { zone: 'UTC', expected: { localDate: '2026-03-10', localMinute: 23 * 60 + 30 } },
   ])('local clock in $zone', ({ zone, expected }) => {
-    expect(localClock(Date.parse('2026-03-10T23:30:00Z'), zone)).toEqual(expected);
+    expect(toLocalTime(Date.parse('2026-03-10T23:30:00Z'), zone)).toEqual(expected);
   });
 });

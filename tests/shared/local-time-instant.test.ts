@@ -1,9 +1,9 @@
-import { isKnownTimeZone, localParts, zonedToInstant } from '../../shared/compute/zoned-time';
+import { isTimeZone, toLocalTime, zonedToInstant } from '../../shared/compute/local-time';
 
 // Summer time in the EU/UK starts on the last Sunday of March and ends on the last Sunday of October, both at
 // 01:00 UTC (Directive 2000/84/EC; the UK's Summer Time Order follows it): 29 March and 25 October 2026.
 // Japan keeps UTC+9 all year (from memory).
-describe('localParts', () => {
+describe('toLocalTime (history side)', () => {
   const cases = [
     { name: 'London, 23:30 GMT the night before the change', at: '2026-03-28T23:30:00Z', zone: 'Europe/London', date: '2026-03-28', minute: 23 * 60 + 30 },
     { name: 'London, 00:30 GMT on the change night', at: '2026-03-29T00:30:00Z', zone: 'Europe/London', date: '2026-03-29', minute: 30 },
@@ -11,7 +11,7 @@ describe('localParts', () => {
     { name: 'Tokyo, 15:30 UTC is 00:30 the next day', at: '2026-03-01T15:30:00Z', zone: 'Asia/Tokyo', date: '2026-03-02', minute: 30 },
   ];
   it.each(cases)('$name', ({ at, zone, date, minute }) => {
-    expect(localParts(Date.parse(at), zone)).toEqual({ date, minute });
+    expect(toLocalTime(Date.parse(at), zone)).toEqual({ localDate: date, localMinute: minute });
   });
 });
 
@@ -28,7 +28,7 @@ describe('zonedToInstant', () => {
   });
 
   it('knows real zone names and refuses made-up ones', () => {
-    expect(isKnownTimeZone('Europe/Berlin')).toBe(true);
-    expect(isKnownTimeZone('Mars/Olympus')).toBe(false);
+    expect(isTimeZone('Europe/Berlin')).toBe(true);
+    expect(isTimeZone('Mars/Olympus')).toBe(false);
   });
 });
