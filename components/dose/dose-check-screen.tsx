@@ -69,6 +69,7 @@ export function DoseCheckScreen(params: DoseCheckParams) {
               suggestion={suggest.data}
               portionCode={picked?.code}
               label={picked?.label}
+              planMealId={params.plan ? Number(params.plan) || undefined : undefined}
             />
           ) : null}
         </View>

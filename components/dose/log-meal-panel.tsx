@@ -17,7 +17,7 @@ import { formatDoseUnits } from './insulin-format';
 /** What was actually taken, as typed: pre-filled with the suggestion, both parts of a two-part dose. */
 export type TakenValues = { nowUnits: string; laterUnits: string };
 
-type Context = { request: DoseRequest; suggestion: DoseSuggestion; portionCode?: string; label?: string };
+type Context = { request: DoseRequest; suggestion: DoseSuggestion; portionCode?: string; label?: string; planMealId?: number };
 
 const blank = (s: string) => s.trim() === '';
 
@@ -29,7 +29,7 @@ export function takenDefaults(s: DoseSuggestion): TakenValues {
 }
 
 /** The log-a-meal request from the dose check that was shown and the units typed as taken. */
-export function toLogMealRequest(v: TakenValues, { request, suggestion, portionCode, label }: Context) {
+export function toLogMealRequest(v: TakenValues, { request, suggestion, portionCode, label, planMealId }: Context) {
   const mealAt = request.mealAt ?? new Date().toISOString();
   const laterAt = suggestion.status === 'ok' && suggestion.split ? new Date(Date.parse(mealAt) + suggestion.split.laterMinutes * 60_000).toISOString() : mealAt;
   const doses = [
@@ -45,6 +45,7 @@ export function toLogMealRequest(v: TakenValues, { request, suggestion, portionC
     doses,
     // The whole suggestion shown (with its caution and engine versions) and the request behind it.
     suggestion: { ...suggestion, request },
+    ...(planMealId ? { planMealId } : {}),
   };
   const fieldOf = (path: string) => (path.startsWith('doses.0') ? (blank(v.nowUnits) ? 'laterUnits' : 'nowUnits') : path.startsWith('doses.1') ? 'laterUnits' : undefined);
   return { request: body, fieldOf };

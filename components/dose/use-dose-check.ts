@@ -15,7 +15,7 @@ import { scrollIntoView } from '../ui/scroll-into-view';
 import { doseFormDefaults, doseFormSchema, toDoseRequest, type DoseFormValues, type DoseRequestContext } from './dose-request';
 
 /** `log`: the log-a-meal flow (the reading counts as taken now unless changed; the result offers Save). */
-export type DoseCheckParams = { carbs?: string; portion?: string; label?: string; log?: string };
+export type DoseCheckParams = { carbs?: string; portion?: string; label?: string; log?: string; /** The week plan's meal being logged. */ plan?: string };
 
 /** Everything the dose check needs: its data, the one form, the portion lookup and the server's answer. */
 export function useDoseCheck({ carbs, portion, label, log }: DoseCheckParams) {

@@ -23,8 +23,15 @@ export function TodayNextMealCard({ profileId, unit }: { profileId: number; unit
       <Text>Carbohydrate: {mealCarbText(meal, unit)}</Text>
       <Text>Planned dose: {plannedDoseText(meal.dose)}</Text>
       <Text color="textMuted">{PLANNED_DOSE_WORDS}</Text>
-      <Link href={meal.portionCode ? doseCheckHref({ code: meal.portionCode, carbGrams: meal.carb.grams, label: meal.title }) : '/dose-check'} asChild>
-        <Button variant="secondary" label="Check a dose for it" />
+      <Link
+        href={
+          meal.portionCode
+            ? doseCheckHref({ code: meal.portionCode, carbGrams: meal.carb.grams, label: meal.title }, true, meal.id)
+            : `/dose-check?log=1&plan=${meal.id}${meal.carb.grams != null ? `&carbs=${meal.carb.grams}&label=${encodeURIComponent(meal.title)}` : ''}`
+        }
+        asChild
+      >
+        <Button label="Log this meal" />
       </Link>
     </Card>
   );

@@ -5,7 +5,7 @@ import { toLocalTime } from '../../shared/compute/local-time';
 import { carbInBasis } from '../../shared/compute/nutrients';
 import type { CreateLogEntryInput, LogEntry, LogGroup, LogMealInput, MealInput } from '../../shared/schemas/logbook';
 import { AppError } from '../errors';
-import { BatchModel, DayKindModel, LogEntryChangeModel, LogEntryModel, PortionModel, type ProfileModel } from '../models';
+import { BatchModel, DayKindModel, LogEntryChangeModel, LogEntryModel, PlanMealModel, PortionModel, type ProfileModel } from '../models';
 import { dayKindIdForDate } from './day-kind-days.service';
 import { readingToMmol } from './dose.service';
 import { getFood } from './foods.service';
@@ -134,7 +134,10 @@ async function saveGroup(profileId: number, userId: number, now: Date, write: (s
 export async function logMeal(profileId: number, userId: number, input: LogMealInput, now: Date = new Date()): Promise<LogGroup> {
   return saveGroup(profileId, userId, now, async (s) => {
     const mealAt = instant(input.occurredAt, now);
-    const meal = await insertEntry(s, 'meal', mealAt, await resolveMeal(s, input.meal));
+    if (input.planMealId != null && !(await PlanMealModel.findOne({ where: { id: input.planMealId, profileId }, transaction: s.transaction }))) {
+      throw AppError.validation({ planMealId: ['That planned meal is not on this profile’s plan.'] });
+    }
+    const meal = await insertEntry(s, 'meal', mealAt, { ...(await resolveMeal(s, input.meal)), planMealId: input.planMealId ?? null });
     const rows = [meal];
     if (input.reading) {
       const unit = input.reading.glucoseUnit ?? s.profile.glucoseUnit;

@@ -137,6 +137,8 @@ export const logMealInputSchema = z.object({
   reading: readingInputSchema.nullable().optional(),
   doses: z.array(takenDoseInputSchema).max(2, 'At most two parts of one dose.').optional(),
   suggestion: shownSuggestionSchema.nullable().optional(),
+  /** The week plan's meal this fulfils: the plan then shows it as logged. */
+  planMealId: z.number().int().positive('Not a valid planned meal.').optional(),
 });
 export type LogMealInput = z.infer<typeof logMealInputSchema>;
 

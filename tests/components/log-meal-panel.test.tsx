@@ -23,7 +23,7 @@ describe('LogMealPanel', () => {
       'POST /profiles/1/log-entries/meals': [201, { groupKey: GROUP, entries: [entry('meal'), entry('reading'), entry('rapid_dose', { dose: { units: 2 } }), entry('rapid_dose', { dose: { units: 1.5 } })] }],
       [`POST /profiles/1/log-groups/${GROUP}/undo`]: [200, { groupKey: GROUP, entries: [] }],
     });
-    renderSignedIn(() => <LogMealPanel profileId={1} request={request} suggestion={suggestion} portionCode="ABC234" label="Overnight oats" />);
+    renderSignedIn(() => <LogMealPanel profileId={1} request={request} suggestion={suggestion} portionCode="ABC234" label="Overnight oats" planMealId={9} />);
 
     const now = (await screen.findByLabelText(/Taken now/)) as HTMLInputElement;
     expect(now.value).toBe('2.5');
@@ -41,6 +41,7 @@ describe('LogMealPanel', () => {
       reading: { glucose: 7.2, glucoseUnit: 'mmol_l' },
       doses: [{ units: 2, occurredAt: '2026-03-11T07:30:00.000Z' }, { units: 1.5, occurredAt: '2026-03-11T08:30:00.000Z' }],
       suggestion: { caution: { version: 'c1' }, engineVersion: 'e1' },
+      planMealId: 9,
     });
     expect(posts[1][0]).toMatch(new RegExp(`/log-groups/${GROUP}/undo$`));
   });

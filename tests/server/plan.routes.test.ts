@@ -107,12 +107,14 @@ describe('the week plan', () => {
     const [m2] = (await p.api('post', '/plan/meals').send({ date: today, mealNameId: p.lunchId, time: '23:59', source: 'carb', carbGrams: 55 }).expect(201)).body.ids;
     expect((await p.api('get', '/plan/next-meal').expect(200)).body.meal.id).toBe(m1);
 
-    await LogEntryModel.create({
-      profileId: p.profileId, kind: 'meal', occurredAt: new Date(), localDate: today, localMinute: 5, timeZone: 'UTC', dayKindId: null, groupKey: null,
-      enteredByUserId: p.userId, title: 'Breakfast', mealSource: 'typed', portionId: null, recipeId: null, foodId: null, grams: null, plateTareGrams: null,
-      carbAvailableG: 42, carbTotalG: 42, planMealId: m1, glucoseMmol: null, readingSource: null, units: null, plannedUnits: null, suggestion: null,
-      intensity: null, durationMinutes: null, note: null, deletedAt: null,
-    });
+    // Logged through the logbook's own endpoint, naming the planned meal it fulfils.
+    await p.api('post', '/log-entries/meals').send({ meal: { source: 'typed', carbsGrams: 42, note: 'Breakfast' }, planMealId: m1 }).expect(201);
+    // A planned meal of another profile is refused and nothing is written.
+    const other = await setUp();
+    const [theirs] = (await other.api('post', '/plan/meals').send({ date: today, mealNameId: other.breakfastId, time: '00:00', source: 'carb', carbGrams: 10 }).expect(201)).body.ids;
+    const refused = await p.api('post', '/log-entries/meals').send({ meal: { source: 'typed', carbsGrams: 10, note: 'x' }, planMealId: theirs }).expect(400);
+    expect(refused.body.error.fieldErrors.planMealId).toBeDefined();
+    expect(await LogEntryModel.count({ where: { profileId: p.profileId } })).toBe(1);
 
     const week = (await p.api('get', `/plan/week?date=${today}`).expect(200)).body;
     const day = week.days.find((d: { date: string }) => d.date === today);

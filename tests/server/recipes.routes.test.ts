@@ -159,7 +159,11 @@ describe('PUT /api/recipes/:id', () => {
     const friend = await signUpUser(ctx.app, 'Friend');
     const stranger = await signUpUser(ctx.app, 'Stranger');
     const { id } = await createRecipeAs(ctx.app, cook.token, oatsRecipe(foods));
-    await request(ctx.app).post(`/api/recipes/${id}/shares`).set(bearer(cook.token)).send({ email: friend.email });
+    // Shares are offers: the friend accepts it first, then can see the recipe but not change it.
+    await request(ctx.app).post(`/api/recipes/${id}/shares`).set(bearer(cook.token)).send({ email: friend.email }).expect(202);
+    const offers = await request(ctx.app).get('/api/recipe-offers').set(bearer(friend.token));
+    const offer = offers.body.items.find((o: { recipeId: number }) => o.recipeId === id);
+    await request(ctx.app).post(`/api/recipe-offers/${offer.id}/accept`).set(bearer(friend.token)).expect(204);
 
     const asStranger = await request(ctx.app).put(`/api/recipes/${id}`).set(bearer(stranger.token)).send(oatsRecipe(foods, { title: 'Mine now' }));
     const asFriend = await request(ctx.app).put(`/api/recipes/${id}`).set(bearer(friend.token)).send(oatsRecipe(foods, { title: 'Mine now' }));
