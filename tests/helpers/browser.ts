@@ -1,3 +1,4 @@
+import net from 'node:net';
 import fs from 'node:fs';
 import type { Server } from 'node:http';
 import type { AddressInfo } from 'node:net';
@@ -27,13 +28,15 @@ export type BrowserRig = {
 export async function startBrowserRig(suite: string): Promise<BrowserRig> {
   const dist = process.env.WEB_DIST_DIR ?? path.join(REPO_ROOT, 'dist');
   if (!fs.existsSync(path.join(dist, 'index.html'))) throw new Error(`No web build in ${dist}: run through npm test.`);
-  const config = testConfig({ WEB_DIST_DIR: dist });
+  // The port is known before the app is made, so links that leave the page (label QR codes, e-mails) name this server.
+  const port = await freePort();
+  const baseUrl = `http://127.0.0.1:${port}`;
+  const config = testConfig({ WEB_DIST_DIR: dist, PUBLIC_URL: baseUrl });
   const sequelize = await openTestDatabase();
   const app = createApp(config, sequelize);
   const server: Server = await new Promise((resolve) => {
-    const s = app.listen(0, '127.0.0.1', () => resolve(s));
+    const s = app.listen(port, '127.0.0.1', () => resolve(s));
   });
-  const baseUrl = `http://127.0.0.1:${(server.address() as AddressInfo).port}`;
   const userDir = fs.mkdtempSync(path.join(os.tmpdir(), 'cw-chromium-'));
   const contexts: BrowserContext[] = [];
   const shotsDir = path.join(process.env.TEST_OUTPUT_DIR ?? path.join(REPO_ROOT, 'test-output'), 'screens', suite);
@@ -77,4 +80,16 @@ export async function startBrowserRig(suite: string): Promise<BrowserRig> {
       fs.rmSync(userDir, { recursive: true, force: true });
     },
   };
+}
+
+/** A loopback port nobody is listening on right now. */
+function freePort(): Promise<number> {
+  return new Promise((resolve, reject) => {
+    const probe = net.createServer();
+    probe.once('error', reject);
+    probe.listen(0, '127.0.0.1', () => {
+      const { port } = probe.address() as AddressInfo;
+      probe.close(() => resolve(port));
+    });
+  });
 }
