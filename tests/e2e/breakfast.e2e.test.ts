@@ -57,8 +57,7 @@ function scanLabel(qrDataUrl: string): string {
 
 async function signedIn(token: string, viewport: { width: number; height: number }): Promise<Page> {
   const page = await rig.newPage(viewport);
-  await page.goto(`${rig.baseUrl}/sign-in`);
-  await page.evaluate((t) => localStorage.setItem('carbwright.session', t), token);
+  await rig.signIn(page, token);
   await page.goto(`${rig.baseUrl}/`);
   return page;
 }

@@ -50,8 +50,7 @@ describe('the week plan in the browser', () => {
 
   it('at phone width plans a week from an empty plan: weekly pattern, five breakfasts from one batch, one planned cook', async () => {
     const page = await rig.newPage(PHONE);
-    await page.goto(`${rig.baseUrl}/sign-in`);
-    await page.evaluate((t) => localStorage.setItem('carbwright.session', t), pat.token);
+    await rig.signIn(page, pat.token);
     await page.goto(`${rig.baseUrl}/plan`);
     await page.getByText('No meals planned.').waitFor();
     await rig.shot(page, 'phone-1-empty');
@@ -95,8 +94,7 @@ describe('the week plan in the browser', () => {
 
   it('at wide width shows the week as seven columns with day totals', async () => {
     const page = await rig.newPage(WIDE);
-    await page.goto(`${rig.baseUrl}/sign-in`);
-    await page.evaluate((t) => localStorage.setItem('carbwright.session', t), pat.token);
+    await rig.signIn(page, pat.token);
     await page.goto(`${rig.baseUrl}/plan`);
     const week = page.getByLabel('The week');
     await week.getByLabel('Day totals').first().waitFor();
