@@ -103,7 +103,7 @@ export function AddEntryForm({ profileId, glucoseUnit, timeZone, plannedLongUnit
           { value: 'clock', label: 'Clock time today' },
         ]}
       />
-      {when === 'ago' ? <FormTextField control={form.control} name="whenValue" label="Minutes ago" unit="min" keyboardType="number-pad" /> : null}
+      {when === 'ago' ? <FormTextField control={form.control} name="whenValue" label="How many minutes ago" unit="min" keyboardType="number-pad" /> : null}
       {when === 'clock' ? <FormTextField control={form.control} name="whenValue" label="Clock time" placeholder="07:30" hint="In the profile's time zone." /> : null}
       {formError ? <Callout tone="danger">{formError}</Callout> : null}
       {saved ? <Callout tone="ok">{saved}</Callout> : null}
