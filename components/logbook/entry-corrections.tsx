@@ -2,7 +2,7 @@ import { useState } from 'react';
 import { StyleSheet, View } from 'react-native';
 import { toLocalTime } from '../../shared/compute/local-time';
 import type { LogEntry, LogEntryChange } from '../../shared/schemas/logbook';
-import type { LogHistoryPage } from '../../shared/schemas/logbook-read';
+import { LOG_KIND_WORDS, type LogHistoryPage } from '../../shared/schemas/logbook-read';
 import { minutesToTime } from '../../shared/schemas/profile-settings';
 import { useDeleteLogEntry, useLogEntryChanges } from '../api/logbook';
 import { Button } from '../ui/button';
@@ -50,13 +50,14 @@ export function EntryCorrections({ profileId, entry, units }: { profileId: numbe
   const [mode, setMode] = useState<Mode>('idle');
   const remove = useDeleteLogEntry(profileId);
   const toggle = (m: Mode) => setMode(mode === m ? 'idle' : m);
+  const which = `${LOG_KIND_WORDS[entry.kind].toLowerCase()} of ${dayText(entry.localDate)} ${entry.localTime}`;
   return (
     <View style={styles.wrap}>
       <View style={styles.row}>
-        <Button variant="quiet" label="Edit" aria-label={`Edit the entry at ${entry.localTime}`} onPress={() => toggle('edit')} />
-        <Button variant="quiet" label="Delete" aria-label={`Delete the entry at ${entry.localTime}`} onPress={() => toggle('delete')} />
+        <Button variant="quiet" label="Edit" aria-label={`Edit ${which}`} onPress={() => toggle('edit')} />
+        <Button variant="quiet" label="Delete" aria-label={`Delete ${which}`} onPress={() => toggle('delete')} />
         {entry.changed ? (
-          <Button variant="quiet" label={mode === 'changes' ? 'Hide changes' : 'Show changes'} aria-label={`Changes to the entry at ${entry.localTime}`} onPress={() => toggle('changes')} />
+          <Button variant="quiet" label={mode === 'changes' ? 'Hide changes' : 'Show changes'} aria-label={`Changes to ${which}`} onPress={() => toggle('changes')} />
         ) : null}
       </View>
       {mode === 'edit' ? <EditEntryForm profileId={profileId} entry={entry} glucoseUnit={units.glucoseUnit} carbBasis={units.carbBasis} onDone={() => setMode('idle')} /> : null}

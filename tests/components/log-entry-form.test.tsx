@@ -79,12 +79,12 @@ describe('Corrections in History', () => {
     });
     renderSignedIn(() => <EntryCorrections profileId={1} entry={dose} units={units} />);
 
-    fireEvent.click(await screen.findByRole('button', { name: 'Edit the entry at 07:30' }));
+    fireEvent.click(await screen.findByRole('button', { name: /^Edit long-acting dose of .* 07:30$/ }));
     fireEvent.change(screen.getByLabelText('Insulin'), { target: { value: '14' } });
     fireEvent.click(screen.getByRole('button', { name: 'Save correction' }));
     await waitFor(() => expect(sentBodies(api, 'PATCH')).toEqual([{ units: 14, note: null }]));
 
-    fireEvent.click(screen.getByRole('button', { name: 'Changes to the entry at 07:30' }));
+    fireEvent.click(screen.getByRole('button', { name: /^Changes to long-acting dose of .* 07:30$/ }));
     const item = await screen.findByRole('listitem');
     expect(item).toHaveTextContent('Edited by Sam');
     expect(item).toHaveTextContent('08:05');
@@ -95,7 +95,7 @@ describe('Corrections in History', () => {
     const api = fakeApi({ 'DELETE /profiles/1/log-entries/7': [200, { ...entry('reading'), deleted: true }] });
     renderSignedIn(() => <EntryCorrections profileId={1} entry={entry('reading', { reading: { glucose: 5.5, source: 'typed' } })} units={units} />);
 
-    fireEvent.click(await screen.findByRole('button', { name: 'Delete the entry at 07:30' }));
+    fireEvent.click(await screen.findByRole('button', { name: /^Delete glucose reading of .* 07:30$/ }));
     expect(api.mock.calls.some(([, init]) => init?.method === 'DELETE')).toBe(false);
     fireEvent.click(screen.getByRole('button', { name: 'Yes, delete' }));
     await waitFor(() => expect(api.mock.calls.filter(([, init]) => init?.method === 'DELETE')).toHaveLength(1));
