@@ -1,5 +1,5 @@
 import { keepPreviousData, useInfiniteQuery, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
-import type { LogEntry, LogGroup, LogMealInput } from '../../shared/schemas/logbook';
+import type { CreateLogEntryInput, EditLogEntryInput, LogEntry, LogEntryChange, LogGroup, LogMealInput } from '../../shared/schemas/logbook';
 import { batchKeys } from './batches';
 import { apiFetch, apiFetchBlob, queryString } from './client';
 import { portionKeys } from './portions';
@@ -47,6 +47,42 @@ export function useRecentLog(profileId: number | undefined, limit = 10) {
     queryKey: [...logbookKeys.recent(profileId ?? 0), limit],
     queryFn: () => apiFetch<LogEntry[]>(`/profiles/${profileId}/log-entries/recent?limit=${limit}`),
     enabled: !!profileId,
+  });
+}
+
+/** Logs one entry of any kind (a reading, a dose, exercise, typed carbohydrate). */
+export function useCreateLogEntry(profileId: number) {
+  const changed = useAfterLogChange();
+  return useMutation({
+    mutationFn: (input: CreateLogEntryInput) => apiFetch<LogGroup>(`/profiles/${profileId}/log-entries`, { method: 'POST', body: input }),
+    onSuccess: changed,
+  });
+}
+
+/** Corrects an entry; the server keeps the version before in its changes. */
+export function useUpdateLogEntry(profileId: number) {
+  const changed = useAfterLogChange();
+  return useMutation({
+    mutationFn: ({ id, input }: { id: number; input: EditLogEntryInput }) =>
+      apiFetch<LogEntry>(`/profiles/${profileId}/log-entries/${id}`, { method: 'PATCH', body: input }),
+    onSuccess: changed,
+  });
+}
+
+/** Deletes an entry (kept as deleted, with its history). */
+export function useDeleteLogEntry(profileId: number) {
+  const changed = useAfterLogChange();
+  return useMutation({
+    mutationFn: (id: number) => apiFetch<LogEntry>(`/profiles/${profileId}/log-entries/${id}`, { method: 'DELETE' }),
+    onSuccess: changed,
+  });
+}
+
+/** An entry's corrections, oldest first: who, when, before → after (used only where they are shown on demand). */
+export function useLogEntryChanges(profileId: number, entryId: number) {
+  return useQuery({
+    queryKey: [...logbookKeys.profile(profileId), 'changes', entryId],
+    queryFn: () => apiFetch<LogEntryChange[]>(`/profiles/${profileId}/log-entries/${entryId}/changes`),
   });
 }
 

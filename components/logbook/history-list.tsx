@@ -3,6 +3,7 @@ import { LOG_KIND_WORDS, type LogHistoryPage, type LogHistoryRow } from '../../s
 import { useTheme } from '../theme/use-theme';
 import { Card } from '../ui/card';
 import { Text } from '../ui/text';
+import { EntryCorrections } from './entry-corrections';
 import { dayText, entrySummary, glucoseText, unitsText } from './log-format';
 
 type Units = Pick<LogHistoryPage, 'glucoseUnit' | 'carbBasis' | 'carbUnit'>;
@@ -26,7 +27,7 @@ const COLUMNS = [
 ] as const;
 
 /** The history as a table (wide screens): one row per entry; meal rows carry the reading before and both doses. */
-export function HistoryTable({ rows, units }: { rows: LogHistoryRow[]; units: Units }) {
+export function HistoryTable({ profileId, rows, units }: { profileId: number; rows: LogHistoryRow[]; units: Units }) {
   const t = useTheme();
   return (
     <Card style={styles.tableCard}>
@@ -49,12 +50,15 @@ export function HistoryTable({ rows, units }: { rows: LogHistoryRow[]; units: Un
             taken: meal?.taken ?? '',
           };
           return (
-            <View key={row.id} role="row" style={[styles.tr, { borderColor: t.colors.border }]}>
-              {COLUMNS.map((c) => (
-                <Text key={c.key} role="cell" style={[styles.cell, { flex: c.flex }]} weight={c.key === 'what' && row.meal ? 'bold' : 'regular'}>
-                  {cells[c.key]}
-                </Text>
-              ))}
+            <View key={row.id} role="rowgroup" style={[styles.rowGroup, { borderColor: t.colors.border }]}>
+              <View role="row" style={styles.tr}>
+                {COLUMNS.map((c) => (
+                  <Text key={c.key} role="cell" style={[styles.cell, { flex: c.flex }]} weight={c.key === 'what' && row.meal ? 'bold' : 'regular'}>
+                    {cells[c.key]}
+                  </Text>
+                ))}
+              </View>
+              <EntryCorrections profileId={profileId} entry={row} units={units} />
             </View>
           );
         })}
@@ -64,7 +68,7 @@ export function HistoryTable({ rows, units }: { rows: LogHistoryRow[]; units: Un
 }
 
 /** The history as cards (phones): one card per entry, meal cards with the reading before and both doses. */
-export function HistoryCards({ rows, units }: { rows: LogHistoryRow[]; units: Units }) {
+export function HistoryCards({ profileId, rows, units }: { profileId: number; rows: LogHistoryRow[]; units: Units }) {
   return (
     <View role="list" aria-label="Logbook history" style={styles.cards}>
       {rows.map((row) => {
@@ -82,6 +86,7 @@ export function HistoryCards({ rows, units }: { rows: LogHistoryRow[]; units: Un
                 Reading before: {meal.before} · Suggested: {meal.suggested} · Taken: {meal.taken}
               </Text>
             ) : null}
+            <EntryCorrections profileId={profileId} entry={row} units={units} />
           </Card>
         );
       })}
@@ -91,8 +96,9 @@ export function HistoryCards({ rows, units }: { rows: LogHistoryRow[]; units: Un
 
 const styles = StyleSheet.create({
   tableCard: { padding: 8 },
-  tr: { flexDirection: 'row', borderBottomWidth: 1, paddingVertical: 8, gap: 8 },
+  tr: { flexDirection: 'row', paddingVertical: 8, gap: 8 },
   head: { borderBottomWidth: 2 },
+  rowGroup: { borderBottomWidth: 1, paddingBottom: 4 },
   cell: { paddingHorizontal: 4 },
   cards: { gap: 10 },
 });

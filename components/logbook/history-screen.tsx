@@ -53,7 +53,7 @@ export function HistoryScreen() {
     <EmptyState title="Nothing logged in this period">Meals, readings and doses you log appear here.</EmptyState>
   ) : (
     <>
-      {isWide ? <HistoryTable rows={rows} units={units} /> : <HistoryCards rows={rows} units={units} />}
+      {isWide ? <HistoryTable profileId={profile!.id} rows={rows} units={units} /> : <HistoryCards profileId={profile!.id} rows={rows} units={units} />}
       {history.hasNextPage ? (
         <Button variant="secondary" label="Load more" loading={history.isFetchingNextPage} onPress={() => void history.fetchNextPage()} />
       ) : null}
@@ -70,6 +70,9 @@ export function HistoryScreen() {
   return (
     <Screen title="Logbook" subtitle="What was eaten, read and injected. Days follow the profile's time zone." backHref="/">
       <View style={styles.links}>
+        <Link href="/logbook/add" asChild>
+          <Button label="Add an entry" />
+        </Link>
         <Link href={{ pathname: '/logbook/review', params: period }} asChild>
           <Button variant="secondary" label="Ratio review" />
         </Link>

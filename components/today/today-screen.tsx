@@ -31,6 +31,9 @@ export function TodayScreen() {
         <Link href="/dose-check" asChild>
           <Button label="Check a dose" size="lg" variant="secondary" />
         </Link>
+        <Link href="/logbook/add" asChild>
+          <Button variant="secondary" label="Add a reading or dose" size="lg" />
+        </Link>
         <Link href="/logbook" asChild>
           <Button variant="secondary" label="Logbook" size="lg" />
         </Link>

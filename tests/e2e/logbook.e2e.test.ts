@@ -96,4 +96,29 @@ describe('logbook in the browser', () => {
     await page.getByText('3 readings imported, 0 already in the logbook skipped.').waitFor();
     await rig.shot(page, 'wide-import-done');
   });
+
+  it('add a long-acting dose beside its planned units, correct it in History, and read the change before → after', async () => {
+    const page = await rig.newPage(WIDE);
+    await personWithLog(page, 'logbook-correct@example.test');
+    await page.goto(`${rig.baseUrl}/logbook/add`);
+    await page.getByRole('radio', { name: 'Long-acting dose' }).click();
+    await page.getByText('Planned for Rest: 14 units.').waitFor();
+    await page.getByLabel('Long-acting insulin').fill('13');
+    await page.getByRole('button', { name: 'Save entry' }).click();
+    await page.getByText(/Saved: Long-acting dose 13 units at/).waitFor();
+    await rig.shot(page, 'wide-add-entry');
+
+    await page.goto(`${rig.baseUrl}/logbook`);
+    const table = page.getByRole('table', { name: 'Logbook history' });
+    const added = table.getByRole('rowgroup').filter({ hasText: '13 units' });
+    await added.getByRole('button', { name: /^Edit long-acting dose/ }).click();
+    await added.getByLabel('Insulin', { exact: true }).fill('12');
+    await added.getByRole('button', { name: 'Save correction' }).click();
+    const changed = table.getByRole('rowgroup').filter({ hasText: 'changed' });
+    await changed.getByText(/12 units.* · changed/).waitFor();
+    await changed.getByRole('button', { name: /^Changes to long-acting dose/ }).click();
+    const change = changed.getByRole('list', { name: 'Changes to this entry' }).getByRole('listitem');
+    await change.getByText(/^Edited by Lena, .* 13 units → .* 12 units$/).waitFor();
+    await rig.shot(page, 'wide-entry-changes');
+  });
 });

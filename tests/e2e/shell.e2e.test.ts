@@ -47,6 +47,7 @@ const PLACES: { name: string; path: (ids: Ids) => string }[] = [
   { name: 'food-new', path: () => '/foods/new' },
   { name: 'imports', path: () => '/admin/imports' },
   { name: 'logbook', path: () => '/logbook' },
+  { name: 'log-add', path: () => '/logbook/add' },
   { name: 'ratio-review', path: () => '/logbook/review' },
   { name: 'readings-import', path: () => '/logbook/import' },
   { name: 'review-sheet', path: () => '/logbook/print' },
