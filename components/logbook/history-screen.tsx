@@ -14,7 +14,7 @@ import { HistoryFilters } from './history-filters';
 import { HistoryCards, HistoryTable } from './history-list';
 import { LogChartsPanel } from './log-charts';
 import { defaultPeriod } from './log-format';
-import { canSaveFile, saveFile } from './save-file';
+import { canSaveFile, saveFile } from '../ui/save-file';
 
 /** History: the logbook filtered by period, day kind and entry type, with the period's charts beside it. */
 export function HistoryScreen() {

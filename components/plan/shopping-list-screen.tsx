@@ -10,7 +10,7 @@ import { Card } from '../ui/card';
 import { Screen } from '../ui/screen';
 import { EmptyState, ErrorState, LoadingState } from '../ui/states';
 import { Text } from '../ui/text';
-import { saveFile } from './save-file';
+import { saveFile } from '../ui/save-file';
 
 const hideInPrint = { dataSet: { print: 'hide' } } as object;
 

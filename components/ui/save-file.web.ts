@@ -1,4 +1,4 @@
-/** Saves a blob as a download in the browser. */
+/** Saves a blob as a download in the browser (the one download helper: logbook export, shopping list). */
 export function saveFile(blob: Blob, filename: string): void {
   const url = URL.createObjectURL(blob);
   const a = document.createElement('a');
