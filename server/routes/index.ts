@@ -5,6 +5,7 @@ import { adminRoutes } from './admin.routes';
 import { authRoutes } from './auth.routes';
 import { batchesRoutes } from './batches.routes';
 import { benchRoutes } from './bench.routes';
+import { clinicianDeskRoutes } from './clinician-desk.routes';
 import { containersRoutes } from './containers.routes';
 import { doseRoutes } from './dose.routes';
 import { foodSynonymsRoutes } from './food-synonyms.routes';
@@ -38,6 +39,7 @@ export function apiRoutes(deps: AppDeps): AnyRoute[] {
     ...photosRoutes(deps),
     ...profilesRoutes(),
     ...accessRoutes(),
+    ...clinicianDeskRoutes(),
     ...doseRoutes(),
     ...containersRoutes(),
     ...batchesRoutes(deps),

@@ -124,13 +124,46 @@ export async function listLogHistory(profileId: number, q: LogHistoryQuery): Pro
   };
 }
 
-async function periodEntries(profileId: number, q: LogPeriodQuery, basis: CarbBasis): Promise<ReviewEntry[]> {
+/** One profile's period of local dates, with the basis its carbohydrate is counted in. */
+export type ProfilePeriod = { profileId: number; from: string; to: string; basis: CarbBasis };
+
+/** The entries of each profile's period as the pure review rules take them, in one query (profile id → entries, oldest first). */
+export async function periodEntriesOf(periods: ProfilePeriod[]): Promise<Map<number, ReviewEntry[]>> {
+  const out = new Map<number, ReviewEntry[]>(periods.map((p) => [p.profileId, []]));
+  if (!periods.length) return out;
   const rows = await LogEntryModel.findAll({
-    where: { profileId, deletedAt: null, localDate: { [Op.between]: [q.from, q.to] } },
-    attributes: ['id', 'kind', 'occurredAt', 'localDate', 'localMinute', 'dayKindId', 'groupKey', 'glucoseMmol', 'carbAvailableG', 'carbTotalG', 'units'],
+    where: { deletedAt: null, [Op.or]: periods.map((p) => ({ profileId: p.profileId, localDate: { [Op.between]: [p.from, p.to] } })) },
+    attributes: ['id', 'profileId', 'kind', 'occurredAt', 'localDate', 'localMinute', 'dayKindId', 'groupKey', 'glucoseMmol', 'carbAvailableG', 'carbTotalG', 'units'],
     order: [['occurredAt', 'ASC'], ['id', 'ASC']],
   });
-  return rows.map((r) => toReviewEntry(r, basis));
+  const basis = new Map(periods.map((p) => [p.profileId, p.basis]));
+  for (const r of rows) out.get(r.profileId)!.push(toReviewEntry(r, basis.get(r.profileId)!));
+  return out;
+}
+
+async function periodEntries(profileId: number, q: LogPeriodQuery, basis: CarbBasis): Promise<ReviewEntry[]> {
+  return (await periodEntriesOf([{ profileId, ...q, basis }])).get(profileId)!;
+}
+
+/** The range time in range counts against: the profile's targets, else the 2019 consensus range. */
+export function targetRangeOf(settings: Pick<ProfileSettingsModel, 'targetLowMmol' | 'targetHighMmol'> | null): LogCharts['targetRange'] {
+  return settings ? { lowMmol: settings.targetLowMmol, highMmol: settings.targetHighMmol, fromProfile: true } : { ...CONSENSUS_RANGE, fromProfile: false };
+}
+
+/** Time in range of a period's readings (the charts' figure). */
+export function periodTimeInRange(entries: ReviewEntry[], range: LogCharts['targetRange']) {
+  const readings = entries.filter((e) => e.kind === 'reading' && e.glucoseMmol != null).map((e) => e.glucoseMmol!);
+  return timeInRange(readings, range.lowMmol, range.highMmol);
+}
+
+/** The order the review reads day kinds in: the default first, then by name. */
+export const REVIEW_DAY_KIND_ORDER: [string, string][] = [['isDefault', 'DESC'], ['name', 'ASC']];
+
+/** The times of day the ratio review groups meals by, from day kinds loaded with theirs (in REVIEW_DAY_KIND_ORDER). */
+export function reviewTimesOfDay(kinds: DayKindModel[]): ReviewTimeOfDay[] {
+  return kinds.flatMap((k) =>
+    [...(k.timesOfDay ?? [])].sort((a, b) => a.startMinute - b.startMinute).map((b) => ({ dayKindId: k.id, dayKindName: k.name, startMinute: b.startMinute, endMinute: b.endMinute })),
+  );
 }
 
 /** Chart data for a period: carbohydrate and insulin per day, glucose before meals per day kind, time in range. */
@@ -141,8 +174,7 @@ export async function logCharts(profileId: number, q: LogPeriodQuery): Promise<L
     DayKindModel.findAll({ where: { profileId }, attributes: ['id', 'name'] }),
     periodEntries(profileId, q, profile.carbBasis),
   ]);
-  const range = settings ? { lowMmol: settings.targetLowMmol, highMmol: settings.targetHighMmol, fromProfile: true } : { ...CONSENSUS_RANGE, fromProfile: false };
-  const readings = entries.filter((e) => e.kind === 'reading' && e.glucoseMmol != null).map((e) => e.glucoseMmol!);
+  const range = targetRangeOf(settings);
   return {
     from: q.from,
     to: q.to,
@@ -152,7 +184,7 @@ export async function logCharts(profileId: number, q: LogPeriodQuery): Promise<L
     targetRange: range,
     days: dailyTotals(entries, q.from, q.to),
     beforeMeals: glucoseBeforeMeals(entries, new Map(kinds.map((k) => [k.id, k.name]))),
-    timeInRange: timeInRange(readings, range.lowMmol, range.highMmol),
+    timeInRange: periodTimeInRange(entries, range),
   };
 }
 
@@ -160,13 +192,11 @@ export async function logCharts(profileId: number, q: LogPeriodQuery): Promise<L
 export async function logReview(profileId: number, q: LogPeriodQuery): Promise<LogReview> {
   const profile = await loadProfile(profileId);
   const [kinds, views, entries] = await Promise.all([
-    DayKindModel.findAll({ where: { profileId }, ...withTimesOfDay, order: [['isDefault', 'DESC'], ['name', 'ASC']] }),
+    DayKindModel.findAll({ where: { profileId }, ...withTimesOfDay, order: REVIEW_DAY_KIND_ORDER }),
     listDayKinds(profileId),
     periodEntries(profileId, q, profile.carbBasis),
   ]);
-  const times: ReviewTimeOfDay[] = kinds.flatMap((k) =>
-    [...(k.timesOfDay ?? [])].sort((a, b) => a.startMinute - b.startMinute).map((b) => ({ dayKindId: k.id, dayKindName: k.name, startMinute: b.startMinute, endMinute: b.endMinute })),
-  );
+  const times = reviewTimesOfDay(kinds);
   return {
     from: q.from,
     to: q.to,

@@ -3,7 +3,7 @@ import { Op } from 'sequelize';
 import type { RecipeDetail, RecipeOffer, RecipeOfferSent, RecipeShare } from '../../shared/schemas/recipe';
 import { AppError } from '../errors';
 import { newStorageKey, type FileStorage } from '../lib/storage';
-import { FoodMeasureModel, FoodModel, RecipeIngredientModel, RecipeModel, RecipeShareModel, RecipeShareOfferModel, UserModel } from '../models';
+import { FoodMeasureModel, FoodModel, ProfileAccessModel, ProfileModel, RecipeIngredientModel, RecipeModel, RecipeShareModel, RecipeShareOfferModel, UserModel } from '../models';
 import { mailLink, queueMail } from './mail.service';
 import { copyPhotoFiles } from './photos.service';
 import { findOwnedRecipe, findViewableRecipe, getRecipeForUser } from './recipes.service';
@@ -22,6 +22,23 @@ export async function listShares(recipeId: number, userId: number): Promise<Reci
 /** At most this many share offers per sender per hour: sharing is not a way to probe which addresses have accounts. */
 export const SHARE_OFFERS_PER_HOUR = 20;
 
+async function assertUnderOfferLimit(senderId: number, adding: number, now: Date) {
+  const recent = await RecipeShareOfferModel.count({ where: { senderUserId: senderId, createdAt: { [Op.gt]: new Date(now.getTime() - 3600_000) } } });
+  if (recent + adding > SHARE_OFFERS_PER_HOUR) throw new AppError(429, 'rate_limited', 'You have offered many recipes in the last hour. Please wait a while and try again.');
+}
+
+/** One offer (inside the caller's transaction): recorded, and mailed unless an offer is open or they already have it. */
+async function offerTo(recipe: RecipeModel, sender: UserModel, email: string, now: Date): Promise<void> {
+  const person = await UserModel.findOne({ where: { email } });
+  const pending = await RecipeShareOfferModel.findOne({ where: { recipeId: recipe.id, email, status: 'offered' } });
+  const has = person ? await RecipeShareModel.count({ where: { recipeId: recipe.id, userId: person.id } }) : 0;
+  await RecipeShareOfferModel.create({ recipeId: recipe.id, senderUserId: sender.id, email, status: pending || has ? 'accepted' : 'offered', respondedAt: pending || has ? now : null });
+  if (recipe.visibility === 'private') await recipe.update({ visibility: 'shared' });
+  if (pending || has) return;
+  const link = person ? mailLink('/recipes', { offers: '1' }) : mailLink('/sign-up', { email });
+  await queueMail('share_offer', email, { senderName: sender.displayName, recipeName: recipe.title, link, hasAccount: !!person });
+}
+
 /**
  * Offers a recipe the user owns to an e-mail address. The answer is the same whether or not an account uses it: a
  * known person gets a notice on their recipes screen (and a mail) to accept or decline; an unknown address gets a
@@ -33,16 +50,30 @@ export async function offerRecipe(recipeId: number, senderId: number, email: str
     const recipe = await findOwnedRecipe(recipeId, senderId);
     const sender = (await UserModel.findByPk(senderId))!;
     if (sender.email === email) throw AppError.validation({ email: ['That is your own account.'] });
-    const recent = await RecipeShareOfferModel.count({ where: { senderUserId: senderId, createdAt: { [Op.gt]: new Date(now.getTime() - 3600_000) } } });
-    if (recent >= SHARE_OFFERS_PER_HOUR) throw new AppError(429, 'rate_limited', 'You have offered many recipes in the last hour. Please wait a while and try again.');
-    const person = await UserModel.findOne({ where: { email } });
-    const pending = await RecipeShareOfferModel.findOne({ where: { recipeId, email, status: 'offered' } });
-    const has = person ? await RecipeShareModel.count({ where: { recipeId, userId: person.id } }) : 0;
-    await RecipeShareOfferModel.create({ recipeId, senderUserId: senderId, email, status: pending || has ? 'accepted' : 'offered', respondedAt: pending || has ? now : null });
-    if (recipe.visibility === 'private') await recipe.update({ visibility: 'shared' });
-    if (pending || has) return;
-    const link = person ? mailLink('/recipes', { offers: '1' }) : mailLink('/sign-up', { email });
-    await queueMail('share_offer', email, { senderName: sender.displayName, recipeName: recipe.title, link, hasAccount: !!person });
+    await assertUnderOfferLimit(senderId, 1, now);
+    await offerTo(recipe, sender, email, now);
+  });
+}
+
+/**
+ * A clinician offers a recipe they own to the owner of every profile they hold as clinician, at once: one offer per
+ * owner, with the same consent (they accept or decline) and the same per-sender hourly limit, counted for every
+ * offer (all or none). Returns how many people were offered it.
+ */
+export async function offerRecipeToMyPeople(recipeId: number, senderId: number, now = new Date()): Promise<number> {
+  return RecipeModel.sequelize!.transaction(async () => {
+    const recipe = await findOwnedRecipe(recipeId, senderId);
+    const sender = (await UserModel.findByPk(senderId))!;
+    const grants = await ProfileAccessModel.findAll({
+      where: { userId: senderId, role: 'clinician' },
+      include: [{ model: ProfileModel, as: 'profile', required: true, include: [{ model: UserModel, as: 'owner', required: true }] }],
+    });
+    const owners = grants.map((g) => (g as ProfileAccessModel & { profile: ProfileModel & { owner: UserModel } }).profile.owner.email);
+    const emails = [...new Set(owners)].filter((e) => e !== sender.email);
+    if (!emails.length) throw AppError.unprocessable('You do not support anyone yet: this offers a recipe to the people whose profiles you hold as clinician.');
+    await assertUnderOfferLimit(senderId, emails.length, now);
+    for (const email of emails) await offerTo(recipe, sender, email, now);
+    return emails.length;
   });
 }
 

@@ -197,3 +197,32 @@ export function ratioReview(entries: ReviewEntry[], timesOfDay: ReviewTimeOfDay[
   const used = groups.reduce((a, g) => a + g.meals, 0);
   return { groups, mealsInPeriod: meals.length, mealsUsed: used, skipped };
 }
+
+/**
+ * How far the average glucose change after meals may go (mmol/L, either way) before a figure is flagged for the
+ * diabetes team: "back within about ±2 mmol/L of the pre-meal value" (check-values §13.4, common practice; teams differ).
+ */
+export const REVIEW_FLAG_CHANGE_MMOL = 2;
+
+export type ReviewFlag = {
+  dayKindId: number | null;
+  dayKindName: string | null;
+  startMinute: number | null;
+  endMinute: number | null;
+  /** "rose": the average change is above +limit; "fell": below −limit. */
+  direction: 'rose' | 'fell';
+  meals: number;
+  averageChangeMmol: number;
+};
+
+/**
+ * The ratio review's figures worth a look: each group with enough meals (not "too few") whose average change after
+ * meals lies beyond ±limitMmol (a change of exactly the limit is within). Evidence to talk about, never a new ratio.
+ */
+export function reviewFlags(review: Pick<RatioReview, 'groups'>, limitMmol = REVIEW_FLAG_CHANGE_MMOL): ReviewFlag[] {
+  return review.groups.flatMap((g) => {
+    const change = g.averageChangeMmol;
+    if (g.tooFew || change == null || Math.abs(change) <= limitMmol) return [];
+    return [{ dayKindId: g.dayKindId, dayKindName: g.dayKindName, startMinute: g.startMinute, endMinute: g.endMinute, direction: change > 0 ? 'rose' : 'fell', meals: g.meals, averageChangeMmol: change }];
+  });
+}

@@ -75,6 +75,8 @@ const EXPLICIT: Record<string, { path: (f: Fixtures) => string; body?: object | 
   'DELETE /recipes/:id/photo': { path: (f) => `/recipes/${f.recipeId}/photo`, expect: ownerOnly(204, 403) },
   'GET /recipes/:id/shares': { path: (f) => `/recipes/${f.recipeId}/shares`, expect: ownerOnly(200, 403) },
   'POST /recipes/:id/shares': { path: (f) => `/recipes/${f.recipeId}/shares`, body: { email: 'someone@example.test' }, expect: ownerOnly(202, 403) },
+  // The recipe's owner holds no profile as clinician here: past the access check, nobody to offer it to (422).
+  'POST /recipes/:id/offers-to-my-people': { path: (f) => `/recipes/${f.recipeId}/offers-to-my-people`, expect: ownerOnly(422, 403) },
   'DELETE /recipes/:id/shares/:userId': { path: (f) => `/recipes/${f.recipeId}/shares/${world.users.carer.id}`, expect: ownerOnly(204, 403) },
   'POST /recipe-offers/:id/accept': { path: (f) => `/recipe-offers/${f.offerId}/accept`, expect: all(404, { carerSettings: 204 }) },
   'POST /recipe-offers/:id/decline': { path: (f) => `/recipe-offers/${f.offerId}/decline`, expect: all(404, { carerSettings: 204 }) },
