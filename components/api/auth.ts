@@ -1,4 +1,5 @@
 import { queryOptions, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
+import { profileActionAllowed, type ProfileAction } from '../../shared/schemas/profile-actions';
 import type { ChangePasswordInput, Me, PasswordResetInput, PasswordResetRequestInput, Session, SignInInput, SignUpInput } from '../../shared/schemas/auth';
 import { activeProfileStore, useActiveProfileId } from '../auth/active-profile-store';
 import { useSession } from '../auth/session';
@@ -21,6 +22,12 @@ export function useActiveProfile() {
   const chosen = useActiveProfileId();
   const profiles = me.data?.profiles ?? [];
   return { ...me, profile: profiles.find((p) => p.id === chosen) ?? profiles[0] };
+}
+
+/** Whether the active profile's grant allows the action, by the server's own rule (false until /me has loaded). */
+export function useProfileCan(action: ProfileAction): boolean {
+  const { profile } = useActiveProfile();
+  return !!profile && profileActionAllowed({ role: profile.access, permissions: profile.permissions }, action);
 }
 
 /** Makes another profile the active one; every screen and call follows it. */

@@ -4,6 +4,7 @@ import { toLocalTime } from '../../shared/compute/local-time';
 import type { LogEntry, LogEntryChange } from '../../shared/schemas/logbook';
 import { LOG_KIND_WORDS, type LogHistoryPage } from '../../shared/schemas/logbook-read';
 import { minutesToTime } from '../../shared/schemas/profile-settings';
+import { useProfileCan } from '../api/auth';
 import { useDeleteLogEntry, useLogEntryChanges } from '../api/logbook';
 import { Button } from '../ui/button';
 import { Callout } from '../ui/callout';
@@ -50,12 +51,18 @@ export function EntryCorrections({ profileId, entry, units }: { profileId: numbe
   const [mode, setMode] = useState<Mode>('idle');
   const remove = useDeleteLogEntry(profileId);
   const toggle = (m: Mode) => setMode(mode === m ? 'idle' : m);
+  const canWrite = useProfileCan('log.write');
   const which = `${LOG_KIND_WORDS[entry.kind].toLowerCase()} of ${dayText(entry.localDate)} ${entry.localTime}`;
+  if (!canWrite && !entry.changed) return null;
   return (
     <View style={styles.wrap}>
       <View style={styles.row}>
-        <Button variant="quiet" label="Edit" aria-label={`Edit ${which}`} onPress={() => toggle('edit')} />
-        <Button variant="quiet" label="Delete" aria-label={`Delete ${which}`} onPress={() => toggle('delete')} />
+        {canWrite ? (
+          <>
+            <Button variant="quiet" label="Edit" aria-label={`Edit ${which}`} onPress={() => toggle('edit')} />
+            <Button variant="quiet" label="Delete" aria-label={`Delete ${which}`} onPress={() => toggle('delete')} />
+          </>
+        ) : null}
         {entry.changed ? (
           <Button variant="quiet" label={mode === 'changes' ? 'Hide changes' : 'Show changes'} aria-label={`Changes to ${which}`} onPress={() => toggle('changes')} />
         ) : null}

@@ -2,7 +2,7 @@ import { Link } from 'expo-router';
 import { useState } from 'react';
 import { StyleSheet, View } from 'react-native';
 import type { LogFilterFormValues } from '../../shared/schemas/logbook-read';
-import { useActiveProfile } from '../api/auth';
+import { useActiveProfile, useProfileCan } from '../api/auth';
 import { downloadLogExport, useLogCharts, useLogHistory } from '../api/logbook';
 import { useDayKinds } from '../api/profile-settings';
 import { useLayout } from '../theme/use-theme';
@@ -20,6 +20,7 @@ import { canSaveFile, saveFile } from '../ui/save-file';
 export function HistoryScreen() {
   const { profile } = useActiveProfile();
   const { isWide } = useLayout();
+  const canWrite = useProfileCan('log.write');
   const [filters, setFilters] = useState<LogFilterFormValues>(() => ({ ...defaultPeriod(), dayKindId: '', kind: '' }));
   const [sort, setSort] = useState<'newest' | 'oldest'>('newest');
   const [exportError, setExportError] = useState<string | null>(null);
@@ -70,18 +71,22 @@ export function HistoryScreen() {
   return (
     <Screen title="Logbook" subtitle="What was eaten, read and injected. Days follow the profile's time zone." backHref="/">
       <View style={styles.links}>
-        <Link href="/logbook/add" asChild>
-          <Button label="Add an entry" />
-        </Link>
+        {canWrite ? (
+          <Link href="/logbook/add" asChild>
+            <Button label="Add an entry" />
+          </Link>
+        ) : null}
         <Link href={{ pathname: '/logbook/review', params: period }} asChild>
           <Button variant="secondary" label="Ratio review" />
         </Link>
         <Link href={{ pathname: '/logbook/print', params: period }} asChild>
           <Button variant="secondary" label="Review sheet to print" />
         </Link>
-        <Link href="/logbook/import" asChild>
-          <Button variant="secondary" label="Import readings" />
-        </Link>
+        {canWrite ? (
+          <Link href="/logbook/import" asChild>
+            <Button variant="secondary" label="Import readings" />
+          </Link>
+        ) : null}
         {canSaveFile && profile ? <Button variant="secondary" label="Export CSV" onPress={() => void onExport()} /> : null}
       </View>
       {exportError ? <Text color="danger">{exportError}</Text> : null}

@@ -6,7 +6,7 @@ import type { LogCharts } from '../../shared/schemas/logbook-read';
 import { useTheme } from '../theme/use-theme';
 import { Card } from '../ui/card';
 import { Text } from '../ui/text';
-import { dayText, unitsText } from './log-format';
+import { dayText, percentText, unitsText } from './log-format';
 
 const CHART_HEIGHT = 150;
 const keepTogether = { dataSet: { print: 'label' } } as object;
@@ -61,7 +61,7 @@ export function LogChartsPanel({ data }: { data: LogCharts }) {
   }));
   const tir = data.timeInRange;
   const range = `${formatGlucose(data.targetRange.lowMmol, data.glucoseUnit)}–${formatGlucose(data.targetRange.highMmol, data.glucoseUnit)}`;
-  const pct = (v: number | null) => (v == null ? '—' : `${Math.round(v)} %`);
+  const pct = percentText;
   const totalCarb = data.days.reduce((a, d) => a + d.carbG, 0);
   const totalUnits = data.days.reduce((a, d) => a + d.rapidUnits, 0);
   const eaten = data.days.filter((d) => d.carbG > 0);

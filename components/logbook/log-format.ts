@@ -15,6 +15,11 @@ export function glucoseText(value: number | null | undefined, unit: GlucoseUnit)
   return value == null ? '—' : formatGlucose(glucoseToMmol(value, unit), unit);
 }
 
+/** A share of readings as a whole percent ("45 %"); a dash when there were no readings. */
+export function percentText(value: number | null): string {
+  return value == null ? '—' : `${Math.round(value)} %`;
+}
+
 /** A change in glucose (stored in mmol/L) with its sign, in the profile's unit. */
 export function glucoseChangeText(mmol: number | null, unit: GlucoseUnit): string {
   if (mmol == null) return '—';

@@ -6,6 +6,7 @@ import { useSafeAreaInsets } from 'react-native-safe-area-context';
 import { Icon, type IconName } from '../ui/icon';
 import { Text } from '../ui/text';
 import { useLayout, useTheme } from '../theme/use-theme';
+import { useIsClinician } from '../api/clinician-desk';
 import { Brand } from './mark';
 import { ProfileSwitcher } from './profile-switcher';
 
@@ -17,6 +18,9 @@ export const TABS: { name: string; href: Extract<Href, string>; label: string; i
   { name: 'plan', href: '/plan', label: 'Plan', icon: 'plan', also: [] },
   { name: 'more', href: '/more', label: 'You', icon: 'more', also: ['settings', 'foods', 'admin', 'invitation'] },
 ];
+
+/** The clinician's desk: a tab only for accounts that support someone as clinician (or hold the clinician role). */
+export const DESK_TAB: (typeof TABS)[number] = { name: 'desk', href: '/desk', label: 'Desk', icon: 'desk', also: [] };
 
 /**
  * Pages that live inside the same shell but have no tab of their own (like `href: null` in a tab bar). Each needs a
@@ -34,13 +38,13 @@ const HIDDEN = [
 ];
 
 type Triggers = Parameters<typeof useTabsWithTriggers>[0]['triggers'];
-const TRIGGERS = [...TABS, ...HIDDEN].map(({ name, href }) => ({ type: 'internal', name, href })) as Triggers;
+const TRIGGERS = [...TABS, DESK_TAB, ...HIDDEN].map(({ name, href }) => ({ type: 'internal', name, href })) as Triggers;
 
 /** Which tab to light for an address: its own, or the area an outside page belongs to. */
 export function activeTab(pathname: string): string | undefined {
   const first = pathname.split('/')[1] ?? '';
   if (first === '') return 'index';
-  return TABS.find((tab) => tab.name === first || tab.also.includes(first))?.name;
+  return [...TABS, DESK_TAB].find((tab) => tab.name === first || tab.also.includes(first))?.name;
 }
 
 // The label sheet's print styles hide what is marked so; a printed sheet shows labels, not the navigation.
@@ -79,6 +83,7 @@ export function AppTabs() {
   const insets = useSafeAreaInsets();
   const pathname = usePathname();
   const current = activeTab(pathname);
+  const tabs = useIsClinician() ? [...TABS.slice(0, 1), DESK_TAB, ...TABS.slice(1)] : TABS;
   // Back follows the pages visited (labels → the batch it came from), not the first tab.
   const { NavigationContent } = useTabsWithTriggers({ triggers: TRIGGERS, backBehavior: 'history' });
   return (
@@ -104,7 +109,7 @@ export function AppTabs() {
             </View>
           ) : null}
           <View role="tablist" style={isWide ? styles.sideList : styles.bottomList}>
-            {TABS.map((tab) => (
+            {tabs.map((tab) => (
               <TabTrigger
                 key={tab.name}
                 name={tab.name}

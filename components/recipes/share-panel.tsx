@@ -7,13 +7,16 @@ import { Card } from '../ui/card';
 import { applyServerErrors } from '../ui/form-errors';
 import { FormTextField } from '../ui/form-text-field';
 import { Text } from '../ui/text';
+import { useIsClinician } from '../api/clinician-desk';
 import { useRevokeShare, useShareRecipe } from '../api/recipes';
+import { OfferToMyPeople } from './offer-to-my-people';
 
 /** The owner's sharing panel: give the recipe to someone by email, see who has it, take it back. */
 export function SharePanel({ recipeId, shares }: { recipeId: number; shares: RecipeShare[] }) {
   const form = useForm({ resolver: zodResolver(shareRecipeInputSchema), defaultValues: { email: '' } });
   const share = useShareRecipe(recipeId);
   const revoke = useRevokeShare(recipeId);
+  const clinician = useIsClinician();
   const submit = form.handleSubmit(({ email }) => {
     share.mutate(email, {
       onSuccess: () => form.reset({ email: '' }),
@@ -44,6 +47,7 @@ export function SharePanel({ recipeId, shares }: { recipeId: number; shares: Rec
         <Button label="Offer" onPress={() => void submit()} loading={share.isPending} />
       </View>
       {share.isSuccess ? <Text color="textMuted">Offer sent. It appears here once they accept.</Text> : null}
+      {clinician ? <OfferToMyPeople recipeId={recipeId} /> : null}
       {shares.length ? (
         <View style={styles.list} role="list" aria-label="Shared with">
           {shares.map((s) => (

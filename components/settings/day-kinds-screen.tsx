@@ -1,7 +1,7 @@
 import { Link } from 'expo-router';
 import { StyleSheet, View } from 'react-native';
 import type { DayKind } from '../../shared/schemas/profile-settings';
-import { useActiveProfile } from '../api/auth';
+import { useActiveProfile, useProfileCan } from '../api/auth';
 import { useDayKinds } from '../api/profile-settings';
 import { useLayout, useTheme } from '../theme/use-theme';
 import { Button } from '../ui/button';
@@ -71,19 +71,21 @@ export function DayKindsScreen() {
   const { profile } = useActiveProfile();
   const kinds = useDayKinds(profile?.id);
   const { isWide } = useLayout();
+  // A clinician reads these; only a grant that may change ratios gets the buttons (the server refuses the rest).
+  const canEdit = useProfileCan('ratios.write');
   if (!profile || kinds.isPending) return <LoadingState />;
   if (kinds.isError) return <ErrorState error={kinds.error} onRetry={() => void kinds.refetch()} />;
-  const add = (
+  const add = canEdit ? (
     <Link href="/settings/day-kinds/new" asChild>
       <Button label="Add a day kind" />
     </Link>
-  );
+  ) : undefined;
   return (
     <Screen title="Day kinds and ratios" subtitle={`For ${profile.displayName}`} backHref="/settings" actions={kinds.data.length ? add : undefined}>
       {kinds.data.length === 0 ? (
         <EmptyState title="No day kinds yet" action={add}>
-          A day kind is a kind of day with its own ratios, such as a rest day and a training day. Add the first one with
-          the ratios from your diabetes team; it becomes the default.
+          A day kind is a kind of day with its own ratios, such as a rest day and a training day.{' '}
+          {canEdit ? 'Add the first one with the ratios from your diabetes team; it becomes the default.' : 'The owner has not set any yet.'}
         </EmptyState>
       ) : (
         kinds.data.map((k) => (
@@ -101,11 +103,13 @@ export function DayKindsScreen() {
               {k.longActingUnits == null ? 'not recorded' : `${k.longActingUnits} units (as prescribed; recorded, never suggested)`}
             </Text>
             {isWide ? <TimesOfDayTable kind={k} /> : <TimesOfDayList kind={k} />}
-            <View style={styles.actions}>
-              <Link href={{ pathname: '/settings/day-kinds/[id]', params: { id: String(k.id) } }} asChild>
-                <Button variant="secondary" label={`Edit ${k.name}`} />
-              </Link>
-            </View>
+            {canEdit ? (
+              <View style={styles.actions}>
+                <Link href={{ pathname: '/settings/day-kinds/[id]', params: { id: String(k.id) } }} asChild>
+                  <Button variant="secondary" label={`Edit ${k.name}`} />
+                </Link>
+              </View>
+            ) : null}
           </Card>
         ))
       )}

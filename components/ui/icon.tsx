@@ -1,6 +1,6 @@
 import Svg, { Circle, Path, Rect } from 'react-native-svg';
 
-export type IconName = 'today' | 'recipes' | 'kitchen' | 'plan' | 'more';
+export type IconName = 'today' | 'recipes' | 'kitchen' | 'plan' | 'more' | 'desk';
 
 /** Hand-drawn line icons (our own), 24-unit grid, drawn in the given colour. */
 export function Icon({ name, color, size = 24 }: { name: IconName; color: string; size?: number }) {
@@ -29,6 +29,12 @@ export function Icon({ name, color, size = 24 }: { name: IconName; color: string
         <>
           <Rect x={3.5} y={5} width={17} height={15} rx={2.5} {...stroke} />
           <Path d="M3.5 9.5h17M8 3v4M16 3v4M7.5 13h2M11 13h2M14.5 13h2M7.5 16.5h2M11 16.5h2" {...stroke} />
+        </>
+      ) : null}
+      {name === 'desk' ? (
+        <>
+          <Rect x={5} y={4.5} width={14} height={16} rx={2} {...stroke} />
+          <Path d="M9 3.5h6v2.5H9zM8.5 10.5h7M8.5 14h7M8.5 17.5h4" {...stroke} />
         </>
       ) : null}
       {name === 'more' ? (
