@@ -52,6 +52,7 @@ const PLACES: { name: string; path: (ids: Ids) => string }[] = [
   { name: 'readings-import', path: () => '/logbook/import' },
   { name: 'review-sheet', path: () => '/logbook/print' },
   { name: 'people', path: () => '/more/people' },
+  { name: 'desk', path: () => '/desk' },
 ];
 
 const SIGNED_OUT = ['/sign-in', '/sign-up'];
