@@ -7,6 +7,7 @@ import { Card } from '../ui/card';
 import { Screen } from '../ui/screen';
 import { EmptyState, ErrorState, LoadingState } from '../ui/states';
 import { Text } from '../ui/text';
+import { TextLink } from '../ui/text-link';
 import { InviteForm } from './invite-form';
 
 const ROLE = { owner: 'Owner', carer: 'Carer', clinician: 'Clinician' } as const;
@@ -20,6 +21,8 @@ const AUDIT = {
   handed_over: 'took the profile over:',
   settings: 'changed',
 } as const;
+
+const ADD_PROFILE = <TextLink href="/more/new-profile" label="Add a profile for someone you care for" />;
 
 const day = (iso: string) => iso.slice(0, 10);
 
@@ -39,7 +42,9 @@ export function PeopleScreen() {
   if (!profile || !owner) {
     return (
       <Screen title="People with access" backHref="/more">
-        <EmptyState title="Only the owner sees this">Switch to a profile you own to see and change who has access.</EmptyState>
+        <EmptyState title="Only the owner sees this" action={ADD_PROFILE}>
+          Switch to a profile you own to see and change who has access, or add a profile for someone you care for.
+        </EmptyState>
       </Screen>
     );
   }
@@ -82,6 +87,11 @@ export function PeopleScreen() {
         </Card>
       ) : null}
       <InviteForm profileId={profile.id} managed={profile.managed} />
+      <Card>
+        <Text variant="heading">Someone without an account?</Text>
+        <Text color="textMuted">Keep a profile for them (a child, say) and hand it over later by inviting them as its owner.</Text>
+        {ADD_PROFILE}
+      </Card>
       <Card>
         <Text variant="heading">Audit</Text>
         {audit.data?.length ? (

@@ -1,6 +1,6 @@
 import { queryOptions, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 import { profileActionAllowed, type ProfileAction } from '../../shared/schemas/profile-actions';
-import type { ChangePasswordInput, Me, PasswordResetInput, PasswordResetRequestInput, Session, SignInInput, SignUpInput } from '../../shared/schemas/auth';
+import type { ChangePasswordInput, EmailChangeInput, EmailChangeRequested, Me, PasswordResetInput, PasswordResetRequestInput, Session, SignInInput, SignUpInput } from '../../shared/schemas/auth';
 import { activeProfileStore, useActiveProfileId } from '../auth/active-profile-store';
 import { useSession } from '../auth/session';
 import { apiFetch } from './client';
@@ -79,6 +79,22 @@ export function useResetPassword() {
   const start = useStartSession();
   return useMutation({
     mutationFn: (input: PasswordResetInput) => apiFetch<Session>('/auth/password-reset/confirm', { method: 'POST', body: input }),
+    onSuccess: start,
+  });
+}
+
+/** Asks to move the account to a new address; a link goes there (the answer is the same if another account uses it). */
+export function useRequestEmailChange() {
+  return useMutation({
+    mutationFn: (input: EmailChangeInput) => apiFetch<EmailChangeRequested>('/auth/email', { method: 'POST', body: input }),
+  });
+}
+
+/** Confirms the new address with the token from its link; this device gets a fresh session, others are signed out. */
+export function useConfirmEmailChange() {
+  const start = useStartSession();
+  return useMutation({
+    mutationFn: (token: string) => apiFetch<Session>('/auth/email/confirm', { method: 'POST', body: { token } }),
     onSuccess: start,
   });
 }

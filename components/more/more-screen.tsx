@@ -7,6 +7,7 @@ import { LinkCard } from '../ui/link-card';
 import { Screen } from '../ui/screen';
 import { ErrorState, LoadingState } from '../ui/states';
 import { Text } from '../ui/text';
+import { TextLink } from '../ui/text-link';
 
 const ACCESS_WORDS = { owner: 'Your own profile', carer: 'You care for this person', clinician: 'You support this person' } as const;
 
@@ -33,6 +34,7 @@ export function MoreScreen() {
             </View>
           ))
         )}
+        <TextLink href="/more/new-profile" label="Add a profile for someone you care for" />
       </Card>
       <LinkCard
         title="Logbook"
@@ -71,6 +73,9 @@ export function MoreScreen() {
         <View style={styles.actions}>
           <Link href="/more/password" asChild>
             <Button variant="secondary" label="Change password" />
+          </Link>
+          <Link href="/more/email" asChild>
+            <Button variant="secondary" label="Change e-mail address" />
           </Link>
           <Button variant="danger" label="Sign out" loading={signOut.isPending} onPress={() => signOut.mutate()} />
         </View>

@@ -16,7 +16,7 @@ export const TABS: { name: string; href: Extract<Href, string>; label: string; i
   { name: 'recipes', href: '/recipes', label: 'Recipes', icon: 'recipes', also: [] },
   { name: 'kitchen', href: '/kitchen', label: 'Kitchen', icon: 'kitchen', also: ['portions', 'batches'] },
   { name: 'plan', href: '/plan', label: 'Plan', icon: 'plan', also: [] },
-  { name: 'more', href: '/more', label: 'You', icon: 'more', also: ['settings', 'foods', 'admin', 'invitation'] },
+  { name: 'more', href: '/more', label: 'You', icon: 'more', also: ['settings', 'foods', 'admin', 'invitation', 'confirm-email'] },
 ];
 
 /** The clinician's desk: a tab only for accounts that support someone as clinician (or hold the clinician role). */
@@ -35,6 +35,7 @@ const HIDDEN = [
   { name: 'admin/imports', href: '/admin/imports' },
   { name: 'logbook', href: '/logbook' },
   { name: 'invitation', href: '/invitation' },
+  { name: 'confirm-email', href: '/confirm-email' },
 ];
 
 type Triggers = Parameters<typeof useTabsWithTriggers>[0]['triggers'];

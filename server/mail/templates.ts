@@ -18,10 +18,12 @@ export type MailData = {
   email_changed: { oldEmail: string; newEmail: string };
   /** Sent to the new address: confirm it before it replaces the old one. */
   email_change_confirm: { newEmail: string; link: string; expiresInMinutes: number };
+  /** Sent to the new address instead of a link when an account already uses it (the requester is told nothing). */
+  email_change_taken: { newEmail: string };
 };
 
 export type MailKind = keyof MailData;
-export const MAIL_KINDS = ['invitation', 'share_offer', 'password_reset', 'access_revoked', 'email_changed', 'email_change_confirm'] as const satisfies readonly MailKind[];
+export const MAIL_KINDS = ['invitation', 'share_offer', 'password_reset', 'access_revoked', 'email_changed', 'email_change_confirm', 'email_change_taken'] as const satisfies readonly MailKind[];
 
 export type RenderedMail = { subject: string; text: string; html: string };
 
@@ -96,7 +98,8 @@ const RENDER: { [K in MailKind]: (data: MailData[K]) => RenderedMail } = {
   email_changed: (d) =>
     compose('Your Carbwright e-mail address has changed', [
       `The e-mail address of your Carbwright account has changed from ${d.oldEmail} to ${d.newEmail}. From now on, sign in with the new address.`,
-      'If you did not make this change, reset your password straight away from the sign-in page using the new address, or ask the person who runs your Carbwright to lock the account.',
+      // A reset would now go to the new address, so it cannot help someone whose address was taken over.
+      'If you did not make this change, ask the person who runs your Carbwright to lock the account straight away: a password reset now goes to the new address.',
     ]),
   email_change_confirm: (d) =>
     compose('Confirm your new Carbwright e-mail address', [
@@ -104,6 +107,12 @@ const RENDER: { [K in MailKind]: (data: MailData[K]) => RenderedMail } = {
       { link: d.link, label: 'Confirm this address' },
       `The old address keeps working until you confirm. The link works once, for ${d.expiresInMinutes} minutes.`,
       NOT_YOU,
+    ]),
+  email_change_taken: (d) =>
+    compose('Someone asked to use this address on Carbwright', [
+      `Someone signed in to a Carbwright account asked to use ${d.newEmail} as its e-mail address. An account already uses this address, so nothing has changed.`,
+      'If it was you, you already have an account here: sign in with this address, or choose another address for the other account.',
+      'If you did not expect this, you can ignore this message.',
     ]),
 };
 

@@ -1,5 +1,8 @@
 import {
   changePasswordInputSchema,
+  emailChangeConfirmInputSchema,
+  emailChangeInputSchema,
+  emailChangeRequestedSchema,
   meSchema,
   passwordResetInputSchema,
   passwordResetRequestedSchema,
@@ -11,10 +14,11 @@ import {
 import { authLimits } from '../middleware/rate-limit';
 import { clearSessionCookies, sendSession } from '../middleware/session-cookie';
 import { changePassword, getMe, signIn, signOut, signUp } from '../services/auth.service';
+import { confirmEmailChange, emailChangeRequestedMessage, requestEmailChange } from '../services/email-change.service';
 import { requestPasswordReset, resetPassword, RESET_REQUESTED_MESSAGE } from '../services/password-reset.service';
 import { access, defineRoute, type AnyRoute, type AppDeps } from './registry';
 
-/** Sign-up, sign-in, sign-out, password change and /me. */
+/** Sign-up, sign-in, sign-out, password change and reset, e-mail change and /me. */
 export function authRoutes({ config, sequelize }: AppDeps): AnyRoute[] {
   const limits = authLimits(config, sequelize);
   const limiter = limits.perAddress;
@@ -55,6 +59,19 @@ export function authRoutes({ config, sequelize }: AppDeps): AnyRoute[] {
       method: 'post', path: '/auth/password-reset/confirm', access: access.public, before: [limiter], body: passwordResetInputSchema, response: sessionSchema,
       summary: 'Set a new password with the token from the reset link (single use, one hour); ends every other session and signs in.',
       handler: async ({ body }, req, res) => sendSession(config, req, res, await resetPassword(config, body)),
+    }),
+    defineRoute({
+      method: 'post', path: '/auth/email', access: access.signedIn, before: [limiter], body: emailChangeInputSchema, status: 202, response: emailChangeRequestedSchema,
+      summary: 'Ask to change the e-mail address (current password required, rate-limited): a single-use link goes to the new address. The same 202 whether or not another account uses it.',
+      handler: async ({ auth, body }, _req, res) => {
+        await requestEmailChange(auth.user.id, body, limits.mayMail);
+        res.status(202).json({ message: emailChangeRequestedMessage(body.newEmail, auth.user.email) });
+      },
+    }),
+    defineRoute({
+      method: 'post', path: '/auth/email/confirm', access: access.signedIn, before: [limiter], body: emailChangeConfirmInputSchema, response: sessionSchema,
+      summary: 'Confirm the new address with the token from its link (single use, one hour, same account): the old address is told, other sessions end.',
+      handler: async ({ user, body }, req, res) => sendSession(config, req, res, await confirmEmailChange(config, user.id, body)),
     }),
     defineRoute({
       method: 'get', path: '/me', access: access.signedIn, response: meSchema, summary: 'The signed-in account and the profiles it may open.',

@@ -37,6 +37,7 @@ export async function createManagedProfile(userId: number, input: ManagedProfile
       managed: true,
       colour,
       preferredFoodTable: home?.preferredFoodTable ?? 'usda_sr28',
+      timeZone: input.timeZone ?? home?.timeZone ?? 'UTC',
     });
     await ProfileAccessModel.create({ profileId: profile.id, userId, role: 'owner', grantedByUserId: userId, permissions: [] });
     await record({ profileId: profile.id, actorUserId: userId, kind: 'granted', subjectUserId: userId, subjectEmail: creator?.email ?? null, role: 'owner' });

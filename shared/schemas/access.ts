@@ -1,6 +1,7 @@
 import { z } from 'zod';
 import { grantPermissionSchema, profileAccessRoleSchema, profileColourSchema as profileColourSchemaRef } from './auth';
 import { positiveIdSchema, profileIdParamSchema } from './common';
+import { timeZoneSchema } from './units';
 
 export { grantPermissionSchema, profileColourSchema, PROFILE_COLOURS, type ProfileColour } from './auth';
 
@@ -38,6 +39,8 @@ export type AccessChangeInput = z.input<typeof accessChangeInputSchema>;
 export const managedProfileInputSchema = z.object({
   displayName: z.string().trim().min(1, 'Give the profile a name.').max(80, 'Use at most 80 characters.'),
   colour: profileColourSchemaRef.optional(),
+  /** Where their day starts (IANA name); the creator's own profile's time zone when not given. */
+  timeZone: timeZoneSchema.optional(),
 });
 export type ManagedProfileInput = z.input<typeof managedProfileInputSchema>;
 

@@ -122,3 +122,20 @@ export type PasswordResetInput = z.infer<typeof passwordResetInputSchema>;
 
 /** The one answer to a reset request, whether or not an account uses the address. */
 export const passwordResetRequestedSchema = z.object({ message: z.string() });
+
+/** Ask to move the account to a new e-mail address: the current password proves it is the owner asking. */
+export const emailChangeInputSchema = z.object({
+  newEmail: emailSchema,
+  currentPassword: z.string().min(1, 'Enter your current password.').max(200),
+});
+export type EmailChangeInput = z.infer<typeof emailChangeInputSchema>;
+
+/** The token from the link mailed to the new address. */
+export const emailChangeConfirmInputSchema = z.object({
+  token: z.string().min(1, 'This link is incomplete. Ask for a new one.').max(200),
+});
+export type EmailChangeConfirmInput = z.infer<typeof emailChangeConfirmInputSchema>;
+
+/** The one answer to a change request, whether or not another account already uses the new address. */
+export const emailChangeRequestedSchema = z.object({ message: z.string() });
+export type EmailChangeRequested = z.infer<typeof emailChangeRequestedSchema>;

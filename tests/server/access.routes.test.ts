@@ -1,5 +1,5 @@
 import request from 'supertest';
-import { InvitationModel, ProfileAccessModel } from '../../server/models';
+import { InvitationModel, ProfileAccessModel, ProfileModel } from '../../server/models';
 import { bearer, signUpUser, useTestApp } from '../helpers/api';
 import { lastCapturedId, linkIn, waitForMail } from '../helpers/mail';
 
@@ -150,6 +150,34 @@ describe('managed profile', () => {
     ]);
     expect(parentManages.status).toBe(403);
     expect(parentCooks.status).toBe(201);
+  });
+});
+
+describe('managed profile time zone', () => {
+  it.each([
+    // the parent signed up in London; a child's day starts where the family lives unless they say otherwise
+    { name: 'takes the time zone given', body: { displayName: 'Ola', colour: 'moss', timeZone: 'Asia/Kolkata' }, timeZone: 'Asia/Kolkata', colour: 'moss' },
+    // with no colour chosen: the parent's own profile wears the first (teal), so the next free one in PROFILE_COLOURS
+    { name: 'otherwise the creator\'s own profile\'s', body: { displayName: 'Ola' }, timeZone: 'Europe/London', colour: 'plum' },
+  ])('$name', async ({ body, timeZone, colour }) => {
+    const parent = await signUpUser(ctx.app, 'Zoned');
+    await ProfileModel.update({ timeZone: 'Europe/London' }, { where: { id: parent.me.profiles[0].id } });
+
+    const created = await api().post('/api/profiles').set(bearer(parent.token)).send(body);
+
+    expect(created.status).toBe(201);
+    const summary = created.body.me.profiles.find((p: { id: number }) => p.id === created.body.id);
+    expect(summary.timeZone).toBe(timeZone);
+    expect(summary.colour).toBe(colour);
+  });
+
+  it('refuses a time zone that does not exist, under its field', async () => {
+    const parent = await signUpUser(ctx.app, 'Unzoned');
+
+    const res = await api().post('/api/profiles').set(bearer(parent.token)).send({ displayName: 'Ola', timeZone: 'Mars/Olympus' });
+
+    expect(res.status).toBe(400);
+    expect(res.body.error.fieldErrors.timeZone).toBeDefined();
   });
 });
 

@@ -83,7 +83,8 @@ const cases: { [K in MailKind]: { kind: K; data: MailData[K]; mentions: string[]
   { kind: 'share_offer', data: { senderName: 'Alex', recipeName: 'Overnight oats', link: LINK, hasAccount: false }, mentions: ['Alex', 'Overnight oats', 'Create one', LINK] },
   { kind: 'password_reset', data: { link: LINK, expiresInMinutes: 60 }, mentions: [LINK, '60 minutes', 'ignore'] },
   { kind: 'access_revoked', data: { profileName: 'Sam', revokedByName: 'Alex', role: 'clinician' }, mentions: ['Sam', 'Alex', 'clinician'] },
-  { kind: 'email_changed', data: { oldEmail: 'old@example.test', newEmail: 'new@example.test' }, mentions: ['old@example.test', 'new@example.test', 'reset your password'] },
+  { kind: 'email_changed', data: { oldEmail: 'old@example.test', newEmail: 'new@example.test' }, mentions: ['old@example.test', 'new@example.test', 'lock the account'] },
+  { kind: 'email_change_taken', data: { newEmail: 'new@example.test' }, mentions: ['new@example.test', 'already uses this address', 'nothing has changed'] },
   { kind: 'email_change_confirm', data: { newEmail: 'new@example.test', link: LINK, expiresInMinutes: 60 }, mentions: ['new@example.test', LINK, '60 minutes'] },
 ];
 
