@@ -1,14 +1,13 @@
 import { useEffect, useState } from 'react';
 import { StyleSheet, View } from 'react-native';
-import { useMe } from '../api/auth';
 import { useImport, useImports, useStartImport } from '../api/foods';
 import { ChoiceGroup } from '../ui/choice-group';
 import { Button } from '../ui/button';
 import { Callout } from '../ui/callout';
 import { Card } from '../ui/card';
-import { Screen } from '../ui/screen';
 import { ErrorState, LoadingState } from '../ui/states';
 import { Text } from '../ui/text';
+import { AdminScreen } from './admin-screen';
 import { FileInput } from './file-input';
 import { ImportReport } from './import-report';
 
@@ -23,7 +22,14 @@ const LAYOUTS = {
 
 /** Admins upload USDA tables and watch the import; past imports are listed with their reports. */
 export function ImportsScreen() {
-  const me = useMe();
+  return (
+    <AdminScreen title="Dataset imports" subtitle="Load the USDA tables (public domain) beside the default IFCT 2017 table" current="/admin/imports">
+      <Imports />
+    </AdminScreen>
+  );
+}
+
+function Imports() {
   const imports = useImports();
   const start = useStartImport();
   const [kind, setKind] = useState<'fdc' | 'sr28'>('fdc');
@@ -35,19 +41,10 @@ export function ImportsScreen() {
   useEffect(() => {
     if (finished != null) void refetchImports();
   }, [finished, refetchImports]);
-  if (me.data && me.data.user.role !== 'admin') {
-    return (
-      <Screen title="Dataset imports" backHref="/more">
-        <Callout tone="caution" title="Admins only">Only an administrator can import food tables.</Callout>
-      </Screen>
-    );
-  }
-  if (imports.isPending) return <LoadingState />;
-  if (imports.isError) return <ErrorState error={imports.error} onRetry={() => void imports.refetch()} />;
   const upload = () =>
     start.mutate({ kind, files }, { onSuccess: (record) => { setCurrentId(record.id); setFiles([]); } });
   return (
-    <Screen title="Dataset imports" subtitle="Load the USDA tables (public domain) beside the default IFCT 2017 table" backHref="/more">
+    <>
       <Card>
         <ChoiceGroup
           label="Layout"
@@ -71,11 +68,13 @@ export function ImportsScreen() {
       </Card>
       {current.data ? <ImportReport item={current.data} /> : null}
       <Text variant="heading">Earlier imports</Text>
-      {imports.data.length === 0 ? <Text color="textMuted">No imports yet.</Text> : null}
-      {imports.data.filter((i) => i.id !== currentId).map((i) => (
+      {imports.isPending ? <LoadingState /> : null}
+      {imports.isError ? <ErrorState error={imports.error} onRetry={() => void imports.refetch()} /> : null}
+      {imports.data?.length === 0 ? <Text color="textMuted">No imports yet.</Text> : null}
+      {imports.data?.filter((i) => i.id !== currentId).map((i) => (
         <ImportReport key={i.id} item={i} />
       ))}
-    </Screen>
+    </>
   );
 }
 

@@ -62,6 +62,13 @@ export function MoreScreen() {
           ...(user.role === 'admin' ? [{ href: '/admin/imports' as const, label: 'Imports' }] : []),
         ]}
       />
+      {user.role === 'admin' ? (
+        <LinkCard
+          title="Admin's desk"
+          description="Accounts and roles, the mail outbox, the audit of role changes and access to profiles, and food table imports."
+          links={[{ href: '/admin', label: "Admin's desk" }]}
+        />
+      ) : null}
       <LinkCard
         title="Pots and containers"
         description="Saved pots and containers with their empty weights, used when you cook and portion out a batch."

@@ -32,7 +32,7 @@ const HIDDEN = [
   { name: 'batches/[id]/labels', href: '/batches/0/labels' },
   { name: 'settings', href: '/settings' },
   { name: 'foods', href: '/foods' },
-  { name: 'admin/imports', href: '/admin/imports' },
+  { name: 'admin', href: '/admin' },
   { name: 'logbook', href: '/logbook' },
   { name: 'invitation', href: '/invitation' },
   { name: 'confirm-email', href: '/confirm-email' },

@@ -3,6 +3,7 @@ import type { SettingsChange } from '../../shared/schemas/profile-settings';
 import { useActiveProfile } from '../api/auth';
 import { useSettingsHistory } from '../api/profile-settings';
 import { Card } from '../ui/card';
+import { dateTimeText } from '../ui/date-format';
 import { Screen } from '../ui/screen';
 import { EmptyState, ErrorState, LoadingState } from '../ui/states';
 import { Text } from '../ui/text';
@@ -60,7 +61,7 @@ const shown = (v: unknown) =>
 const ACTION = { created: 'set up', updated: 'changed', deleted: 'deleted' } as const;
 
 function ChangeCard({ change }: { change: SettingsChange }) {
-  const when = new Date(change.createdAt).toLocaleString(undefined, { dateStyle: 'medium', timeStyle: 'short' });
+  const when = dateTimeText(change.createdAt);
   return (
     <Card>
       <Text weight="bold">

@@ -79,6 +79,7 @@ export function initModels(sequelize: Sequelize): void {
   InvitationModel.belongsTo(UserModel, { as: 'invitedBy', foreignKey: 'invitedByUserId' });
   AccessEventModel.belongsTo(UserModel, { as: 'actor', foreignKey: 'actorUserId' });
   AccessEventModel.belongsTo(UserModel, { as: 'subject', foreignKey: 'subjectUserId' });
+  AccessEventModel.belongsTo(ProfileModel, { as: 'profile', foreignKey: 'profileId' });
   RecipeShareOfferModel.belongsTo(RecipeModel, { as: 'recipe', foreignKey: 'recipeId' });
   RecipeShareOfferModel.belongsTo(UserModel, { as: 'sender', foreignKey: 'senderUserId' });
   DayKindModel.hasMany(TimeOfDayModel, { as: 'timesOfDay', foreignKey: 'dayKindId' });

@@ -1,6 +1,6 @@
-import { accountAuditListSchema, adminUserListSchema, adminUserQuerySchema, adminUserSchema, changeRoleInputSchema, disableAccountInputSchema } from '../../shared/schemas/accounts-admin';
+import { adminAuditListSchema, adminUserListSchema, adminUserQuerySchema, adminUserSchema, changeRoleInputSchema, disableAccountInputSchema } from '../../shared/schemas/accounts-admin';
 import { idParamSchema } from '../../shared/schemas/common';
-import { changeUserRole, listAccountAudit, listUsers, setUserDisabled } from '../services/users.service';
+import { changeUserRole, listAdminAudit, listUsers, setUserDisabled } from '../services/users.service';
 import { access, defineRoute, type AnyRoute } from './registry';
 
 /** Admin-only account management: search, role, disable, and the audit of those changes. */
@@ -28,8 +28,8 @@ export function adminRoutes(): AnyRoute[] {
       handler: async ({ params, body, user }, _req, res) => res.json(await setUserDisabled(user.id, params.id, false, body.reason)),
     }),
     defineRoute({
-      method: 'get', path: '/admin/audit', summary: 'Role changes and disabled or enabled accounts, newest first.', access: admin, response: accountAuditListSchema,
-      handler: async (_ctx, _req, res) => res.json({ entries: await listAccountAudit() }),
+      method: 'get', path: '/admin/audit', summary: 'Role changes, disabled or enabled accounts, and access to profiles given, changed or revoked: the newest 200, newest first.', access: admin, response: adminAuditListSchema,
+      handler: async (_ctx, _req, res) => res.json({ entries: await listAdminAudit() }),
     }),
   ];
 }

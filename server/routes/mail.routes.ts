@@ -14,7 +14,7 @@ export function mailRoutes(): AnyRoute[] {
   return [
     defineRoute({
       method: 'get', path: '/admin/mail', access: access.role('admin'), query: outboxQuerySchema, response: outboxListSchema,
-      summary: 'The mail outbox, newest first (admin): pending, sent and failed mails with attempts and the last error.',
+      summary: 'The mail outbox, newest first (admin): pending, sent and failed mails with attempts and the last error; `status` filters (`unsent` = pending or failed).',
       handler: async ({ query }, _req, res) => res.json({ mails: await listOutbox(query.status) }),
     }),
     defineRoute({

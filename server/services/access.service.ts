@@ -1,5 +1,6 @@
 import crypto from 'node:crypto';
 import { Op } from 'sequelize';
+import type { AccessAuditEntry } from '../../shared/schemas/accounts-admin';
 import type { AccessChangeInput, AccessPerson, AuditEntry, InvitationInput, InvitationPreview, ManagedProfileInput, OpenInvitation, ProfileAccessList } from '../../shared/schemas/access';
 import { PERMISSIONS_FOR_ROLE } from '../../shared/schemas/access';
 import { PROFILE_COLOURS, type ProfileAccessRole, type ProfileColour } from '../../shared/schemas/auth';
@@ -218,4 +219,32 @@ export async function listAudit(profileId: number, limit = 200): Promise<AuditEn
     permissions: [],
   }));
   return [...access, ...settings].sort((a, b) => b.at.localeCompare(a.at)).slice(0, limit);
+}
+
+/** Every profile's access events for the admin's audit, newest first (at most `limit`). */
+export async function listAccessEvents(limit = 200): Promise<AccessAuditEntry[]> {
+  const events = await AccessEventModel.findAll({
+    include: [
+      { model: UserModel, as: 'actor', attributes: ['id', 'email'] },
+      { model: UserModel, as: 'subject', attributes: ['id', 'email'] },
+      { model: ProfileModel, as: 'profile', attributes: ['id', 'displayName'] },
+    ],
+    order: [['createdAt', 'DESC'], ['id', 'DESC']],
+    limit,
+  });
+  return events.map((e) => {
+    const profile = (e as AccessEventModel & { profile: ProfileModel }).profile;
+    return {
+      source: 'access',
+      id: e.id,
+      action: e.kind,
+      profile: { id: profile.id, displayName: profile.displayName },
+      user: e.subject ? { id: e.subject.id, email: e.subject.email } : null,
+      email: e.subjectEmail,
+      actor: e.actor ? { id: e.actor.id, email: e.actor.email } : null,
+      role: e.role,
+      permissions: e.permissions,
+      createdAt: e.createdAt.toISOString(),
+    };
+  });
 }

@@ -1,5 +1,5 @@
 import { Op } from 'sequelize';
-import type { CapturedMail, OutboxMail } from '../../shared/schemas/mail';
+import type { CapturedMail, OutboxFilter, OutboxMail } from '../../shared/schemas/mail';
 import { publicUrl, type Config } from '../config';
 import { AppError } from '../errors';
 import { currentTransaction } from '../lib/transaction-context';
@@ -51,9 +51,10 @@ function toOutboxMail(row: MailOutboxModel): OutboxMail {
   };
 }
 
-/** The outbox for the admin, newest first: every mail, or only those of one status. */
-export async function listOutbox(status?: OutboxMail['status']): Promise<OutboxMail[]> {
-  const rows = await MailOutboxModel.findAll({ where: status ? { status } : {}, order: [['id', 'DESC']], limit: 200 });
+/** The outbox for the admin, newest first: every mail, those of one status, or the unsent ones (pending or failed). */
+export async function listOutbox(status?: OutboxFilter): Promise<OutboxMail[]> {
+  const where = status === 'unsent' ? { status: ['pending', 'failed'] as OutboxMail['status'][] } : status ? { status } : {};
+  const rows = await MailOutboxModel.findAll({ where, order: [['id', 'DESC']], limit: 200 });
   return rows.map(toOutboxMail);
 }
 

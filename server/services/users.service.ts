@@ -1,7 +1,8 @@
 import { Op } from 'sequelize';
-import type { AccountAuditEntry, AdminUser, ChangeRoleInput } from '../../shared/schemas/accounts-admin';
+import type { AdminAuditEntry, AdminUser, ChangeRoleInput } from '../../shared/schemas/accounts-admin';
 import { AppError } from '../errors';
 import { AccountAuditModel, UserModel } from '../models';
+import { listAccessEvents } from './access.service';
 
 function toAdminUser(u: UserModel): AdminUser {
   return { ...u.toUser(), disabledAt: u.disabledAt?.toISOString() ?? null, disabledReason: u.disabledReason ?? null };
@@ -53,19 +54,20 @@ export async function setUserDisabled(actorId: number, userId: number, disabled:
   });
 }
 
-/** What admins changed on accounts, newest first (at most 200). */
-export async function listAccountAudit(): Promise<AccountAuditEntry[]> {
+/** What admins changed on accounts and who was given or lost access to which profile, newest first (at most `limit`). */
+export async function listAdminAudit(limit = 200): Promise<AdminAuditEntry[]> {
   const rows = await AccountAuditModel.findAll({
     include: [
       { model: UserModel, as: 'user', attributes: ['id', 'email'] },
       { model: UserModel, as: 'actor', attributes: ['id', 'email'] },
     ],
-    order: [['id', 'DESC']],
-    limit: 200,
+    order: [['createdAt', 'DESC'], ['id', 'DESC']],
+    limit,
   });
-  return rows.map((r) => {
+  const accounts: AdminAuditEntry[] = rows.map((r) => {
     const { user, actor } = r as AccountAuditModel & { user: UserModel; actor: UserModel | null };
     return {
+      source: 'account',
       id: r.id,
       action: r.action,
       user: { id: user.id, email: user.email },
@@ -76,4 +78,7 @@ export async function listAccountAudit(): Promise<AccountAuditEntry[]> {
       createdAt: r.createdAt.toISOString(),
     };
   });
+  const access = await listAccessEvents(limit);
+  // Newest first across both (the sort is stable, so each table keeps its own order within one instant).
+  return [...accounts, ...access].sort((a, b) => b.createdAt.localeCompare(a.createdAt)).slice(0, limit);
 }

@@ -20,7 +20,10 @@ export const outboxMailSchema = z.object({
 export type OutboxMail = z.infer<typeof outboxMailSchema>;
 
 export const outboxListSchema = z.object({ mails: z.array(outboxMailSchema) });
-export const outboxQuerySchema = z.object({ status: mailStatusSchema.optional() });
+/** `unsent` = pending or failed: what still needs the admin's eye. */
+export const outboxFilterSchema = z.enum([...mailStatusSchema.options, 'unsent']);
+export type OutboxFilter = z.infer<typeof outboxFilterSchema>;
+export const outboxQuerySchema = z.object({ status: outboxFilterSchema.optional() });
 
 /** A message the local fake SMTP server captured (development only). */
 export const capturedMailSchema = z.object({

@@ -1,6 +1,7 @@
 import request from 'supertest';
 import { UserModel } from '../../server/models';
 import { bearer, signUpUser, useTestApp } from '../helpers/api';
+import { lastCapturedId, linkIn, waitForMail } from '../helpers/mail';
 
 const ctx = useTestApp();
 
@@ -78,5 +79,34 @@ describe('the admin desk: accounts', () => {
 
     expect(res.status).toBe(400);
     expect(res.body.error.fieldErrors.reason).toBeDefined();
+  });
+
+  it('joins the access to profiles into the audit: invited, granted on accepting, changed, revoked, newest first with role changes', async () => {
+    const boss = await admin();
+    const owner = await signUpUser(ctx.app, 'Owner');
+    const carer = await signUpUser(ctx.app, 'Carer');
+    const profileId = owner.me.profiles[0].id;
+    const after = await lastCapturedId(ctx.sequelize);
+    await request(ctx.app).post(`/api/profiles/${profileId}/invitations`).set(bearer(owner.token)).send({ email: carer.email, role: 'carer', permissions: [] });
+    const token = linkIn(await waitForMail(ctx.sequelize, carer.email, { after }), '/invitation').searchParams.get('token')!;
+    expect((await request(ctx.app).post('/api/invitations/accept').set(bearer(carer.token)).send({ token })).status).toBe(200);
+    await request(ctx.app).patch(`/api/profiles/${profileId}/access/${carer.me.user.id}`).set(bearer(owner.token)).send({ permissions: ['settings'] });
+    await request(ctx.app).delete(`/api/profiles/${profileId}/access/${carer.me.user.id}`).set(bearer(owner.token));
+    await request(ctx.app).put(`/api/admin/users/${carer.me.user.id}/role`).set(bearer(boss.token)).send({ role: 'clinician', reason: 'Joined the clinic' });
+
+    const res = await request(ctx.app).get('/api/admin/audit').set(bearer(boss.token));
+
+    expect(res.status).toBe(200);
+    expect(res.body.entries.slice(0, 5).map((e: { source: string; action: string }) => `${e.source} ${e.action}`)).toEqual([
+      'account role_changed', 'access revoked', 'access changed', 'access granted', 'access invited',
+    ]);
+    expect(res.body.entries[2]).toMatchObject({
+      profile: { id: profileId, displayName: owner.me.profiles[0].displayName },
+      user: { id: carer.me.user.id, email: carer.email }, email: carer.email,
+      actor: { email: owner.email }, role: 'carer', permissions: ['settings'],
+    });
+    expect(res.body.entries[4]).toMatchObject({ user: null, email: carer.email, actor: { email: owner.email }, permissions: [] });
+    const times = res.body.entries.map((e: { createdAt: string }) => e.createdAt);
+    expect(times).toEqual([...times].sort().reverse());
   });
 });

@@ -75,6 +75,29 @@ describe('GET /api/admin/mail', () => {
     expect(mail).toMatchObject({ kind: 'access_revoked', subject: "Your access to Sam's profile has ended" });
     expect(JSON.stringify(res.body)).not.toContain('text');
   });
+
+  it('filters by status, and `unsent` gives the pending and failed mails but not the sent ones', async () => {
+    const token = await adminToken();
+    const ids = {
+      pending: await queueMail('access_revoked', 'pending@example.test', { profileName: 'Sam', revokedByName: 'Alex', role: 'carer' }),
+      failed: await queueMail('access_revoked', 'failed@example.test', { profileName: 'Sam', revokedByName: 'Alex', role: 'carer' }),
+      sent: await queueMail('access_revoked', 'sent@example.test', { profileName: 'Sam', revokedByName: 'Alex', role: 'carer' }),
+    };
+    // Once the sender has sent all three, two are set back by hand (the sender leaves them alone): one waits a day, one gave up.
+    for (let i = 0; i < 50 && (await Promise.all(Object.values(ids).map(outboxRow))).some((r) => r.status !== 'sent'); i++) await new Promise((r) => setTimeout(r, 100));
+    await ctx.sequelize.query(`UPDATE mail_outbox SET status = 'pending', next_attempt_at = now() + interval '1 day' WHERE id = ${ids.pending}`);
+    await ctx.sequelize.query(`UPDATE mail_outbox SET status = 'failed', attempts = 8, last_error = 'connection refused', text_body = 'kept' WHERE id = ${ids.failed}`);
+    const ours = (res: request.Response) => res.body.mails.map((m: { id: number }) => m.id).filter((id: number) => Object.values(ids).includes(id));
+
+    const unsent = await request(ctx.app).get('/api/admin/mail').query({ status: 'unsent' }).set(bearer(token));
+    const failed = await request(ctx.app).get('/api/admin/mail').query({ status: 'failed' }).set(bearer(token));
+    const bad = await request(ctx.app).get('/api/admin/mail').query({ status: 'lost' }).set(bearer(token));
+
+    expect(ours(unsent)).toEqual([ids.failed, ids.pending]);
+    expect(ours(failed)).toEqual([ids.failed]);
+    expect(failed.body.mails[0]).toMatchObject({ lastError: 'connection refused', attempts: 8, canResend: true });
+    expect(bad.status).toBe(400);
+  });
 });
 
 const LINK = 'https://carbwright.example/path?token=t0k3n';
