@@ -10,10 +10,12 @@ import { FormTextField } from '../ui/form-text-field';
 import { applyServerErrors } from '../ui/form-errors';
 import { TextLink } from '../ui/text-link';
 import { AuthCard } from './auth-card';
+import { usePasswordEstimator } from './use-password-estimator';
 
 /** Chooses a new password with the token from the mailed link; then signed in, every other device signed out. */
 export function ResetPasswordScreen({ token }: { token: string }) {
   const reset = useResetPassword();
+  usePasswordEstimator();
   const [formError, setFormError] = useState<string>();
   const form = useForm<PasswordResetInput>({ resolver: zodResolver(passwordResetInputSchema), defaultValues: { token, password: '' } });
 

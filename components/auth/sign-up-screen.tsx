@@ -16,10 +16,12 @@ import { TextLink } from '../ui/text-link';
 import { AuthCard } from './auth-card';
 import { safeNext } from './session';
 import { browserTimeZone } from './browser-time-zone';
+import { usePasswordEstimator } from './use-password-estimator';
 
 export function SignUpScreen() {
   const { next } = useLocalSearchParams<{ next?: string }>();
   const signUp = useSignUp();
+  usePasswordEstimator();
   const [formError, setFormError] = useState<string>();
   const form = useForm<SignUpInput>({
     resolver: zodResolver(signUpInputSchema),

@@ -12,7 +12,7 @@ import { Screen } from '../ui/screen';
 import { Text } from '../ui/text';
 import { HistoryFilters } from './history-filters';
 import { HistoryCards, HistoryTable } from './history-list';
-import { LogChartsPanel } from './log-charts';
+import { LazyLogChartsPanel } from './log-charts-lazy';
 import { defaultPeriod } from './log-format';
 import { canSaveFile, saveFile } from '../ui/save-file';
 
@@ -65,7 +65,7 @@ export function HistoryScreen() {
   ) : charts.isError ? (
     <ErrorState error={charts.error} onRetry={() => void charts.refetch()} />
   ) : (
-    <LogChartsPanel data={charts.data} />
+    <LazyLogChartsPanel data={charts.data} />
   );
 
   return (

@@ -11,7 +11,7 @@ import { Card } from '../ui/card';
 import { Screen } from '../ui/screen';
 import { ErrorState, LoadingState } from '../ui/states';
 import { Text } from '../ui/text';
-import { LogChartsPanel } from './log-charts';
+import { LazyLogChartsPanel } from './log-charts-lazy';
 import { unitsText } from './log-format';
 import { ReviewTable } from './review-table';
 import { usePeriodParam } from './review-screen';
@@ -59,7 +59,7 @@ export function ReviewSheetScreen() {
         <LoadingState />
       ) : (
         <>
-          <LogChartsPanel data={charts.data} />
+          <LazyLogChartsPanel data={charts.data} />
           <Card {...keepTogether}>
             <Text variant="heading">Ratio review</Text>
             <ReviewTable review={review.data} carbUnit={profile?.carbUnit ?? 'g'} />

@@ -7,12 +7,14 @@ import { Button } from '../ui/button';
 import { Callout } from '../ui/callout';
 import { Card } from '../ui/card';
 import { FormTextField } from '../ui/form-text-field';
+import { usePasswordEstimator } from '../auth/use-password-estimator';
 import { applyServerErrors } from '../ui/form-errors';
 import { Screen } from '../ui/screen';
 
 /** Change password; every other signed-in device is signed out by it. */
 export function ChangePasswordScreen() {
   const change = useChangePassword();
+  usePasswordEstimator();
   const [formError, setFormError] = useState<string>();
   const form = useForm<ChangePasswordInput>({
     resolver: zodResolver(changePasswordInputSchema),

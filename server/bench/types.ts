@@ -26,8 +26,8 @@ export type HttpScenario = {
   target?: TargetKind;
 };
 
-/** What a task measured; `target` and `met` when it has a target of its own (the importer against COPY). */
-export type TaskResult = { figure: string; unit: string; target?: string; met?: boolean };
+/** What a task measured; `target` and `met` when it has a target of its own (the importer against COPY); `data` goes into the JSON only. */
+export type TaskResult = { figure: string; unit: string; target?: string; met?: boolean; data?: unknown };
 
 /** A measured piece of work that is not one request (e.g. an import): returns its own figures. */
 export type TaskScenario = {

@@ -1,7 +1,12 @@
 #!/usr/bin/env bash
 # npm run bench: a throwaway PostgreSQL, then server/bench/run.ts prints the figures.
 # BENCH_SECONDS (default 5), BENCH_CONNECTIONS (default 10), BENCH_ONLY=<file part> to run one file.
+# `npm run bench -- --only web` is BENCH_ONLY=web; the web part needs no generated volume, so it skips it.
 set -euo pipefail
+if [ "${1:-}" = "--only" ] && [ -n "${2:-}" ]; then
+  export BENCH_ONLY="$2"
+  [ "$2" = "web" ] && export BENCH_VOLUME="${BENCH_VOLUME:-0}"
+fi
 ROOT="$(cd "$(dirname "${BASH_SOURCE[0]}")/../.." && pwd)"
 cd "$ROOT"
 bash server/scripts/ensure-deps.sh

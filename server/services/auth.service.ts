@@ -7,7 +7,7 @@ import type { GrantPermission } from '../../shared/schemas/profile-actions';
 import type { CarbBasis, CarbUnit } from '../../shared/schemas/units';
 import { remember } from '../lib/request-cache';
 import type { Config } from '../config';
-import { passwordProblem, utf8Bytes, PASSWORD_MAX_BYTES } from '../../shared/compute/password';
+import { passwordProblem, utf8Bytes, PASSWORD_MAX_BYTES } from '../lib/passwords';
 import { AppError } from '../errors';
 import { ProfileAccessModel, ProfileModel, RevokedTokenModel, UserModel } from '../models';
 

@@ -1,5 +1,5 @@
 import bcrypt from 'bcryptjs';
-import { passwordProblem } from '../../shared/compute/password';
+import { passwordProblem } from '../lib/passwords';
 import type { PasswordResetInput, Session } from '../../shared/schemas/auth';
 import type { Config } from '../config';
 import { AppError } from '../errors';

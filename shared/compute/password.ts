@@ -1,18 +1,29 @@
-import { ZxcvbnFactory } from '@zxcvbn-ts/core';
-import { adjacencyGraphs, dictionary } from '@zxcvbn-ts/language-common';
+import type { ZxcvbnFactory } from '@zxcvbn-ts/core';
 
 /**
  * Password rules after NIST SP 800-63B section 5.1.1.2: a length floor, no composition rules, and a check against
- * common, guessable and context-specific passwords (zxcvbn-ts with its common dictionaries, all shipped in the
- * bundle: nothing is fetched). The ceiling is bcrypt's: it reads only the first 72 bytes, so longer passwords are
- * refused rather than silently cut.
+ * common, guessable and context-specific passwords (zxcvbn-ts with its common dictionaries, all shipped: nothing is
+ * fetched; see password-estimator.ts). The ceiling is bcrypt's: it reads only the first 72 bytes, so longer passwords
+ * are refused rather than silently cut.
  */
 export const PASSWORD_MIN_LENGTH = 10;
 export const PASSWORD_MAX_BYTES = 72;
 /** zxcvbn score from 0 (too guessable) to 4; 3 and up is "safely unguessable" in its own terms. */
 export const PASSWORD_MIN_SCORE = 3;
 
-let estimator: ZxcvbnFactory | undefined;
+/** What scores a password against the common dictionaries (made by password-estimator.ts). */
+export type PasswordEstimator = Pick<ZxcvbnFactory, 'check'>;
+
+let estimator: PasswordEstimator | undefined;
+
+/**
+ * Sets the estimator passwordProblem uses. The server installs it before it checks any password
+ * (server/lib/passwords.ts); the web app loads it only on the screens that set a password (its dictionaries are
+ * about 470 KB), and until it has, leaves the common-password check to the server, which always makes it.
+ */
+export function installPasswordEstimator(value: PasswordEstimator): void {
+  estimator = value;
+}
 
 const WARNINGS: Record<string, string> = {
   topTen: 'This is one of the most common passwords.',
@@ -51,7 +62,7 @@ export function passwordProblem(password: string, personal: string[] = []): stri
   const lowered = password.trim().toLowerCase();
   const localParts = words.filter((w) => w.includes('@')).map((w) => w.split('@')[0]);
   if (words.includes(lowered) || localParts.includes(lowered)) return 'Do not use your e-mail address or name as your password.';
-  estimator ??= new ZxcvbnFactory({ dictionary, graphs: adjacencyGraphs });
+  if (!estimator) return null;
   const result = estimator.check(password, [...words, ...localParts, 'carbwright']);
   if (result.score >= PASSWORD_MIN_SCORE) return null;
   const warning = (result.feedback.warning && WARNINGS[result.feedback.warning]) || 'This password is too easy to guess.';

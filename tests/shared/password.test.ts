@@ -1,4 +1,5 @@
-import { passwordProblem, utf8Bytes } from '../../shared/compute/password';
+import { installPasswordEstimator, passwordProblem, utf8Bytes } from '../../shared/compute/password';
+import { createPasswordEstimator } from '../../shared/compute/password-estimator';
 import { changePasswordInputSchema, signUpInputSchema } from '../../shared/schemas/auth';
 
 // Rules: NIST SP 800-63B §5.1.1.2 (length floor, no composition rules, refuse values from breach corpuses, dictionary
@@ -20,6 +21,9 @@ const cases: { name: string; password: string; refused: RegExp | null }[] = [
   { name: '73 bytes', password: 'violet-harbour-7'.repeat(4) + 'grebe-mos', refused: /at most 72 bytes/ },
   { name: 'emoji count as four bytes each: 19 of them are 76 bytes', password: '🍲'.repeat(19), refused: /at most 72 bytes/ },
 ];
+
+// As the server does (server/lib/passwords.ts); the web app loads the same estimator on demand.
+beforeAll(() => installPasswordEstimator(createPasswordEstimator()));
 
 describe('passwordProblem', () => {
   it.each(cases)('$name', ({ password, refused }) => {
