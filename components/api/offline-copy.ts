@@ -1,3 +1,10 @@
+/**
+ * The offline copy: what Today and the kitchen's fridge list last showed for the active profile, kept on this device
+ * (the one device storage) with the time each part was fetched, so both open read-only without a connection. Nothing
+ * else is kept: not the dose settings. The day kinds (with their ratios) and the next planned meal (with its planned
+ * dose) are in it for Today's cards, but no dose is worked out or shown from them offline. Cleared on sign-out and
+ * whenever no session cookie is present.
+ */
 import { dehydrate, hydrate, partialMatchKey, useQueryClient, type DehydratedState, type QueryClient, type QueryKey } from '@tanstack/react-query';
 import { useSyncExternalStore } from 'react';
 import type { Me } from '../../shared/schemas/auth';
@@ -13,18 +20,13 @@ import { startOnlineWatch, useIsOnline } from './online';
 import { planKeys } from './plan';
 import { settingsKeys } from './profile-settings';
 
-/**
- * The offline copy: what Today and the kitchen's fridge list last showed for the active profile, kept on this device
- * (the one device storage) with the time each part was fetched, so both open read-only without a connection. Nothing
- * else is kept: no dose answer, no settings. Cleared on sign-out and whenever no session cookie is present.
- */
 const STORAGE_KEY = 'carbwright.offline-copy';
 const VERSION = 1;
 /** A copy older than this is dropped rather than shown. */
 export const OFFLINE_COPY_MAX_AGE_MS = 7 * 24 * 3_600_000;
 const SAVE_DELAY_MS = 300;
 
-type StoredCopy = { version: number; savedAt: number; userId: number; state: DehydratedState };
+type StoredCopy = { version: number; savedAt: number; state: DehydratedState };
 
 /** The profile whose copy is kept: the active one, picked as useActiveProfile picks it. */
 function keptProfileId(me: Me | undefined): number | undefined {
@@ -65,7 +67,7 @@ export function saveOfflineCopy(qc: QueryClient, now = Date.now()) {
     shouldDehydrateQuery: (q) => q.state.status === 'success' && isOfflineQuery(q.queryKey, profileId),
     shouldDehydrateMutation: () => false,
   });
-  const copy: StoredCopy = { version: VERSION, savedAt: now, userId: me.user.id, state };
+  const copy: StoredCopy = { version: VERSION, savedAt: now, state };
   try {
     storage.setItem(STORAGE_KEY, JSON.stringify(copy));
   } catch {
