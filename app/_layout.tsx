@@ -5,16 +5,19 @@ import { QueryClientProvider } from '@tanstack/react-query';
 import { useFonts } from 'expo-font';
 import { Stack } from 'expo-router';
 import { StatusBar } from 'expo-status-bar';
-import { useState } from 'react';
+import { useEffect, useState } from 'react';
 import { SafeAreaProvider } from 'react-native-safe-area-context';
+import { withOfflineCopy } from '@/components/api/offline-copy';
 import { createQueryClient } from '@/components/api/query-client';
 import { SessionProvider } from '@/components/auth/session';
+import { registerServiceWorker } from '@/components/offline/service-worker';
 import { palette } from '@/components/theme/tokens';
 
 export { ErrorBoundary } from 'expo-router';
 
 export default function RootLayout() {
-  const [queryClient] = useState(createQueryClient);
+  const [queryClient] = useState(() => withOfflineCopy(createQueryClient()));
+  useEffect(registerServiceWorker, []);
   const [fontsLoaded, fontError] = useFonts({ Lora_400Regular, Lora_600SemiBold, Lora_700Bold });
   if (!fontsLoaded && !fontError) return null;
   return (

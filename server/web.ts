@@ -5,8 +5,12 @@ import express, { type Express, type Request, type Response } from 'express';
 // Hashed file names (the build's _expo/ and assets/ folders) never change content: a browser may keep them a year.
 const IMMUTABLE = 'public, max-age=31536000, immutable';
 
+/** The offline app shell's service worker (server/lib/service-worker.ts), at the root of the build. */
+export const SERVICE_WORKER_FILE = 'sw.js';
+
 function cacheControl(file: string): string | null {
-  if (file.endsWith('.html') || file.endsWith('.webmanifest')) return 'no-cache';
+  // The service worker is checked for updates on every visit: a year-long copy would pin an old app shell.
+  if (file.endsWith('.html') || file.endsWith('.webmanifest') || path.basename(file) === SERVICE_WORKER_FILE) return 'no-cache';
   if (file.includes(`${path.sep}_expo${path.sep}`) || file.includes(`${path.sep}assets${path.sep}`)) return IMMUTABLE;
   return null;
 }

@@ -1,5 +1,6 @@
 import { apiErrorSchema } from '../../shared/schemas/api-error';
 import { sessionCookie } from '../auth/session-cookie';
+import { isOnline, NOT_SAVED_OFFLINE } from './online';
 
 /** An error answer from the API, in the one shape the server sends. */
 export class ApiError extends Error {
@@ -33,7 +34,7 @@ export function queryString(params: Record<string, string | number | undefined |
   return parts.length ? `?${parts.join('&')}` : '';
 }
 
-/** The one fetch wrapper: JSON in and out, the session cookie and its CSRF header, errors as ApiError. */
+/** The one fetch wrapper: JSON in and out, the session cookie and its CSRF header, errors as ApiError; no write offline. */
 export async function apiFetch<T>(path: string, init: Init = {}): Promise<T> {
   const res = await send(path, init);
   if (res.status === 204) return undefined as T;
@@ -53,7 +54,10 @@ async function send(path: string, init: Init): Promise<Response> {
   const isForm = typeof FormData !== 'undefined' && init.body instanceof FormData;
   if (init.body !== undefined && !isForm) headers.set('Content-Type', 'application/json');
   const method = (init.method ?? 'GET').toUpperCase();
-  if (csrf && method !== 'GET' && method !== 'HEAD') headers.set('X-CSRF-Token', csrf);
+  const writes = method !== 'GET' && method !== 'HEAD';
+  // Offline a write is refused here, never queued or shown as saved.
+  if (writes && !isOnline()) throw new ApiError(0, 'offline', NOT_SAVED_OFFLINE);
+  if (csrf && writes) headers.set('X-CSRF-Token', csrf);
   let res: Response;
   try {
     res = await fetch(`${API_BASE}/api${path}`, {

@@ -1,6 +1,7 @@
 import { createContext, useCallback, useContext, useEffect, useMemo, useState, type ReactNode } from 'react';
 import { useQueryClient } from '@tanstack/react-query';
 import { setUnauthorizedHandler } from '../api/client';
+import { clearOfflineCopy } from '../api/offline-copy';
 import { sessionCookie } from './session-cookie';
 
 type Status = 'loading' | 'signed-in' | 'signed-out';
@@ -8,7 +9,7 @@ type SessionValue = { status: Status; signIn: () => void; signOut: () => void };
 
 const SessionContext = createContext<SessionValue | null>(null);
 
-/** Holds whether someone is signed in (the session itself is an HttpOnly cookie); any 401 from the API signs out. */
+/** Holds whether someone is signed in (the session itself is an HttpOnly cookie); any 401 from the API signs out. Signing out forgets the offline copy. */
 export function SessionProvider({ children }: { children: ReactNode }) {
   const queryClient = useQueryClient();
   const [status, setStatus] = useState<Status>('loading');
@@ -22,6 +23,7 @@ export function SessionProvider({ children }: { children: ReactNode }) {
   }, []);
   const signOut = useCallback(() => {
     sessionCookie.clear();
+    clearOfflineCopy();
     setStatus('signed-out');
     queryClient.clear();
   }, [queryClient]);

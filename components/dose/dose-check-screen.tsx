@@ -1,5 +1,7 @@
 import { Link } from 'expo-router';
+import { useEffect } from 'react';
 import { StyleSheet, View } from 'react-native';
+import { useIsOnline } from '../api/online';
 import { useLayout } from '../theme/use-theme';
 import { Button } from '../ui/button';
 import { Callout } from '../ui/callout';
@@ -9,16 +11,24 @@ import { Text } from '../ui/text';
 import { DoseBreakdownView } from './dose-breakdown';
 import { DoseCaution } from './dose-caution';
 import { DoseExtraFields, DoseMealFields } from './dose-form-fields';
+import { DoseOffline } from './dose-offline';
 import { LogMealPanel } from './log-meal-panel';
 import { useDoseCheck, type DoseCheckParams } from './use-dose-check';
 
 export type { DoseCheckParams };
 
-/** The dose check: carbohydrate, glucose, exercise → the server's suggestion as a readable sum, caution always shown. */
+/** The dose check: carbohydrate, glucose, exercise → the server's suggestion as a readable sum, caution always shown; refused offline. */
 export function DoseCheckScreen(params: DoseCheckParams) {
   const { profile, isPending, settings, kinds, suggest, lookup, pickPortion, form, submit, formError, picked, resultRef } = useDoseCheck(params);
   const { isWide } = useLayout();
+  const online = useIsOnline();
+  const { reset: forgetAnswer } = suggest;
+  useEffect(() => {
+    if (!online) forgetAnswer();
+  }, [online, forgetAnswer]);
 
+  // Offline nothing is worked out, and an answer already on screen goes too: a stale suggestion is a hazard.
+  if (!online) return <DoseOffline log={!!params.log} />;
   if (isPending || !profile || settings.isPending || kinds.isPending) return <LoadingState />;
   if (settings.isError) return <ErrorState error={settings.error} onRetry={() => void settings.refetch()} />;
   if (kinds.isError) return <ErrorState error={kinds.error} onRetry={() => void kinds.refetch()} />;

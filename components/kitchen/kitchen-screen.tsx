@@ -2,7 +2,11 @@ import { router } from 'expo-router';
 import { useState } from 'react';
 import { StyleSheet, View } from 'react-native';
 import { normalizePortionCode } from '../../shared/compute/portion-code';
-import { useActiveProfile } from '../api/auth';
+import { authKeys, useActiveProfile } from '../api/auth';
+import { batchKeys } from '../api/batches';
+import { containerKeys } from '../api/containers';
+import { useOfflineCopy } from '../api/offline-copy';
+import { OfflineNotice } from '../offline/offline-notice';
 import { useLayout } from '../theme/use-theme';
 import { Button } from '../ui/button';
 import { Card } from '../ui/card';
@@ -15,7 +19,7 @@ import { ContainersPanel } from './containers-panel';
 import { localToday } from './kitchen-format';
 import { useBatches } from '../api/batches';
 
-/** The kitchen: what is in the fridge and freezer by batch, cooking a new batch, and the saved containers. */
+/** The kitchen: what is in the fridge and freezer by batch, cooking a new batch, and the saved containers; offline, the copy kept on this device. */
 export function KitchenScreen() {
   const { profile } = useActiveProfile();
   const batches = useBatches(profile?.id, 'all');
@@ -24,6 +28,8 @@ export function KitchenScreen() {
   const [code, setCode] = useState('');
   const [codeError, setCodeError] = useState<string>();
   const today = localToday();
+  const pid = profile?.id ?? 0;
+  const copy = useOfflineCopy([authKeys.me(), batchKeys.list({ profileId: pid, include: 'all' }), containerKeys.list(pid)]);
 
   const openCode = () => {
     const normal = normalizePortionCode(code);
@@ -35,7 +41,7 @@ export function KitchenScreen() {
   const shown = (batches.data ?? []).filter((b) => show === 'all' || b.counts.available > 0);
   const inventory = batches.isPending ? (
     <LoadingState />
-  ) : batches.isError ? (
+  ) : batches.isError && !batches.data ? (
     <ErrorState error={batches.error} onRetry={batches.refetch} />
   ) : shown.length === 0 ? (
     <EmptyState title={show === 'all' ? 'No batches cooked yet' : 'Nothing in the fridge or freezer'}>
@@ -52,6 +58,7 @@ export function KitchenScreen() {
       subtitle="Cook a batch by weight and portion it out with labels."
       actions={<Button label="Cook a batch" size="lg" onPress={() => router.push('/kitchen/batches/new')} />}
     >
+      {copy.offline && profile ? <OfflineNotice asOf={copy.asOf} timeZone={profile.timeZone} /> : null}
       <View style={isWide ? styles.columns : styles.stack}>
         <View style={[styles.stack, isWide && styles.main]}>
           <View style={styles.row}>

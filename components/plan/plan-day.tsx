@@ -1,6 +1,8 @@
 import { StyleSheet, View } from 'react-native';
 import type { PlanDay } from '../../shared/schemas/plan';
 import type { CarbUnit } from '../../shared/schemas/units';
+import { useIsOnline } from '../api/online';
+import { DOSE_NOT_SHOWN_OFFLINE } from '../offline/offline-notice';
 import { useTheme } from '../theme/use-theme';
 import { Button } from '../ui/button';
 import { Card } from '../ui/card';
@@ -16,6 +18,7 @@ const FROM_WORDS = { date: 'set for this date', pattern: 'weekly pattern', defau
 export function PlanDayCard({ day, unit, compact, onRemove }: { day: PlanDay; unit: CarbUnit; compact?: boolean; onRemove?: (mealId: number) => void }) {
   const t = useTheme();
   const totals = totalsText(day.totals, unit);
+  const online = useIsOnline();
   // Seven columns are narrow: the totals take the smaller type so long words are not broken.
   const size = compact ? 'caption' : 'body';
   return (
@@ -33,7 +36,7 @@ export function PlanDayCard({ day, unit, compact, onRemove }: { day: PlanDay; un
             {m.title} — {m.detail}
           </Text>
           <Text>Carbohydrate: {mealCarbText(m, unit)}</Text>
-          <Text>Planned dose: {plannedDoseText(m.dose)}</Text>
+          <Text>Planned dose: {online ? plannedDoseText(m.dose) : DOSE_NOT_SHOWN_OFFLINE}</Text>
           {m.logged?.carbGrams != null ? <Text color="textMuted">Logged: {mealCarbText({ ...m, carb: { grams: m.logged.carbGrams, inUnit: null }, plannedCarb: null }, unit)}</Text> : null}
           {onRemove && !m.logged ? (
             <View {...hideInPrint} style={styles.remove}>
@@ -44,7 +47,7 @@ export function PlanDayCard({ day, unit, compact, onRemove }: { day: PlanDay; un
       ))}
       <View style={styles.totals} aria-label="Day totals">
         <Text weight="bold" variant={size}>Carbohydrate {totals.carb}</Text>
-        <Text variant={size}>Planned rapid-acting {totals.rapid}</Text>
+        <Text variant={size}>Planned rapid-acting {online ? totals.rapid : DOSE_NOT_SHOWN_OFFLINE}</Text>
         <Text variant={size}>Long-acting {totals.long}</Text>
       </View>
     </Card>

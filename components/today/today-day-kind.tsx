@@ -17,8 +17,8 @@ export function TodayDayKindCard({ profileId, today }: { profileId: number; toda
   const setDay = useSetDayKindDay(profileId);
 
   if (kinds.isPending || days.isPending) return <Card><LoadingState label="Loading the kind of day…" /></Card>;
-  if (kinds.isError) return <Card><ErrorState error={kinds.error} onRetry={() => void kinds.refetch()} /></Card>;
-  if (days.isError) return <Card><ErrorState error={days.error} onRetry={() => void days.refetch()} /></Card>;
+  if (kinds.isError && !kinds.data) return <Card><ErrorState error={kinds.error} onRetry={() => void kinds.refetch()} /></Card>;
+  if (days.isError && !days.data) return <Card><ErrorState error={days.error} onRetry={() => void days.refetch()} /></Card>;
 
   if (kinds.data.length === 0) {
     return (

@@ -1,6 +1,8 @@
 import { Link } from 'expo-router';
+import { useIsOnline } from '../api/online';
 import { useNextPlanMeal } from '../api/plan';
 import { doseCheckHref } from '../dose/dose-href';
+import { DOSE_NOT_SHOWN_OFFLINE } from '../offline/offline-notice';
 import { mealCarbText, plannedDoseText, PLANNED_DOSE_WORDS } from '../plan/plan-format';
 import type { CarbUnit } from '../../shared/schemas/units';
 import { Button } from '../ui/button';
@@ -11,8 +13,9 @@ import { Text } from '../ui/text';
 /** The next planned meal not yet logged (from the week plan), offered first; nothing when none is planned. */
 export function TodayNextMealCard({ profileId, unit }: { profileId: number; unit: CarbUnit }) {
   const next = useNextPlanMeal(profileId);
+  const online = useIsOnline();
   if (next.isPending) return <Card><LoadingState label="Loading the next planned meal…" /></Card>;
-  if (next.isError) return <Card><ErrorState error={next.error} onRetry={() => void next.refetch()} /></Card>;
+  if (next.isError && !next.data) return <Card><ErrorState error={next.error} onRetry={() => void next.refetch()} /></Card>;
   const meal = next.data.meal;
   if (!meal) return null;
   return (
@@ -21,7 +24,7 @@ export function TodayNextMealCard({ profileId, unit }: { profileId: number; unit
       <Text variant="heading">{meal.mealName} · {meal.date} {meal.time}</Text>
       <Text>{meal.title} — {meal.detail}</Text>
       <Text>Carbohydrate: {mealCarbText(meal, unit)}</Text>
-      <Text>Planned dose: {plannedDoseText(meal.dose)}</Text>
+      <Text>Planned dose: {online ? plannedDoseText(meal.dose) : DOSE_NOT_SHOWN_OFFLINE}</Text>
       <Text color="textMuted">{PLANNED_DOSE_WORDS}</Text>
       <Link
         href={

@@ -64,7 +64,7 @@ function PortionRow({ row, unit, today }: { row: Row; unit: CarbUnit; today: str
 export function TodayPortionsCard({ profileId, unit, today }: { profileId: number; unit: CarbUnit; today: string }) {
   const batches = useBatches(profileId, 'available');
   if (batches.isPending) return <Card><LoadingState label="Loading the fridge and freezer…" /></Card>;
-  if (batches.isError) return <Card><ErrorState error={batches.error} onRetry={() => void batches.refetch()} /></Card>;
+  if (batches.isError && !batches.data) return <Card><ErrorState error={batches.error} onRetry={() => void batches.refetch()} /></Card>;
   const rows = availablePortions(batches.data);
   if (rows.length === 0) {
     return (

@@ -1,8 +1,14 @@
 import { Link } from 'expo-router';
 import { useState } from 'react';
 import { StyleSheet, View } from 'react-native';
-import { useActiveProfile, useMe } from '../api/auth';
+import { authKeys, useActiveProfile, useMe } from '../api/auth';
+import { batchKeys } from '../api/batches';
+import { dayKeys } from '../api/days';
+import { useOfflineCopy } from '../api/offline-copy';
+import { planKeys } from '../api/plan';
+import { settingsKeys } from '../api/profile-settings';
 import { localToday } from '../kitchen/kitchen-format';
+import { OfflineNotice } from '../offline/offline-notice';
 import { useLayout } from '../theme/use-theme';
 import { Button } from '../ui/button';
 import { Screen } from '../ui/screen';
@@ -15,13 +21,15 @@ function todayLabel(now: Date) {
   return now.toLocaleDateString(undefined, { weekday: 'long', day: 'numeric', month: 'long' });
 }
 
-/** Today: the day's kind (which ratios apply), a dose check, and the portions waiting in the fridge and freezer. */
+/** Today: the day's kind (which ratios apply), a dose check, and the portions waiting in the fridge and freezer; offline, the copy kept on this device. */
 export function TodayScreen() {
   const me = useMe();
   const { profile } = useActiveProfile();
   const { isWide } = useLayout();
   const [today] = useState(() => localToday());
   const name = me.data?.user.displayName;
+  const pid = profile?.id ?? 0;
+  const copy = useOfflineCopy([authKeys.me(), settingsKeys.dayKinds(pid), dayKeys.list(pid, today, today), planKeys.next(pid), batchKeys.list({ profileId: pid, include: 'available' })]);
   return (
     <Screen title={name ? `Good to see you, ${name}` : 'Today'} subtitle={todayLabel(new Date())}>
       <View style={styles.actions}>
@@ -38,9 +46,10 @@ export function TodayScreen() {
           <Button variant="secondary" label="Logbook" size="lg" />
         </Link>
       </View>
+      {copy.offline && profile ? <OfflineNotice asOf={copy.asOf} timeZone={profile.timeZone} /> : null}
       {me.isPending ? (
         <LoadingState />
-      ) : me.isError ? (
+      ) : me.isError && !me.data ? (
         <ErrorState error={me.error} onRetry={() => void me.refetch()} />
       ) : profile ? (
         <View style={[styles.columns, isWide && styles.columnsWide]}>

@@ -1,13 +1,25 @@
 import type { ReactNode } from 'react';
 import { ActivityIndicator, StyleSheet, View } from 'react-native';
 import { ApiError } from '../api/client';
+import { useIsOnline } from '../api/online';
 import { useTheme } from '../theme/use-theme';
 import { Button } from './button';
 import { Text } from './text';
 
-/** Shown while a query loads. */
+/** Shown while a query loads; offline (queries wait for a connection) it says so instead of spinning. */
 export function LoadingState({ label = 'Loading…' }: { label?: string }) {
   const t = useTheme();
+  const online = useIsOnline();
+  if (!online) {
+    return (
+      <View style={styles.center} role="status">
+        <Text weight="bold">You are offline</Text>
+        <Text color="textMuted" style={styles.text}>
+          This part was not kept on this device. It loads when you are back online.
+        </Text>
+      </View>
+    );
+  }
   return (
     <View style={styles.center} role="progressbar" aria-label={label}>
       <ActivityIndicator color={t.colors.primary} />

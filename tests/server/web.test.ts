@@ -20,6 +20,7 @@ const write = (rel: string, text: string) => {
 write('_expo/static/js/web/entry-abc123.js', bundle);
 write('index.html', html);
 fs.writeFileSync(path.join(dist, 'manifest.webmanifest'), '{"name":"Carbwright"}');
+write('sw.js', `self.addEventListener('fetch', () => {}); // ${'precache '.repeat(200)}`);
 
 const app = express();
 serveWeb(app, dist);
@@ -61,6 +62,18 @@ describe('serving the web build', () => {
     expect(res.headers['content-encoding']).toBe('br');
     expect(res.headers['cache-control']).toBe('no-cache');
     expect(res.headers['content-type']).toMatch(/text\/html/);
+  });
+
+  it.each([
+    { name: 'its brotli copy', accept: 'br', encoding: 'br' },
+    { name: 'the plain file', accept: 'identity', encoding: undefined },
+  ])('revalidates the service worker on every visit, never keeps it a year: $name', async ({ accept, encoding }) => {
+    const res = await request(app).get('/sw.js').set('Accept-Encoding', accept);
+
+    expect(res.status).toBe(200);
+    expect(res.headers['content-encoding']).toBe(encoding);
+    expect(res.headers['content-type']).toMatch(/javascript/);
+    expect(res.headers['cache-control']).toBe('no-cache');
   });
 
   it('revalidates the manifest and never serves a path outside the build', async () => {

@@ -1,0 +1,132 @@
+/**
+ * The offline copy: what Today and the kitchen's fridge list last showed for the active profile, kept on this device
+ * (the one device storage) with the time each part was fetched, so both open read-only without a connection. Nothing
+ * else is kept: not the dose settings. The day kinds (with their ratios) and the next planned meal (with its planned
+ * dose) are in it for Today's cards, but no dose is worked out or shown from them offline. Cleared on sign-out and
+ * whenever no session cookie is present.
+ */
+import { dehydrate, hydrate, partialMatchKey, useQueryClient, type DehydratedState, type QueryClient, type QueryKey } from '@tanstack/react-query';
+import { useSyncExternalStore } from 'react';
+import type { Me } from '../../shared/schemas/auth';
+import { activeProfileStore } from '../auth/active-profile-store';
+import { deviceStorage } from '../auth/device-storage';
+import { sessionCookie } from '../auth/session-cookie';
+import { authKeys } from './auth';
+import { batchKeys } from './batches';
+import { ApiError } from './client';
+import { containerKeys } from './containers';
+import { dayKeys } from './days';
+import { startOnlineWatch, useIsOnline } from './online';
+import { planKeys } from './plan';
+import { settingsKeys } from './profile-settings';
+
+const STORAGE_KEY = 'carbwright.offline-copy';
+const VERSION = 1;
+/** A copy older than this is dropped rather than shown. */
+export const OFFLINE_COPY_MAX_AGE_MS = 7 * 24 * 3_600_000;
+const SAVE_DELAY_MS = 300;
+
+type StoredCopy = { version: number; savedAt: number; state: DehydratedState };
+
+/** The profile whose copy is kept: the active one, picked as useActiveProfile picks it. */
+function keptProfileId(me: Me | undefined): number | undefined {
+  const chosen = activeProfileStore.get();
+  return me?.profiles.find((p) => p.id === chosen)?.id ?? me?.profiles[0]?.id;
+}
+
+/** True for a query Today or the fridge list shows for this profile: the only queries kept offline. */
+export function isOfflineQuery(key: QueryKey, profileId: number): boolean {
+  const kept: QueryKey[] = [
+    authKeys.me(),
+    [...batchKeys.lists(), { profileId }],
+    containerKeys.list(profileId),
+    settingsKeys.dayKinds(profileId),
+    dayKeys.lists(profileId),
+    planKeys.next(profileId),
+  ];
+  return kept.some((prefix) => partialMatchKey(key, prefix));
+}
+
+let saveTimer: ReturnType<typeof setTimeout> | undefined;
+
+/** Forgets the offline copy on this device (sign-out, another person signing in, no session). */
+export function clearOfflineCopy() {
+  clearTimeout(saveTimer);
+  deviceStorage()?.removeItem(STORAGE_KEY);
+}
+
+/** Writes the kept queries of the signed-in person's active profile, with their fetch times. */
+export function saveOfflineCopy(qc: QueryClient, now = Date.now()) {
+  const storage = deviceStorage();
+  if (!storage) return;
+  if (!sessionCookie.csrf()) return clearOfflineCopy();
+  const me = qc.getQueryData<Me>(authKeys.me());
+  const profileId = keptProfileId(me);
+  if (!me || profileId == null) return;
+  const state = dehydrate(qc, {
+    shouldDehydrateQuery: (q) => q.state.status === 'success' && isOfflineQuery(q.queryKey, profileId),
+    shouldDehydrateMutation: () => false,
+  });
+  const copy: StoredCopy = { version: VERSION, savedAt: now, state };
+  try {
+    storage.setItem(STORAGE_KEY, JSON.stringify(copy));
+  } catch {
+    // Storage full or refused: keep no copy rather than a partial or older one.
+    clearOfflineCopy();
+  }
+}
+
+/** Puts the kept copy back into the query cache (each query with its own fetch time); drops one too old or unsigned. */
+export function restoreOfflineCopy(qc: QueryClient, now = Date.now()) {
+  const raw = deviceStorage()?.getItem(STORAGE_KEY);
+  if (!raw) return;
+  let copy: StoredCopy | undefined;
+  try {
+    copy = JSON.parse(raw) as StoredCopy;
+  } catch {
+    copy = undefined;
+  }
+  if (!copy || copy.version !== VERSION || !sessionCookie.csrf() || now - copy.savedAt > OFFLINE_COPY_MAX_AGE_MS) return clearOfflineCopy();
+  const queries = copy.state.queries.filter((q) => now - q.state.dataUpdatedAt <= OFFLINE_COPY_MAX_AGE_MS);
+  hydrate(qc, { ...copy.state, queries });
+}
+
+/**
+ * The app's query client with its offline copy: restored at start, written again shortly after any kept query
+ * succeeds. Kept queries are held in memory as long as the copy may be shown, so none drops out of it unseen.
+ */
+export function withOfflineCopy(qc: QueryClient): QueryClient {
+  for (const family of [authKeys.me(), batchKeys.lists(), containerKeys.lists(), settingsKeys.all, planKeys.all]) {
+    qc.setQueryDefaults(family, { gcTime: OFFLINE_COPY_MAX_AGE_MS });
+  }
+  startOnlineWatch();
+  restoreOfflineCopy(qc);
+  qc.getQueryCache().subscribe((event) => {
+    if (event.type !== 'updated' || event.action.type !== 'success') return;
+    const profileId = keptProfileId(qc.getQueryData<Me>(authKeys.me()));
+    if (profileId == null || !isOfflineQuery(event.query.queryKey, profileId)) return;
+    clearTimeout(saveTimer);
+    saveTimer = setTimeout(() => saveOfflineCopy(qc), SAVE_DELAY_MS);
+  });
+  return qc;
+}
+
+const unreachable = (error: unknown) => error instanceof ApiError && error.status === 0;
+
+/**
+ * Whether a screen shows its offline copy (the device is offline, or one of its queries could not reach the server)
+ * and as of when: the oldest fetch time of the screen's queries, so the stamp never claims fresher than the oldest part.
+ */
+export function useOfflineCopy(keys: readonly QueryKey[]): { offline: boolean; asOf: number | null } {
+  const online = useIsOnline();
+  const qc = useQueryClient();
+  const cache = qc.getQueryCache();
+  const failed = useSyncExternalStore(
+    cache.subscribe,
+    () => keys.some((k) => unreachable(qc.getQueryState(k)?.error)),
+    () => false,
+  );
+  if (online && !failed) return { offline: false, asOf: null };
+  const times = keys.map((k) => qc.getQueryState(k)?.dataUpdatedAt ?? 0).filter((t) => t > 0);
+  return { offline: true, asOf: times.length ? Math.min(...times) : null };
+}
