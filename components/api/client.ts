@@ -21,6 +21,12 @@ export function setUnauthorizedHandler(handler: (() => void) | undefined) {
   onUnauthorized = handler;
 }
 
+let onProfileMissing: ((profileId: number) => void) | undefined;
+/** Registers what happens when a call about a profile answers 404 (access revoked, or the profile is gone). */
+export function setProfileMissingHandler(handler: ((profileId: number) => void) | undefined) {
+  onProfileMissing = handler;
+}
+
 /** Same origin on the web build; EXPO_PUBLIC_API_URL points elsewhere in development. */
 export const API_BASE = process.env.EXPO_PUBLIC_API_URL ?? '';
 
@@ -73,6 +79,8 @@ async function send(path: string, init: Init): Promise<Response> {
   if (res.ok) return res;
   const text = await res.text();
   if (res.status === 401 && csrf) onUnauthorized?.();
+  const profileId = res.status === 404 ? /^\/profiles\/(\d+)(?:\/|$)/.exec(path)?.[1] : undefined;
+  if (profileId) onProfileMissing?.(Number(profileId));
   const parsed = apiErrorSchema.safeParse(text ? safeJson(text) : undefined);
   if (parsed.success) {
     const { code, message, fieldErrors } = parsed.data.error;

@@ -1,7 +1,12 @@
-import { useState } from 'react';
+import { useQueryClient } from '@tanstack/react-query';
+import { useEffect, useRef, useState } from 'react';
 import { Pressable, StyleSheet, View } from 'react-native';
 import type { ProfileSummary } from '../../shared/schemas/auth';
-import { switchProfile, useActiveProfile } from '../api/auth';
+import { authKeys, switchProfile, useActiveProfile } from '../api/auth';
+import { setProfileMissingHandler } from '../api/client';
+import { useActiveProfileId } from '../auth/active-profile-store';
+import { Button } from '../ui/button';
+import { Callout } from '../ui/callout';
 import { profileShades } from '../theme/tokens';
 import { useTheme } from '../theme/use-theme';
 import { Text } from '../ui/text';
@@ -14,14 +19,47 @@ export function ProfileDot({ profile }: { profile: Pick<ProfileSummary, 'colour'
 }
 
 /**
+ * When the profile this device had open answers 404 (its access was revoked), the profile list is fetched again, so
+ * the switch drops it; this says so, naming it, until dismissed. After a reload it is simply no longer listed (a
+ * profile id kept on this device from another account must not raise the notice).
+ */
+function useLostProfile() {
+  const queryClient = useQueryClient();
+  const { data, profile } = useActiveProfile();
+  const chosen = useActiveProfileId();
+  const seen = useRef(new Map<number, string>());
+  for (const p of data?.profiles ?? []) seen.current.set(p.id, p.displayName);
+  useEffect(() => {
+    setProfileMissingHandler((id) => {
+      if (id === profile?.id) void queryClient.invalidateQueries({ queryKey: authKeys.me() });
+    });
+    return () => setProfileMissingHandler(undefined);
+  }, [profile?.id, queryClient]);
+  const name = chosen !== null && data && !data.profiles.some((p) => p.id === chosen) ? seen.current.get(chosen) : undefined;
+  return name ? { name } : null;
+}
+
+function LostProfileNotice({ name, showing }: { name: string; showing?: ProfileSummary }) {
+  return (
+    <View role="status" style={styles.notice}>
+      <Callout tone="caution" title="No longer open to you">
+        {`${name}'s profile is no longer shared with you.${showing ? ` Showing ${showing.displayName}'s data.` : ''}`}
+      </Callout>
+      {showing ? <Button variant="secondary" label="OK" onPress={() => switchProfile(showing.id)} /> : null}
+    </View>
+  );
+}
+
+/**
  * The header line of every signed-in page: whose data this page shows (name and colour of the active profile), and,
  * for someone with several profiles, the switch between them. The choice is kept on this device.
  */
 export function ProfileSwitcher() {
   const t = useTheme();
   const { data, profile } = useActiveProfile();
+  const lost = useLostProfile();
   const [open, setOpen] = useState(false);
-  if (!profile || !data) return null;
+  if (!profile || !data) return lost ? <LostProfileNotice name={lost.name} /> : null;
   const many = data.profiles.length > 1;
   const label = `Showing ${profile.displayName}'s data`;
   return (
@@ -44,6 +82,7 @@ export function ProfileSwitcher() {
           {many ? (open ? ' · close' : ' · switch') : ''}
         </Text>
       </Pressable>
+      {lost ? <LostProfileNotice name={lost.name} showing={profile} /> : null}
       {open ? (
         <View role="radiogroup" aria-label="Profiles" style={styles.list}>
           {data.profiles.map((p) => (
@@ -74,6 +113,7 @@ const styles = StyleSheet.create({
   bar: { borderBottomWidth: 1, paddingHorizontal: 16, paddingVertical: 2 },
   current: { flexDirection: 'row', alignItems: 'center', gap: 8, minHeight: 44, flexWrap: 'wrap' },
   dot: { width: 14, height: 14, borderRadius: 7 },
+  notice: { gap: 8, paddingBottom: 8, alignItems: 'flex-start' },
   list: { flexDirection: 'row', flexWrap: 'wrap', gap: 8, paddingBottom: 8 },
   option: { flexDirection: 'row', alignItems: 'center', gap: 8, minHeight: 44, paddingHorizontal: 12, borderWidth: 2, borderRadius: 999 },
 });
