@@ -20,14 +20,13 @@ const FILTERS: { value: Filter; label: string }[] = [
   { value: 'sent', label: 'Sent' },
   { value: 'all', label: 'All' },
 ];
-const STATUS = { pending: 'Waiting', sent: 'Sent', failed: 'Failed' } as const;
 
-/** When it went, or when the next try is, in words. */
-function progress(m: OutboxMail): string {
+/** Where a mail stands, in words: sent when, given up, or waiting for its next try. */
+function standing(m: OutboxMail): string {
   const tries = `${m.attempts} attempt${m.attempts === 1 ? '' : 's'}`;
-  if (m.status === 'sent') return `Sent ${m.sentAt ? dateTimeText(m.sentAt) : ''} · ${tries}`;
-  if (m.status === 'failed') return `Given up after ${tries}`;
-  return `${tries} so far${m.nextAttemptAt ? ` · next try ${dateTimeText(m.nextAttemptAt)}` : ''}`;
+  if (m.status === 'sent') return `Sent${m.sentAt ? ` ${dateTimeText(m.sentAt)}` : ''} after ${tries}`;
+  if (m.status === 'failed') return `Failed: given up after ${tries}`;
+  return `Waiting: ${tries} so far${m.nextAttemptAt ? ` · next try ${dateTimeText(m.nextAttemptAt)}` : ''}`;
 }
 
 function MailRow({ mail, onResend, busy }: { mail: OutboxMail; onResend: () => void; busy: boolean }) {
@@ -40,7 +39,7 @@ function MailRow({ mail, onResend, busy }: { mail: OutboxMail; onResend: () => v
           To {mail.to} · {mail.kind.replace(/_/g, ' ')} · queued {dateTimeText(mail.createdAt)}
         </Text>
         <Text variant="caption" color={mail.status === 'failed' ? 'danger' : 'text'} weight={mail.status === 'failed' ? 'bold' : 'regular'}>
-          {STATUS[mail.status]}: {progress(mail)}
+          {standing(mail)}
         </Text>
         {mail.lastError && mail.status !== 'sent' ? <Text variant="caption">Last error: {mail.lastError}</Text> : null}
       </View>

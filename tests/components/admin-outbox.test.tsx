@@ -30,7 +30,7 @@ describe('the admin desk: outbox', () => {
     renderSignedIn(OutboxScreen);
 
     const failed = within(await screen.findByRole('listitem', { name: 'Robin invites you to Sam’s profile to nurse@clinic.example' }));
-    expect(failed.getByText('Failed: Given up after 8 attempts')).toBeInTheDocument();
+    expect(failed.getByText('Failed: given up after 8 attempts')).toBeInTheDocument();
     expect(failed.getByText('Last error: connect ECONNREFUSED 127.0.0.1:2525')).toBeInTheDocument();
     const waiting = within(screen.getByRole('listitem', { name: 'Reset your password to dad@example.test' }));
     expect(waiting.getByText(/^Waiting: 2 attempts so far · next try/)).toBeInTheDocument();
@@ -51,6 +51,6 @@ describe('the admin desk: outbox', () => {
     expect(await screen.findByText('Every mail has gone out.')).toBeInTheDocument();
     fireEvent.click(screen.getByRole('radio', { name: 'Sent' }));
 
-    expect(await screen.findByText(/^Sent: Sent .* · 1 attempt$/)).toBeInTheDocument();
+    expect(await screen.findByText(/^Sent .* after 1 attempt$/)).toBeInTheDocument();
   });
 });
