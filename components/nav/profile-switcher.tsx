@@ -61,12 +61,14 @@ export function ProfileSwitcher() {
   const [open, setOpen] = useState(false);
   if (!profile || !data) return lost ? <LostProfileNotice name={lost.name} /> : null;
   const many = data.profiles.length > 1;
-  const label = `Showing ${profile.displayName}'s data`;
+  const role = `${ROLE_WORDS[profile.access]}${many ? (open ? ' · close' : ' · switch') : ''}`;
+  // The name starts with the words on the button (WCAG 2.5.3, label in name), then says what it is for.
+  const label = `${profile.displayName}, ${role}. Showing ${profile.displayName}'s data${many ? '; switch profile' : ''}`;
   return (
     <View style={[styles.bar, { borderColor: t.colors.border, backgroundColor: t.colors.surface }]} {...({ dataSet: { print: 'hide' } } as object)}>
       <Pressable
         role="button"
-        aria-label={many ? `${label}. Switch profile` : label}
+        aria-label={label}
         aria-expanded={many ? open : undefined}
         disabled={!many}
         onPress={() => setOpen((o) => !o)}
@@ -78,8 +80,7 @@ export function ProfileSwitcher() {
           {profile.displayName}
         </Text>
         <Text variant="caption" color="textMuted">
-          {ROLE_WORDS[profile.access]}
-          {many ? (open ? ' · close' : ' · switch') : ''}
+          {role}
         </Text>
       </Pressable>
       {lost ? <LostProfileNotice name={lost.name} showing={profile} /> : null}

@@ -30,6 +30,8 @@ export const TextField = forwardRef<TextInput, TextFieldProps>(function TextFiel
       >
         <TextInput
           ref={ref}
+          // The browser wants an id (or name) on every form field, for autofill and its own checks.
+          nativeID={`${id}-input`}
           aria-labelledby={`${id}-label`}
           aria-invalid={error ? true : undefined}
           placeholderTextColor={t.colors.textMuted}

@@ -30,6 +30,7 @@ export type LighthouseScores = {
 type Lhr = {
   finalDisplayedUrl: string;
   runWarnings: string[];
+  runtimeError?: { code: string; message: string };
   categories: Record<string, { score: number | null; auditRefs: { id: string; weight: number }[] }>;
   audits: Record<string, { title: string; score: number | null; scoreDisplayMode: string; numericValue?: number }>;
 };
@@ -63,6 +64,8 @@ async function run(job: LighthouseJob): Promise<LighthouseScores> {
     await browser.disconnect();
     if (!result) throw new Error('Lighthouse returned no result');
     const lhr = result.lhr as unknown as Lhr;
+    // An error page (server down, interstitial) scores, but is not the page asked for.
+    if (lhr.runtimeError || !/^https?:/.test(lhr.finalDisplayedUrl)) throw new Error(`${job.url}: ${lhr.runtimeError?.message ?? lhr.runWarnings[0] ?? lhr.finalDisplayedUrl}`);
     const score = (id: string) => Math.round((lhr.categories[id]?.score ?? 0) * 100);
     return {
       performance: score('performance'),

@@ -1,3 +1,4 @@
+import { TextEncoder } from 'node:util';
 import { fireEvent, render, screen } from '@testing-library/react';
 import { ExpoRoot } from 'expo-router';
 import { getMockContext } from 'expo-router/build/testing-library/mock-config';
@@ -10,6 +11,9 @@ import { AppRoot } from './render-with-api';
 // The common-password dictionaries are a chunk of their own that the web app loads when a screen that sets a password
 // opens (components/auth/use-password-estimator.ts; jest has no dynamic import, so the test installs them as that
 // load does). Once installed, the form refuses a common password itself, before any request.
+// jsdom has no TextEncoder (the password rule counts UTF-8 bytes with it, as browsers and Node do).
+Object.assign(globalThis, { TextEncoder: globalThis.TextEncoder ?? TextEncoder });
+
 describe('SignUpScreen password check', () => {
   beforeEach(() => {
     sessionCookie.clear();
