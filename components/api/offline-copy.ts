@@ -9,18 +9,17 @@ import { dehydrate, hydrate, partialMatchKey, useQueryClient, type DehydratedSta
 import { useSyncExternalStore } from 'react';
 import type { Me } from '../../shared/schemas/auth';
 import { activeProfileStore } from '../auth/active-profile-store';
-import { deviceStorage } from '../auth/device-storage';
 import { sessionCookie } from '../auth/session-cookie';
 import { authKeys } from './auth';
 import { batchKeys } from './batches';
 import { ApiError } from './client';
 import { containerKeys } from './containers';
+import { offlineCopyStore } from './offline-copy-store';
 import { dayKeys } from './days';
 import { startOnlineWatch, useIsOnline } from './online';
 import { planKeys } from './plan';
 import { settingsKeys } from './profile-settings';
 
-const STORAGE_KEY = 'carbwright.offline-copy';
 const VERSION = 1;
 /** A copy older than this is dropped rather than shown. */
 export const OFFLINE_COPY_MAX_AGE_MS = 7 * 24 * 3_600_000;
@@ -49,17 +48,9 @@ export function isOfflineQuery(key: QueryKey, profileId: number): boolean {
 
 let saveTimer: ReturnType<typeof setTimeout> | undefined;
 
-/** Forgets the offline copy on this device (sign-out, another person signing in, no session). */
-export function clearOfflineCopy() {
-  clearTimeout(saveTimer);
-  deviceStorage()?.removeItem(STORAGE_KEY);
-}
-
-/** Writes the kept queries of the signed-in person's active profile, with their fetch times. */
+/** Writes the kept queries of the signed-in person's active profile, with their fetch times; nothing once signed out. */
 export function saveOfflineCopy(qc: QueryClient, now = Date.now()) {
-  const storage = deviceStorage();
-  if (!storage) return;
-  if (!sessionCookie.csrf()) return clearOfflineCopy();
+  if (!sessionCookie.csrf()) return offlineCopyStore.clear();
   const me = qc.getQueryData<Me>(authKeys.me());
   const profileId = keptProfileId(me);
   if (!me || profileId == null) return;
@@ -68,17 +59,13 @@ export function saveOfflineCopy(qc: QueryClient, now = Date.now()) {
     shouldDehydrateMutation: () => false,
   });
   const copy: StoredCopy = { version: VERSION, savedAt: now, state };
-  try {
-    storage.setItem(STORAGE_KEY, JSON.stringify(copy));
-  } catch {
-    // Storage full or refused: keep no copy rather than a partial or older one.
-    clearOfflineCopy();
-  }
+  // Storage full or refused: keep no copy rather than an older one.
+  if (!offlineCopyStore.write(JSON.stringify(copy))) offlineCopyStore.clear();
 }
 
 /** Puts the kept copy back into the query cache (each query with its own fetch time); drops one too old or unsigned. */
 export function restoreOfflineCopy(qc: QueryClient, now = Date.now()) {
-  const raw = deviceStorage()?.getItem(STORAGE_KEY);
+  const raw = offlineCopyStore.read();
   if (!raw) return;
   let copy: StoredCopy | undefined;
   try {
@@ -86,7 +73,7 @@ export function restoreOfflineCopy(qc: QueryClient, now = Date.now()) {
   } catch {
     copy = undefined;
   }
-  if (!copy || copy.version !== VERSION || !sessionCookie.csrf() || now - copy.savedAt > OFFLINE_COPY_MAX_AGE_MS) return clearOfflineCopy();
+  if (!copy || copy.version !== VERSION || !sessionCookie.csrf() || now - copy.savedAt > OFFLINE_COPY_MAX_AGE_MS) return offlineCopyStore.clear();
   const queries = copy.state.queries.filter((q) => now - q.state.dataUpdatedAt <= OFFLINE_COPY_MAX_AGE_MS);
   hydrate(qc, { ...copy.state, queries });
 }

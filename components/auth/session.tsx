@@ -1,7 +1,7 @@
 import { createContext, useCallback, useContext, useEffect, useMemo, useState, type ReactNode } from 'react';
 import { useQueryClient } from '@tanstack/react-query';
 import { setUnauthorizedHandler } from '../api/client';
-import { clearOfflineCopy } from '../api/offline-copy';
+import { offlineCopyStore } from '../api/offline-copy-store';
 import { sessionCookie } from './session-cookie';
 
 type Status = 'loading' | 'signed-in' | 'signed-out';
@@ -23,7 +23,7 @@ export function SessionProvider({ children }: { children: ReactNode }) {
   }, []);
   const signOut = useCallback(() => {
     sessionCookie.clear();
-    clearOfflineCopy();
+    offlineCopyStore.clear();
     setStatus('signed-out');
     queryClient.clear();
   }, [queryClient]);

@@ -8,7 +8,8 @@ import { batchKeys } from '@/components/api/batches';
 import { apiFetch, ApiError } from '@/components/api/client';
 import { containerKeys } from '@/components/api/containers';
 import { dayKeys } from '@/components/api/days';
-import { clearOfflineCopy, isOfflineQuery, OFFLINE_COPY_MAX_AGE_MS, restoreOfflineCopy, saveOfflineCopy, withOfflineCopy } from '@/components/api/offline-copy';
+import { isOfflineQuery, OFFLINE_COPY_MAX_AGE_MS, restoreOfflineCopy, saveOfflineCopy, withOfflineCopy } from '@/components/api/offline-copy';
+import { offlineCopyStore } from '@/components/api/offline-copy-store';
 import { NOT_SAVED_OFFLINE } from '@/components/api/online';
 import { planKeys } from '@/components/api/plan';
 import { settingsKeys } from '@/components/api/profile-settings';
@@ -125,7 +126,7 @@ describe('saving and restoring the copy', () => {
   it('writes nothing once signed out, and clearing forgets it', () => {
     saveOfflineCopy(clientWithTodayData(Date.now()));
     expect(localStorage.getItem(STORAGE_KEY)).toContain('Lentil soup');
-    clearOfflineCopy();
+    offlineCopyStore.clear();
     signOutCookie();
     saveOfflineCopy(clientWithTodayData(Date.now()));
     expect(localStorage.getItem(STORAGE_KEY)).toBeNull();

@@ -57,7 +57,7 @@ async function danaWithAFridge() {
 describe('offline in the browser', () => {
   it('opens Today and the fridge list offline from the copy, refuses the dose check and writes, and keeps nothing after sign-out', async () => {
     const dana = await danaWithAFridge();
-    const page = await rig.newPage(PHONE);
+    const page = await rig.newPage(PHONE, { serviceWorkers: 'allow' });
     await page.goto(`${rig.baseUrl}/sign-in`);
     await rig.signIn(page, dana.token);
 

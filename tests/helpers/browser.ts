@@ -17,7 +17,11 @@ export const WIDE = { width: 1440, height: 900 } as const;
 export type BrowserRig = {
   baseUrl: string;
   sequelize: Sequelize;
-  newPage: (viewport: { width: number; height: number }) => Promise<Page>;
+  /**
+   * A page in a fresh browser profile. Service workers are blocked unless asked for: the offline app shell precaches
+   * the whole build on first load, which only the offline test needs.
+   */
+  newPage: (viewport: { width: number; height: number }, options?: { serviceWorkers?: 'allow' | 'block' }) => Promise<Page>;
   shot: (page: Page, name: string) => Promise<void>;
   /** Signs a page's browser context in with a token from the API, as the server's session cookies would. */
   signIn: (page: Page, token: string) => Promise<void>;
@@ -46,11 +50,12 @@ export async function startBrowserRig(suite: string): Promise<BrowserRig> {
   return {
     baseUrl,
     sequelize,
-    async newPage(viewport) {
+    async newPage(viewport, options = {}) {
       const context = await chromium.launchPersistentContext(fs.mkdtempSync(path.join(userDir, 'p-')), {
         executablePath: process.env.CHROME_PATH ?? '/usr/bin/chromium',
         headless: true,
         viewport,
+        serviceWorkers: options.serviceWorkers ?? 'block',
         args: ['--no-sandbox', '--disable-gpu', '--disable-quic', '--no-first-run', '--disable-background-networking', '--disable-component-update', '--disable-sync'],
       });
       contexts.push(context);
