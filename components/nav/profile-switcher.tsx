@@ -112,7 +112,7 @@ export function ProfileSwitcher() {
 
 const styles = StyleSheet.create({
   bar: { borderBottomWidth: 1, paddingHorizontal: 16, paddingVertical: 2 },
-  current: { flexDirection: 'row', alignItems: 'center', gap: 8, minHeight: 44, flexWrap: 'wrap' },
+  current: { flexDirection: 'row', alignItems: 'center', alignContent: 'center', gap: 8, minHeight: 44, flexWrap: 'wrap' },
   dot: { width: 14, height: 14, borderRadius: 7 },
   notice: { gap: 8, paddingBottom: 8, alignItems: 'flex-start' },
   list: { flexDirection: 'row', flexWrap: 'wrap', gap: 8, paddingBottom: 8 },
