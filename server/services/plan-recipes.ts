@@ -17,20 +17,21 @@ export type RecipeCarbs = {
 // Each nutrient column as `"key", column` for json_build_object: the food table names its columns after the keys.
 const NUTRIENTS_JSON = NUTRIENT_KEYS.map((k) => `'${k}', f.${k.replace(/[A-Z]/g, (c) => `_${c.toLowerCase()}`)}`).join(', ');
 
-type RecipeRow = { id: number; title: string; defaultPortions: number; lines: { foodId: number; grams: number; per100g: Nutrients }[] };
+export type RecipeRow = { id: number; title: string; defaultPortions: number; lines: { foodId: number; grams: number; per100g: Nutrients }[] };
 
-/**
- * Recipes chosen by `where` (SQL on `r`, the recipes table) with their lines and each line's food per 100 g in one
- * statement, then their carbohydrate per portion and per 100 g (the recipe's own weights) in the profile's basis.
- */
-export async function loadRecipeCarbsWhere(where: string, replacements: Record<string, unknown>, basis: CarbBasis): Promise<Map<number, RecipeCarbs>> {
-  const rows = await RecipeModel.sequelize!.query<RecipeRow>(
+/** Recipes chosen by `where` (SQL on `r`, the recipes table) with their lines and each line's food per 100 g, in one statement. */
+export function loadRecipeRows(where: string, replacements: Record<string, unknown>): Promise<RecipeRow[]> {
+  return RecipeModel.sequelize!.query<RecipeRow>(
     `SELECT r.id, r.title, r.default_portions AS "defaultPortions",
        COALESCE((SELECT json_agg(json_build_object('foodId', ri.food_id, 'grams', ri.grams, 'per100g', json_build_object(${NUTRIENTS_JSON})) ORDER BY ri.position)
                  FROM recipe_ingredients ri JOIN foods f ON f.id = ri.food_id WHERE ri.recipe_id = r.id), '[]') AS lines
      FROM recipes r WHERE ${where}`,
     { replacements, type: QueryTypes.SELECT },
   );
+}
+
+/** Recipe rows with their carbohydrate per portion and per 100 g (the recipe's own weights) in the profile's basis. */
+export function recipeCarbs(rows: RecipeRow[], basis: CarbBasis): Map<number, RecipeCarbs> {
   return new Map(
     rows.map((r) => {
       const n = r.lines.length ? computeRecipe(r.lines, { portions: r.defaultPortions, basis }) : null;
@@ -53,7 +54,7 @@ export async function loadRecipeCarbsWhere(where: string, replacements: Record<s
 export async function loadRecipeCarbs(ids: number[], basis: CarbBasis): Promise<Map<number, RecipeCarbs>> {
   const unique = [...new Set(ids)];
   if (!unique.length) return new Map();
-  return loadRecipeCarbsWhere('r.id IN (:ids)', { ids: unique }, basis);
+  return recipeCarbs(await loadRecipeRows('r.id IN (:ids)', { ids: unique }), basis);
 }
 
 /** Food rows by id. */

@@ -7,7 +7,7 @@ import { remember } from '../lib/request-cache';
 import { AppError } from '../errors';
 import { DayKindDayModel, PlanMealModel, ProfileSettingsModel } from '../models';
 import { toDoseSettings } from './dose-context.service';
-import { loadRecipeCarbsWhere, type RecipeCarbs } from './plan-recipes';
+import { loadRecipeRows } from './plan-recipes';
 
 export type WeekKind = DayKindRatios & { isDefault: boolean; longActingUnits: number | null };
 
@@ -85,11 +85,11 @@ export function loadWeekContext(profileId: number): Promise<WeekContext> {
 }
 
 /**
- * Everything dated in the week from `from` to `to`, in four statements sent together: the dates set to a kind of day,
- * the planned meals joined with what they hold, the planned cooks (the week's, those with no date, and those its meals
- * use), and the recipes of those meals and cooks with their carbohydrate.
+ * Everything dated from `from` to `to` (a window around the week, read before the week start is known), in four
+ * statements sent together: the dates set to a kind of day, the planned meals joined with what they hold, the planned
+ * cooks (dated in the window, with no date, or used by its meals), and the recipes of those meals and cooks.
  */
-export async function loadWeekRows(profileId: number, from: string, to: string, basis: CarbBasis) {
+export async function loadWeekRows(profileId: number, from: string, to: string) {
   const sequelize = PlanMealModel.sequelize!;
   const replacements = { profileId, from, to };
   const cookWhere = `c.profile_id = :profileId AND (c.cook_on BETWEEN :from AND :to OR c.cook_on IS NULL
@@ -118,15 +118,14 @@ export async function loadWeekRows(profileId: number, from: string, to: string, 
     ),
     sequelize.query<WeekCookRow>(
       `SELECT c.id, c.recipe_id AS "recipeId", c.cook_on AS "cookOn", c.portions, c.batch_id AS "batchId" FROM planned_cooks c
-       WHERE ${cookWhere} ORDER BY (c.cook_on IS NULL OR c.cook_on BETWEEN :from AND :to) DESC, c.cook_on, c.id`,
+       WHERE ${cookWhere} ORDER BY c.cook_on, c.id`,
       { replacements, type: QueryTypes.SELECT },
     ),
-    loadRecipeCarbsWhere(
+    loadRecipeRows(
       `r.id IN (SELECT m.recipe_id FROM plan_meals m WHERE m.profile_id = :profileId AND m.date BETWEEN :from AND :to AND m.recipe_id IS NOT NULL
          UNION SELECT c.recipe_id FROM planned_cooks c WHERE ${cookWhere})`,
       replacements,
-      basis,
     ),
   ]);
-  return { setDays: setDays as { date: string; dayKindId: number }[], meals, cooks, recipes: recipes as Map<number, RecipeCarbs> };
+  return { setDays: setDays as { date: string; dayKindId: number }[], meals, cooks, recipes };
 }

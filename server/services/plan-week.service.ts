@@ -9,6 +9,7 @@ import { batchContainsRice } from '../../shared/compute/use-by';
 import { formatPortionCode } from '../../shared/compute/portion-code';
 import { minutesToTime } from '../../shared/schemas/profile-settings';
 import type { NextPlanMeal, PlanDay, PlanMealView, PlanWeek, PlannedCookView } from '../../shared/schemas/plan';
+import { recipeCarbs } from './plan-recipes';
 import { loadWeekContext, loadWeekRows } from './plan-week-rows';
 import { carbOf } from './portions.service';
 
@@ -16,12 +17,19 @@ const fmt = (n: number) => String(Math.round(n * 10) / 10);
 
 /** The week holding `date` (default: today in the profile's time zone) with every number the plan shows. */
 export async function getPlanWeek(profileId: number, date: string | undefined, nowMs: number): Promise<PlanWeek> {
-  const context = await loadWeekContext(profileId);
+  // The week lies within 7 days of `date`, and today in any time zone within a day of today in UTC: one window
+  // around it lets the rows be read together with the context, before the week start and time zone are known.
+  const around = date ?? new Date(nowMs).toISOString().slice(0, 10);
+  const [context, rows] = await Promise.all([loadWeekContext(profileId), loadWeekRows(profileId, addDaysIso(around, -7), addDaysIso(around, 7))]);
   const { settings, carbBasis: basis, carbUnit: unit } = context;
   const today = toLocalTime(nowMs, context.timeZone).localDate;
   const dates = weekDates(date ?? today, context.weekStart);
   const [from, to] = [dates[0], dates[6]];
-  const { setDays, meals: mealRows, cooks, recipes } = await loadWeekRows(profileId, from, to, basis);
+  const { setDays } = rows;
+  const mealRows = rows.meals.filter((m) => m.date >= from && m.date <= to);
+  const used = new Set(mealRows.map((m) => m.plannedCookId));
+  const cooks = rows.cooks.filter((c) => c.cookOn == null || (c.cookOn >= from && c.cookOn <= to) || used.has(c.id));
+  const recipes = recipeCarbs(rows.recipes, basis);
 
   const ratios = new Map(context.kinds.map((k) => [k.id, k]));
   const defaultId = context.kinds.find((k) => k.isDefault)?.id ?? null;
