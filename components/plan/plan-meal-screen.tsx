@@ -17,13 +17,15 @@ import { Card } from '../ui/card';
 import { applyServerErrors } from '../ui/form-errors';
 import { FormChoiceGroup } from '../ui/form-choice-group';
 import { FormTextField } from '../ui/form-text-field';
+import { PlanFoodPick } from './plan-food-pick';
 import { Screen } from '../ui/screen';
 import { ErrorState, LoadingState } from '../ui/states';
 
 const SOURCES = [
   { value: 'portion', label: 'A portion from the fridge or freezer' },
   { value: 'planned_cook', label: 'A portion of a planned cook' },
-  { value: 'recipe', label: 'A recipe amount' },
+  { value: 'recipe', label: 'A recipe amount (grams or portions)' },
+  { value: 'food', label: 'A food by grams (a pack food or one from the tables)' },
   { value: 'carb', label: 'A carbohydrate amount' },
 ] as const;
 
@@ -57,7 +59,7 @@ function PlanMealForm(props: { profileId: number; date: string; settings: PlanSe
   const { profileId, date, settings, week, batches, recipes } = props;
   const form = useForm<PlanMealFormValues, unknown, PlanMealInput>({
     resolver: zodResolver(planMealInputSchema),
-    defaultValues: { date, mealNameId: settings.mealNames[0]?.id ?? '', time: '', source: 'portion', portionId: null, plannedCookId: null, recipeId: null, grams: '', portions: '', carbGrams: '', thawOn: '', note: '', repeatDays: '1' },
+    defaultValues: { date, mealNameId: settings.mealNames[0]?.id ?? '', time: '', source: 'portion', portionId: null, plannedCookId: null, recipeId: null, foodId: null, grams: '', portions: '', carbGrams: '', thawOn: '', note: '', repeatDays: '1' },
   });
   const source = useWatch({ control: form.control, name: 'source' });
   const portionId = useWatch({ control: form.control, name: 'portionId' });
@@ -111,6 +113,7 @@ function PlanMealForm(props: { profileId: number; date: string; settings: PlanSe
             <FormTextField control={form.control} name="grams" label="Grams" unit="g" keyboardType="decimal-pad" />
           </>
         ) : null}
+        {source === 'food' ? <PlanFoodPick control={form.control} basis={week.basis} unit={week.unit} /> : null}
         {source === 'carb' ? <FormTextField control={form.control} name="carbGrams" label="Carbohydrate" unit="g" keyboardType="decimal-pad" /> : null}
         <FormTextField control={form.control} name="repeatDays" label="Days in a row" keyboardType="number-pad" hint="1 to 7. A batch portion uses the batch’s next portions on the days after." />
       </Card>

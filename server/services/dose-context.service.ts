@@ -1,4 +1,4 @@
-import { Op } from 'sequelize';
+import { Op, type InferAttributes } from 'sequelize';
 import type { DayKindRatios, DoseSettings } from '../../shared/compute/dose';
 import { minutesToTime } from '../../shared/schemas/profile-settings';
 import type { LoggedDose } from '../../shared/schemas/dose';
@@ -7,17 +7,9 @@ import { DayKindModel, LogEntryModel, ProfileModel, ProfileSettingsModel } from 
 import { withTimesOfDay } from './day-kinds.service';
 import { loadProfile } from './profiles.service';
 
-/** The engine's inputs for a profile: settings (mmol/L) and the chosen or default day kind; null parts when not set up. */
-export async function loadDoseContext(
-  profileId: number,
-  dayKindId?: number | null,
-): Promise<{ profile: ProfileModel; settings: DoseSettings | null; dayKind: DayKindRatios | null }> {
-  const profile = await loadProfile(profileId);
-  const row = await ProfileSettingsModel.findByPk(profileId);
-  const where = dayKindId ? { profileId, id: dayKindId } : { profileId, isDefault: true };
-  const kind = await DayKindModel.findOne({ where, ...withTimesOfDay });
-  if (dayKindId && !kind) throw AppError.validation({ dayKindId: ['That day kind is not on this profile.'] });
-  const settings: DoseSettings | null = row && {
+/** The dose settings of a profile's settings row (a model or a plain row). */
+export function toDoseSettings(row: InferAttributes<ProfileSettingsModel>): DoseSettings {
+  return {
     penIncrement: row.penIncrement,
     rounding: row.rounding,
     maxDoseUnits: row.maxDoseUnits,
@@ -32,6 +24,19 @@ export async function loadDoseContext(
     iobConvention: row.iobConvention,
     exerciseReductions: row.exerciseReductions,
   };
+}
+
+/** The engine's inputs for a profile: settings (mmol/L) and the chosen or default day kind; null parts when not set up. */
+export async function loadDoseContext(
+  profileId: number,
+  dayKindId?: number | null,
+): Promise<{ profile: ProfileModel; settings: DoseSettings | null; dayKind: DayKindRatios | null }> {
+  const profile = await loadProfile(profileId);
+  const row = await ProfileSettingsModel.findByPk(profileId);
+  const where = dayKindId ? { profileId, id: dayKindId } : { profileId, isDefault: true };
+  const kind = await DayKindModel.findOne({ where, ...withTimesOfDay });
+  if (dayKindId && !kind) throw AppError.validation({ dayKindId: ['That day kind is not on this profile.'] });
+  const settings = row && toDoseSettings(row);
   const dayKind: DayKindRatios | null = kind && {
     id: kind.id,
     name: kind.name,

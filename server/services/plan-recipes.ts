@@ -1,9 +1,8 @@
-import { Op } from 'sequelize';
-import { carbInBasis } from '../../shared/compute/nutrients';
+import { Op, QueryTypes } from 'sequelize';
+import { NUTRIENT_KEYS, type Nutrients } from '../../shared/compute/nutrients';
 import { computeRecipe } from '../../shared/compute/recipe';
 import type { CarbBasis } from '../../shared/schemas/units';
-import { FoodModel, RecipeIngredientModel, RecipeModel } from '../models';
-import { toFoodSummary } from './foods.service';
+import { FoodModel, RecipeModel } from '../models';
 
 export type RecipeCarbs = {
   id: number;
@@ -15,19 +14,27 @@ export type RecipeCarbs = {
   lines: { foodId: number; grams: number }[];
 };
 
-/** Recipes with their carbohydrate per portion and per 100 g (the recipe's own weights), in the profile's basis. */
-export async function loadRecipeCarbs(ids: number[], basis: CarbBasis): Promise<Map<number, RecipeCarbs>> {
-  const unique = [...new Set(ids)];
-  if (!unique.length) return new Map();
-  const [recipes, lines] = await Promise.all([
-    RecipeModel.findAll({ where: { id: { [Op.in]: unique } } }),
-    RecipeIngredientModel.findAll({ where: { recipeId: { [Op.in]: unique } }, order: [['recipeId', 'ASC'], ['position', 'ASC']] }),
-  ]);
-  const foods = await loadFoodRows(lines.map((l) => l.foodId));
+// Each nutrient column as `"key", column` for json_build_object: the food table names its columns after the keys.
+const NUTRIENTS_JSON = NUTRIENT_KEYS.map((k) => `'${k}', f.${k.replace(/[A-Z]/g, (c) => `_${c.toLowerCase()}`)}`).join(', ');
+
+export type RecipeRow = { id: number; title: string; defaultPortions: number; lines: { foodId: number; grams: number; per100g: Nutrients }[] };
+
+/** Recipes chosen by `where` (SQL on `r`, the recipes table) with their lines and each line's food per 100 g, in one statement. */
+export function loadRecipeRows(where: string, replacements: Record<string, unknown>): Promise<RecipeRow[]> {
+  return RecipeModel.sequelize!.query<RecipeRow>(
+    `SELECT r.id, r.title, r.default_portions AS "defaultPortions",
+       COALESCE((SELECT json_agg(json_build_object('foodId', ri.food_id, 'grams', ri.grams, 'per100g', json_build_object(${NUTRIENTS_JSON})) ORDER BY ri.position)
+                 FROM recipe_ingredients ri JOIN foods f ON f.id = ri.food_id WHERE ri.recipe_id = r.id), '[]') AS lines
+     FROM recipes r WHERE ${where}`,
+    { replacements, type: QueryTypes.SELECT },
+  );
+}
+
+/** Recipe rows with their carbohydrate per portion and per 100 g (the recipe's own weights) in the profile's basis. */
+export function recipeCarbs(rows: RecipeRow[], basis: CarbBasis): Map<number, RecipeCarbs> {
   return new Map(
-    recipes.map((r) => {
-      const own = lines.filter((l) => l.recipeId === r.id && foods.has(l.foodId));
-      const n = own.length ? computeRecipe(own.map((l) => ({ grams: l.grams, per100g: toFoodSummary(foods.get(l.foodId)!).per100g })), { portions: r.defaultPortions, basis }) : null;
+    rows.map((r) => {
+      const n = r.lines.length ? computeRecipe(r.lines, { portions: r.defaultPortions, basis }) : null;
       return [
         r.id,
         {
@@ -36,11 +43,18 @@ export async function loadRecipeCarbs(ids: number[], basis: CarbBasis): Promise<
           defaultPortions: r.defaultPortions,
           carbPerPortion: n ? (n.carbIncomplete ? null : n.carbPerPortion.grams) : null,
           carbPer100g: n ? (n.carbIncomplete ? null : n.carbPer100gRaw.grams) : null,
-          lines: own.map((l) => ({ foodId: l.foodId, grams: l.grams })),
+          lines: r.lines.map((l) => ({ foodId: l.foodId, grams: l.grams })),
         },
       ];
     }),
   );
+}
+
+/** Recipes by id with their carbohydrate per portion and per 100 g (the recipe's own weights), in the profile's basis. */
+export async function loadRecipeCarbs(ids: number[], basis: CarbBasis): Promise<Map<number, RecipeCarbs>> {
+  const unique = [...new Set(ids)];
+  if (!unique.length) return new Map();
+  return recipeCarbs(await loadRecipeRows('r.id IN (:ids)', { ids: unique }), basis);
 }
 
 /** Food rows by id. */
@@ -51,8 +65,3 @@ export async function loadFoodRows(ids: number[]): Promise<Map<number, FoodModel
   return new Map(rows.map((f) => [f.id, f]));
 }
 
-
-/** A food's carbohydrate per 100 g in the basis (null = unknown). */
-export function foodCarbPer100g(f: FoodModel, basis: CarbBasis): number | null {
-  return carbInBasis(f, basis);
-}

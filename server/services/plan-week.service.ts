@@ -1,7 +1,6 @@
 import { toLocalTime } from '../../shared/compute/local-time';
-import { Op, QueryTypes } from 'sequelize';
 import { carbUnderstated } from '../../shared/compute/batch';
-import type { DayKindRatios } from '../../shared/compute/dose';
+import { carbInBasis } from '../../shared/compute/nutrients';
 import {
   addDaysIso, dayKindFor, dayTotals, isoWeekday, mealCarbGrams, nextPlannedMeal, plannedMealDose, planWarnings, portionsUse, weekDates, weekTotals,
   type Holder, type MealAmount, type WarnMeal,
@@ -10,80 +9,49 @@ import { batchContainsRice } from '../../shared/compute/use-by';
 import { formatPortionCode } from '../../shared/compute/portion-code';
 import { minutesToTime } from '../../shared/schemas/profile-settings';
 import type { NextPlanMeal, PlanDay, PlanMealView, PlanWeek, PlannedCookView } from '../../shared/schemas/plan';
-import { BatchIngredientModel, BatchModel, DayKindDayModel, DayKindModel, LogEntryModel, PlanMealModel, PlanMealNameModel, PlannedCookModel, PortionModel } from '../models';
-import { withTimesOfDay } from './day-kinds.service';
-import { loadDoseContext } from './dose-context.service';
-import { getPlanSettings } from './plan-settings.service';
-import { loadFoodRows, foodCarbPer100g, loadRecipeCarbs } from './plan-recipes';
+import { recipeCarbs } from './plan-recipes';
+import { loadWeekContext, loadWeekRows } from './plan-week-rows';
 import { carbOf } from './portions.service';
 
 const fmt = (n: number) => String(Math.round(n * 10) / 10);
 
 /** The week holding `date` (default: today in the profile's time zone) with every number the plan shows. */
 export async function getPlanWeek(profileId: number, date: string | undefined, nowMs: number): Promise<PlanWeek> {
-  const { profile, settings } = await loadDoseContext(profileId);
-  const plan = await getPlanSettings(profileId);
-  const today = toLocalTime(nowMs, profile.timeZone).localDate;
-  const dates = weekDates(date ?? today, plan.weekStart);
+  // The week lies within 7 days of `date`, and today in any time zone within a day of today in UTC: one window
+  // around it lets the rows be read together with the context, before the week start and time zone are known.
+  const around = date ?? new Date(nowMs).toISOString().slice(0, 10);
+  const [context, rows] = await Promise.all([loadWeekContext(profileId), loadWeekRows(profileId, addDaysIso(around, -7), addDaysIso(around, 7))]);
+  const { settings, carbBasis: basis, carbUnit: unit } = context;
+  const today = toLocalTime(nowMs, context.timeZone).localDate;
+  const dates = weekDates(date ?? today, context.weekStart);
   const [from, to] = [dates[0], dates[6]];
-  const basis = profile.carbBasis;
-  const unit = profile.carbUnit;
+  const { setDays } = rows;
+  const mealRows = rows.meals.filter((m) => m.date >= from && m.date <= to);
+  const used = new Set(mealRows.map((m) => m.plannedCookId));
+  const cooks = rows.cooks.filter((c) => c.cookOn == null || (c.cookOn >= from && c.cookOn <= to) || used.has(c.id));
+  const recipes = recipeCarbs(rows.recipes, basis);
 
-  const [kinds, setDays, mealRows, names, cookRows] = await Promise.all([
-    DayKindModel.findAll({ where: { profileId }, ...withTimesOfDay }),
-    DayKindDayModel.findAll({ where: { profileId, date: { [Op.between]: [from, to] } } }),
-    PlanMealModel.findAll({ where: { profileId, date: { [Op.between]: [from, to] } }, order: [['date', 'ASC'], ['minute', 'ASC'], ['id', 'ASC']] }),
-    PlanMealNameModel.findAll({ where: { profileId } }),
-    PlannedCookModel.findAll({ where: { profileId, [Op.or]: [{ cookOn: { [Op.between]: [from, to] } }, { cookOn: null }] }, order: [['cookOn', 'ASC'], ['id', 'ASC']] }),
-  ]);
-  const ratios = new Map<number, DayKindRatios & { longActingUnits: number | null }>(
-    kinds.map((k) => [k.id, { id: k.id, name: k.name, longActingUnits: k.longActingUnits, timesOfDay: (k.timesOfDay ?? []).map((b) => ({ startMinute: b.startMinute, endMinute: b.endMinute, carbRatio: b.carbRatio, correctionFactorMmol: b.correctionFactorMmol })) }]),
-  );
-  const defaultId = kinds.find((k) => k.isDefault)?.id ?? null;
+  const ratios = new Map(context.kinds.map((k) => [k.id, k]));
+  const defaultId = context.kinds.find((k) => k.isDefault)?.id ?? null;
   const setForDate = new Map(setDays.map((d) => [d.date, d.dayKindId]));
-  const pattern = new Map(plan.pattern.filter((p) => p.dayKindId != null).map((p) => [p.weekday, p.dayKindId!]));
-  const nameById = new Map(names.map((n) => [n.id, n.name]));
-
-  // Planned cooks the meals use but that are cooked (or planned) outside this week.
-  const extraCookIds = mealRows.map((m) => m.plannedCookId).filter((id): id is number => id != null && !cookRows.some((c) => c.id === id));
-  const cooks = extraCookIds.length ? [...cookRows, ...(await PlannedCookModel.findAll({ where: { profileId, id: { [Op.in]: extraCookIds } } }))] : cookRows;
+  const pattern = new Map(context.pattern.map((p) => [p.weekday, p.dayKindId]));
   const cookById = new Map(cooks.map((c) => [c.id, c]));
-
-  const portionIds = mealRows.map((m) => m.portionId).filter((id): id is number => id != null);
-  const portions = portionIds.length ? await PortionModel.findAll({ where: { id: { [Op.in]: portionIds } }, include: [{ model: BatchModel, as: 'batch' }] }) : [];
-  const portionById = new Map(portions.map((p) => [p.id, p]));
-  const batchIds = [...new Set(portions.map((p) => p.batchId))];
-  const [riceLines, available] = batchIds.length
-    ? await Promise.all([
-        BatchIngredientModel.findAll({ where: { batchId: { [Op.in]: batchIds } }, attributes: ['batchId', 'foodName', 'omitted'] }),
-        PortionModel.sequelize!.query<{ batch_id: number; n: string }>(
-          "SELECT batch_id, count(*) AS n FROM portions WHERE batch_id IN (:batchIds) AND status = 'available' GROUP BY batch_id",
-          { replacements: { batchIds }, type: QueryTypes.SELECT },
-        ),
-      ])
-    : [[], []];
-  const recipes = await loadRecipeCarbs([...mealRows.map((m) => m.recipeId), ...cooks.map((c) => c.recipeId)].filter((id): id is number => id != null), basis);
-  const foods = await loadFoodRows(mealRows.map((m) => m.foodId).filter((id): id is number => id != null));
-  const logged = mealRows.length
-    ? await LogEntryModel.findAll({ where: { planMealId: { [Op.in]: mealRows.map((m) => m.id) }, deletedAt: null }, order: [['occurredAt', 'ASC']] })
-    : [];
-  const loggedBy = new Map(logged.map((e) => [e.planMealId!, e]));
+  const batches = new Map(mealRows.filter((m) => m.batchId != null).map((m) => [m.batchId!, m]));
 
   const warnMeals: WarnMeal[] = [];
   const views: PlanMealView[] = mealRows.map((m) => {
-    const portion = m.portionId ? portionById.get(m.portionId) : undefined;
-    const batch = portion?.batch;
+    const batch = m.batchId != null ? m : undefined;
     const cook = m.plannedCookId ? cookById.get(m.plannedCookId) : undefined;
     const recipe = recipes.get(m.recipeId ?? cook?.recipeId ?? 0);
-    const food = m.foodId ? foods.get(m.foodId) : undefined;
+    const food = m.food;
     let amount: MealAmount;
     let title: string;
     let detail: string;
-    if (portion && batch) {
-      const understated = carbUnderstated(batch.totals, batch.incomplete, basis);
-      amount = { kind: 'portion', carbGrams: understated ? null : basis === 'available' ? portion.carbAvailable : portion.carbTotal };
-      title = batch.recipeTitle;
-      detail = `portion ${formatPortionCode(portion.code)}${batch.storage === 'freezer' ? ' (freezer)' : ''}`;
+    if (batch) {
+      const understated = carbUnderstated(batch.totals!, batch.incomplete ?? [], basis);
+      amount = { kind: 'portion', carbGrams: understated ? null : basis === 'available' ? batch.portionCarbAvailable : batch.portionCarbTotal };
+      title = batch.batchTitle!;
+      detail = `portion ${formatPortionCode(batch.portionCode!)}${batch.storage === 'freezer' ? ' (freezer)' : ''}`;
     } else if (cook) {
       amount = { kind: 'portions', carbPerPortion: recipe?.carbPerPortion ?? null, portions: 1 };
       title = recipe?.title ?? 'Planned cook';
@@ -93,7 +61,7 @@ export async function getPlanWeek(profileId: number, date: string | undefined, n
       title = recipe?.title ?? 'Recipe';
       detail = m.portions != null ? `${fmt(m.portions)} ${m.portions === 1 ? 'portion' : 'portions'}` : `${fmt(m.grams ?? 0)} g`;
     } else if (m.source === 'food') {
-      amount = { kind: 'grams', carbPer100g: food ? foodCarbPer100g(food, basis) : null, grams: m.grams ?? 0 };
+      amount = { kind: 'grams', carbPer100g: food ? carbInBasis(food, basis) : null, grams: m.grams ?? 0 };
       title = food?.name ?? 'Food';
       detail = `${fmt(m.grams ?? 0)} g`;
     } else {
@@ -104,17 +72,16 @@ export async function getPlanWeek(profileId: number, date: string | undefined, n
     const carbGrams = mealCarbGrams(amount);
     const kind = dayKindFor(m.date, setForDate, pattern, defaultId);
     const dose = plannedMealDose(carbGrams, kind.dayKindId ? ratios.get(kind.dayKindId) ?? null : null, m.minute, settings);
-    const entry = loggedBy.get(m.id);
-    const mealName = (m.mealNameId && nameById.get(m.mealNameId)) || 'Meal';
+        const mealName = (m.mealNameId && context.mealNames[m.mealNameId]) || 'Meal';
     warnMeals.push({
       id: m.id,
       date: m.date,
       title: `${mealName} (${title})`,
-      logged: !!entry,
+      logged: m.entryId != null,
       doseStatus: dose.status,
       thawOn: m.thawOn,
-      portion: portion && batch ? { id: portion.id, batchId: batch.id, keeping: { kind: 'batch', storage: batch.storage, useBy: batch.useBy, region: batch.foodSafetyRegion, containsRice: batchContainsRice(riceLines.filter((l) => l.batchId === batch.id)) } } : null,
-      plannedCook: cook && !portion ? { id: cook.id, cookOn: cook.cookOn } : null,
+      portion: batch ? { id: m.portionId!, batchId: m.batchId!, keeping: { kind: 'batch', storage: batch.storage!, useBy: batch.useBy!, region: batch.region!, containsRice: batchContainsRice(batch.batchLines ?? []) } } : null,
+      plannedCook: cook && !batch ? { id: cook.id, cookOn: cook.cookOn } : null,
     });
     return {
       id: m.id,
@@ -126,8 +93,8 @@ export async function getPlanWeek(profileId: number, date: string | undefined, n
       title,
       detail,
       portionId: m.portionId,
-      portionCode: portion?.code ?? null,
-      batchId: batch?.id ?? null,
+      portionCode: m.portionCode,
+      batchId: m.batchId,
       plannedCookId: m.plannedCookId,
       recipeId: m.recipeId ?? cook?.recipeId ?? null,
       foodId: m.foodId,
@@ -135,9 +102,9 @@ export async function getPlanWeek(profileId: number, date: string | undefined, n
       portions: m.portions,
       thawOn: m.thawOn,
       carb: carbOf(carbGrams, unit),
-      plannedCarb: cook && portion ? carbOf(recipe?.carbPerPortion ?? null, unit) : null,
+      plannedCarb: cook && batch ? carbOf(recipe?.carbPerPortion ?? null, unit) : null,
       dose,
-      logged: entry ? { entryId: entry.id, occurredAt: entry.occurredAt.toISOString(), carbGrams: basis === 'available' ? entry.carbAvailableG : entry.carbTotalG } : null,
+      logged: m.entryId != null ? { entryId: m.entryId, occurredAt: new Date(m.entryAt!).toISOString(), carbGrams: basis === 'available' ? m.entryCarbAvailable : m.entryCarbTotal } : null,
     };
   });
 
@@ -154,9 +121,8 @@ export async function getPlanWeek(profileId: number, date: string | undefined, n
     };
   });
 
-  const availableBy = new Map(available.map((a) => [a.batch_id, Number(a.n)]));
   const holders: Holder[] = [
-    ...batchIds.map((id) => ({ batchId: id, plannedCookId: null, title: portions.find((p) => p.batchId === id)!.batch!.recipeTitle, holds: availableBy.get(id) ?? 0 })),
+    ...[...batches.values()].map((b) => ({ batchId: b.batchId!, plannedCookId: null, title: b.batchTitle!, holds: b.batchAvailable ?? 0 })),
     ...cooks.filter((c) => !c.batchId).map((c) => ({ batchId: null, plannedCookId: c.id, title: recipes.get(c.recipeId)?.title ?? 'Planned cook', holds: c.portions })),
   ];
   const use = portionsUse(holders, warnMeals);
@@ -173,7 +139,7 @@ export async function getPlanWeek(profileId: number, date: string | undefined, n
   return {
     weekStart: from,
     today,
-    timeZone: profile.timeZone,
+    timeZone: context.timeZone,
     basis,
     unit,
     doseReady: settings != null,

@@ -61,13 +61,14 @@ export const UNKNOWN = 'unknown';
 
 /**
  * The one display rule for carbohydrate: grams ≥ 10 to the nearest 1 g, under 10 g to 0.1 g
- * (the EU label tolerance guidance pattern, from memory); counting units to 0.1; null → "unknown".
- * `withGrams` adds the grams after a counting unit ("2.4 CP (24 g)").
+ * (the EU label tolerance guidance pattern, from memory); counting units to 0.1; a value that rounds to a whole number
+ * shows no ".0" ("0 g", "5 g", "2 CP"); null → "unknown". `withGrams` adds the grams after a counting unit ("2.4 CP (24 g)").
  */
 export function formatCarb(grams: number | null, unit: CarbUnit = 'g', opts: { withGrams?: boolean } = {}): string {
   if (grams == null) return UNKNOWN;
-  if (unit === 'g') return grams >= 10 ? `${Math.round(grams)} g` : `${(Math.round(grams * 10) / 10).toFixed(1)} g`;
-  const value = gramsToCarbUnit(grams, unit);
-  const text = `${(Math.round(value * 10) / 10).toFixed(1)} ${CARB_UNIT_LABEL[unit].short}`;
+  // String() of a value rounded to a tenth drops a trailing ".0" (and turns -0 into "0").
+  const tenth = (v: number) => String(Math.round(v * 10) / 10 || 0);
+  if (unit === 'g') return grams >= 10 ? `${Math.round(grams)} g` : `${tenth(grams)} g`;
+  const text = `${tenth(gramsToCarbUnit(grams, unit))} ${CARB_UNIT_LABEL[unit].short}`;
   return opts.withGrams ? `${text} (${formatCarb(grams, 'g')})` : text;
 }

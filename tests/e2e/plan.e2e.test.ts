@@ -89,6 +89,23 @@ describe('the week plan in the browser', () => {
     await page.getByText('Training (weekly pattern)').waitFor();
     await page.getByText('Planned dose: 2 units (1 unit per 15 g)').waitFor();
     await rig.shot(page, 'phone-5-tuesday');
+
+    // A food by grams on Sunday, found with the food search: 40 g rolled oats × 57.6 g available per 100 g (SR Legacy
+    // 67.7 − 10.1, check-values §11) = 23.04 g → 23 g; a rest day by default: 2.304 → 2 units (rounded down).
+    await page.getByRole('link', { name: 'Plan a meal' }).click();
+    await page.getByLabel('Date').fill(pat.week[6]);
+    await page.getByRole('radio', { name: 'A food by grams (a pack food or one from the tables)' }).click();
+    await page.getByLabel('Food', { exact: true }).fill('Oats, rolled');
+    await page.getByRole('button', { name: `Plan ${SR_LEGACY.oats.name}` }).first().click();
+    await page.getByRole('textbox', { name: 'Grams', exact: true }).fill('40');
+    await rig.shot(page, 'phone-6-food-by-grams');
+    await page.getByRole('button', { name: 'Plan this meal' }).click();
+    const after = page.getByRole('button', { name: 'Day after ›' });
+    await after.waitFor();
+    for (let i = 0; i < 6 && (await after.getAttribute('aria-disabled')) !== 'true'; i += 1) await after.click();
+    await page.getByText(`${SR_LEGACY.oats.name} — 40 g`).waitFor();
+    await page.getByText('Carbohydrate: 23 g').waitFor();
+    await page.getByText('Planned dose: 2 units (1 unit per 10 g)').waitFor();
     await page.close();
   });
 

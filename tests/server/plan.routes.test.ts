@@ -3,6 +3,7 @@ import { FoodMeasureModel, LogEntryModel, ProfileAccessModel } from '../../serve
 import { bearer, signUpMember, useTestApp } from '../helpers/api';
 import { TEST_DOSE_SETTINGS } from '../helpers/dose-settings';
 import { createFood, SR_LEGACY, withAvailable } from '../helpers/foods';
+import { countQueries } from '../helpers/query-count';
 import { makeRecipe, overnightOats, postBatch } from './batches-fixtures';
 
 const ctx = useTestApp();
@@ -167,6 +168,44 @@ describe('plan warnings, each by its own case', () => {
     await p.api('post', '/plan/cooks').send({ recipeId: oats.recipe.id, cookOn: null, portions: 4 }).expect(201);
     const week = (await p.api('get', '/plan/week?date=2026-03-09')).body;
     expect(week.warnings.map((w: { code: string }) => w.code)).toEqual(['cook_no_date']);
+  });
+});
+
+describe('the week endpoint’s work per request', () => {
+  // The figure the README's Plan section gives; it must not grow with the number of meals.
+  const MAX_WEEK_QUERIES = 7;
+
+  it('reads a full week (every kind of planned meal, a logged one) in a fixed number of queries', async () => {
+    const p = await setUp();
+    const oats = await overnightOats(p.userId);
+    const rice = await createFood(withAvailable(SR_LEGACY.rice));
+    const batch = await postBatch(ctx.app, p.token, p.profileId, { ...oats.input, cookedOn: '2026-03-08', useBy: '2026-03-14' }).expect(201);
+    const cook = await p.api('post', '/plan/cooks').send({ recipeId: oats.recipe.id, cookOn: '2026-03-11', portions: 4 }).expect(201);
+    const week = () => countQueries(ctx.sequelize, () => p.api('get', '/plan/week?date=2026-03-11').expect(200));
+    const meal = (date: string, body: object) => p.api('post', '/plan/meals').send({ date, mealNameId: p.lunchId, ...body }).expect(201);
+
+    await p.api('post', '/plan/meals').send({ date: WEEK[0], mealNameId: p.breakfastId, source: 'portion', portionId: batch.body.portions[0].id }).expect(201);
+    const small = await week();
+
+    await p.api('post', '/plan/meals').send({ date: WEEK[1], mealNameId: p.breakfastId, source: 'portion', portionId: batch.body.portions[1].id, repeatDays: 4 }).expect(201);
+    await meal(WEEK[2], { source: 'planned_cook', plannedCookId: cook.body.id, repeatDays: 3 });
+    await meal(WEEK[0], { source: 'recipe', recipeId: oats.recipe.id, grams: 250 });
+    await meal(WEEK[1], { source: 'recipe', recipeId: oats.recipe.id, portions: 1 });
+    await meal(WEEK[5], { source: 'food', foodId: rice.id, grams: 180 });
+    const [typed] = (await meal(WEEK[6], { source: 'carb', carbGrams: 45 })).body.ids;
+    await p.api('post', '/log-entries/meals').send({ meal: { source: 'typed', carbsGrams: 45, note: 'Lunch' }, planMealId: typed }).expect(201);
+    const full = await week();
+
+    const sources = full.result.body.days.flatMap((d: { meals: { source: string }[] }) => d.meals.map((m) => m.source));
+    expect(new Set(sources)).toEqual(new Set(['portion', 'planned_cook', 'recipe', 'food', 'carb']));
+    expect(full.queries).toBeLessThanOrEqual(MAX_WEEK_QUERIES);
+    expect(full.queries).toBe(small.queries);
+    // The joined rows still carry each part: the food by grams (180 g × (28.17 − 0.4) g per 100 g available, NDB 20045,
+    // check-values §11 = 49.986 g) and the typed meal's log entry.
+    const meals = full.result.body.days.flatMap((d: { meals: object[] }) => d.meals);
+    expect(meals.find((m: { source: string }) => m.source === 'food')).toMatchObject({ title: 'Rice, white, long-grain, cooked', detail: '180 g', carb: { grams: expect.closeTo(49.986, 6) } });
+    expect(meals.find((m: { id: number }) => m.id === typed).logged).toMatchObject({ carbGrams: 45 });
+    expect(full.result.body.cooks).toEqual([expect.objectContaining({ id: cook.body.id, placed: 3 })]);
   });
 });
 

@@ -54,10 +54,16 @@ describe('formatCarb', () => {
     { name: 'exactly 10 g is whole grams', grams: 10, unit: 'g' as const, text: '10 g' },
     { name: 'just under 10 g keeps a tenth', grams: 9.94, unit: 'g' as const, text: '9.9 g' },
     { name: 'bread units to a tenth', grams: 30, unit: 'unit12' as const, text: '2.5 BU' },
+    { name: 'zero grams (an empty day) without a decimal', grams: 0, unit: 'g' as const, text: '0 g' },
+    { name: 'a whole number under 10 g without ".0"', grams: 5, unit: 'g' as const, text: '5 g' },
+    { name: 'under 10 g that rounds to a whole number', grams: 4.96, unit: 'g' as const, text: '5 g' },
+    { name: 'a whole count of a counting unit', grams: 20, unit: 'portion10' as const, text: '2 CP' },
+    { name: 'zero in a counting unit', grams: 0, unit: 'exchange15' as const, text: '0 ex' },
     { name: 'unknown grams', grams: null, unit: 'g' as const, text: 'unknown' },
     { name: 'unknown in a counting unit', grams: null, unit: 'portion10' as const, text: 'unknown' },
   ])('$name', ({ grams, unit, text }) => {
-    // rounding rule from memory (EU label tolerance guidance pattern): ≥ 10 g whole, < 10 g one decimal, counting units one decimal;
+    // rounding rule from memory (EU label tolerance guidance pattern): ≥ 10 g whole, < 10 g one decimal, counting units one decimal,
+    // no trailing ".0" on a value that rounds to a whole number (house rule, as for insulin units);
     // CP = 10 g, BU = 12 g, ex = 15 g as CARB_UNIT_GRAMS cites
     expect(formatCarb(grams, unit)).toBe(text);
   });
