@@ -2,10 +2,11 @@ import express from 'express';
 import helmet from 'helmet';
 import { pinoHttp } from 'pino-http';
 import type { Sequelize } from 'sequelize';
-import type { Config } from './config';
+import { trustProxy, type Config } from './config';
 import { PhotoProcessor } from './lib/photo-worker';
 import { requestCache } from './lib/request-cache';
-import { localDiskStorage } from './lib/storage';
+import { s3Storage } from './lib/s3-storage';
+import { localDiskStorage, type FileStorage } from './lib/storage';
 import { logger } from './logger';
 import { MailSender } from './mail/mail-sender';
 import { errorHandler, notFoundHandler } from './middleware/error-handler';
@@ -15,6 +16,19 @@ import { configureMail } from './services/mail.service';
 import { configurePhotoSigning } from './services/photos.service';
 import { serveWeb } from './web';
 
+/** The one file storage the configuration names: the uploads folder on local disk (default) or an S3-compatible bucket. */
+export function configuredStorage(config: Config): FileStorage {
+  if (config.STORAGE === 'disk') return localDiskStorage(config.UPLOADS_DIR);
+  return s3Storage({
+    bucket: config.S3_BUCKET!,
+    region: config.S3_REGION!,
+    endpoint: config.S3_ENDPOINT,
+    accessKeyId: config.S3_ACCESS_KEY_ID,
+    secretAccessKey: config.S3_SECRET_ACCESS_KEY,
+    forcePathStyle: config.S3_FORCE_PATH_STYLE === '1',
+  });
+}
+
 /**
  * Builds the Express app (API + web build); server/index.ts calls listen(), tests use supertest. The one file storage
  * and the one photo processor (at most two decodes at once) are made here and handed to every route that stores or serves a file.
@@ -23,9 +37,10 @@ export function createApp(config: Config, sequelize: Sequelize) {
   logger.level = config.LOG_LEVEL;
   configurePhotoSigning(config.jwtSecret);
   configureMail(config);
-  const deps: AppDeps = { config, sequelize, storage: localDiskStorage(config.UPLOADS_DIR), photos: new PhotoProcessor(2) };
+  const deps: AppDeps = { config, sequelize, storage: configuredStorage(config), photos: new PhotoProcessor(2) };
   const app = express();
   app.disable('x-powered-by');
+  app.set('trust proxy', trustProxy(config));
   app.use(
     helmet({
       contentSecurityPolicy: {

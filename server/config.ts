@@ -11,8 +11,16 @@ const envSchema = z.object({
   HOST: z.string().default('127.0.0.1'),
   PORT: z.coerce.number().int().min(0).max(65535).default(8080),
   PUBLIC_URL: z.string().optional(),
+  TRUST_PROXY: z.string().regex(/^(\d+|loopback|linklocal|uniquelocal|[0-9a-fA-F.:/]+)(,\s*(loopback|linklocal|uniquelocal|[0-9a-fA-F.:/]+))*$/, 'TRUST_PROXY is a hop count (1) or addresses and subnets (loopback, 10.0.0.0/8, …).').optional(),
   DATA_DIR: z.string().default(path.join(REPO_ROOT, '.data')),
   UPLOADS_DIR: z.string().default(path.join(REPO_ROOT, 'uploads')),
+  STORAGE: z.enum(['disk', 's3']).default('disk'),
+  S3_ENDPOINT: z.url({ protocol: /^https?$/, message: 'S3_ENDPOINT must be an http(s) URL such as http://127.0.0.1:9000.' }).optional(),
+  S3_BUCKET: z.string().optional(),
+  S3_REGION: z.string().optional(),
+  S3_ACCESS_KEY_ID: z.string().optional(),
+  S3_SECRET_ACCESS_KEY: z.string().optional(),
+  S3_FORCE_PATH_STYLE: z.enum(['0', '1']).default('1'),
   WEB_DIST_DIR: z.string().default(path.join(REPO_ROOT, 'dist')),
   JWT_SECRET: z.string().min(32, 'JWT_SECRET must be at least 32 characters.').optional(),
   TOKEN_TTL_HOURS: z.coerce.number().positive().default(24 * 14),
@@ -40,6 +48,15 @@ const envSchema = z.object({
 }).refine((env) => env.NODE_ENV === 'test' || env.BCRYPT_COST >= 12, {
   message: 'BCRYPT_COST must be at least 12 outside tests.',
   path: ['BCRYPT_COST'],
+}).superRefine((env, ctx) => {
+  if (env.STORAGE !== 's3') return;
+  for (const name of ['S3_BUCKET', 'S3_REGION'] as const) {
+    if (!env[name]) ctx.addIssue({ code: 'custom', path: [name], message: `${name} is required when STORAGE=s3.` });
+  }
+  if (!env.S3_ACCESS_KEY_ID !== !env.S3_SECRET_ACCESS_KEY) {
+    const missing = env.S3_ACCESS_KEY_ID ? 'S3_SECRET_ACCESS_KEY' : 'S3_ACCESS_KEY_ID';
+    ctx.addIssue({ code: 'custom', path: [missing], message: 'S3_ACCESS_KEY_ID and S3_SECRET_ACCESS_KEY go together (or leave both out to use the SDK\'s own credentials).' });
+  }
 });
 
 type LogLevel = NonNullable<z.infer<typeof envSchema>['LOG_LEVEL']>;
@@ -62,6 +79,15 @@ function loadJwtSecret(env: z.infer<typeof envSchema>): string {
  */
 export function publicUrl(config: Pick<Config, 'PUBLIC_URL' | 'HOST' | 'PORT'>): string {
   return (config.PUBLIC_URL ?? `http://${config.HOST}:${config.PORT}`).replace(/\/+$/, '');
+}
+
+/**
+ * Express's `trust proxy` setting from TRUST_PROXY: behind a load balancer the client's address (for the per-address
+ * sign-in limit) comes from X-Forwarded-For, added by the proxies trusted here; unset, the connection's own address.
+ */
+export function trustProxy(config: Pick<Config, 'TRUST_PROXY'>): number | string | false {
+  if (!config.TRUST_PROXY) return false;
+  return /^\d+$/.test(config.TRUST_PROXY) ? Number(config.TRUST_PROXY) : config.TRUST_PROXY;
 }
 
 /** True when no SMTP host is configured: mail goes to the local fake SMTP server and the captured-mail page is on. */

@@ -3,7 +3,8 @@
  * (server/bench/volume.ts), and measures requests per second and p50/p97.5/p99 latency with autocannon beside the
  * floor (GET /api/bench/floor, a bare database round trip). Every server/bench/*.bench.ts adds scenarios. Each figure
  * is printed beside its target (server/bench/targets.ts) with the number of queries one request makes; the whole run
- * is written as JSON to .bench/ (git-ignored).
+ * is written as JSON to .bench/ (git-ignored), with the rows and sizes of the largest tables. BENCH_ONLY=a,b runs the files
+ * whose names contain any of the parts.
  */
 import { AsyncLocalStorage } from 'node:async_hooks';
 import fs from 'node:fs';
@@ -72,6 +73,19 @@ function printTable(rows: string[][]) {
   for (const r of rows.slice(1)) console.log(line(r));
 }
 
+type TableSize = { table: string; rows: number; totalBytes: number; indexBytes: number };
+
+/** Rows and on-disk size (table + indexes + TOAST, and indexes alone) of the largest tables, for the README's growth arithmetic. */
+async function tableSizes(ctx: BenchContext): Promise<TableSize[]> {
+  await ctx.sequelize.query('ANALYZE');
+  const [rows] = await ctx.sequelize.query(
+    `SELECT c.relname AS table, c.reltuples::bigint AS rows, pg_total_relation_size(c.oid) AS total, pg_indexes_size(c.oid) AS indexes
+       FROM pg_class c JOIN pg_namespace n ON n.oid = c.relnamespace
+      WHERE n.nspname = 'public' AND c.relkind = 'r' ORDER BY pg_total_relation_size(c.oid) DESC LIMIT 12`,
+  );
+  return (rows as { table: string; rows: string; total: string; indexes: string }[]).map((r) => ({ table: r.table, rows: Number(r.rows), totalBytes: Number(r.total), indexBytes: Number(r.indexes) }));
+}
+
 async function main() {
   const config = loadConfig({ ...process.env, BENCH_ROUTES: '1', NODE_ENV: 'production', LOG_LEVEL: 'silent' });
   const sequelize = createSequelize(config.DATABASE_URL, { poolMax: 20 });
@@ -103,11 +117,13 @@ async function main() {
   const only = process.env.BENCH_ONLY;
   const scenarios: (HttpScenario | TaskScenario)[] = only ? [] : [{ kind: 'http', name: 'GET /api/me', path: '/api/me' }];
   for (const file of fs.readdirSync(__dirname).filter((f) => f.endsWith('.bench.ts')).sort()) {
-    if (only && !file.includes(only)) continue;
+    if (only && !only.split(',').some((part) => file.includes(part))) continue;
     const mod = (await import(path.join(__dirname, file))) as BenchModule;
     scenarios.push(...(await mod.scenarios(ctx)));
   }
 
+  // Measured before the write scenarios add their own rows: the volume and the scenarios' fixtures only.
+  const tables = await tableSizes(ctx);
   const machine = `${os.cpus().length} × ${os.cpus()[0]?.model ?? 'cpu'}, ${Math.round(os.totalmem() / 2 ** 30)} GiB, load ${os.loadavg().map((l) => l.toFixed(1)).join(' ')}`;
   console.log(`Benchmark: ${SECONDS}s per scenario, ${CONNECTIONS} connections, loopback, ${new Date().toISOString()}\nMachine: ${machine}`);
   const floorScenario: HttpScenario = { kind: 'http', name: 'floor: GET /api/bench/floor (SELECT 1)', path: '/api/bench/floor', auth: false, target: 'none' };
@@ -141,12 +157,14 @@ async function main() {
     ...http.map((r) => [r.name, String(r.queries), fmt(r.latency.rps), fmt(r.latency.p50), fmt(r.latency.p97_5), fmt(r.latency.p99), (r.latency.p50 / floor.p50).toFixed(1), describeChecks(r.checks)]),
   ]);
   if (tasks.length) console.log(`\n${tasks.map((t) => `${t.name}: ${t.figure} ${t.unit}${t.target ? ` (target ${t.target}: ${t.met ? 'met' : 'NOT met'})` : ''}`).join('\n')}`);
+  const mib = (n: number) => (n / 2 ** 20).toFixed(1);
+  console.log(`\nLargest tables: ${tables.map((t) => `${t.table} ${t.rows.toLocaleString('en')} rows ${mib(t.totalBytes)} MiB (indexes ${mib(t.indexBytes)})`).join('; ')}`);
   const checks = [...http.flatMap((r) => r.checks), ...tasks.filter((t) => t.met !== undefined).map((t) => ({ met: t.met }))];
   const met = checks.filter((c) => c.met).length;
   console.log(`\nTargets met: ${met} of ${checks.length}`);
   fs.mkdirSync(OUT_DIR, { recursive: true });
   const stamp = new Date().toISOString().replace(/[:.]/g, '-');
-  const report = { at: new Date().toISOString(), machine, seconds: SECONDS, connections: CONNECTIONS, volume: volume?.counts ?? null, http, tasks, met, of: checks.length };
+  const report = { at: new Date().toISOString(), machine, seconds: SECONDS, connections: CONNECTIONS, volume: volume?.counts ?? null, tables, http, tasks, met, of: checks.length };
   fs.writeFileSync(path.join(OUT_DIR, `bench-${stamp}.json`), JSON.stringify(report, null, 2));
   fs.writeFileSync(path.join(OUT_DIR, 'latest.json'), JSON.stringify(report, null, 2));
   console.log(`Written: .bench/bench-${stamp}.json`);

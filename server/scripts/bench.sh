@@ -1,6 +1,6 @@
 #!/usr/bin/env bash
 # npm run bench: a throwaway PostgreSQL, then server/bench/run.ts prints the figures.
-# BENCH_SECONDS (default 5), BENCH_CONNECTIONS (default 10), BENCH_ONLY=<file part> to run one file.
+# BENCH_SECONDS (default 5), BENCH_CONNECTIONS (default 10), BENCH_ONLY=<file part>[,<file part>…] to run some files.
 # `npm run bench -- --only web` is BENCH_ONLY=web; the web part needs no generated volume, so it skips it.
 set -euo pipefail
 if [ "${1:-}" = "--only" ] && [ -n "${2:-}" ]; then
