@@ -51,7 +51,7 @@ describe('NewProfileScreen', () => {
     expect(await screen.findByText('People page')).toBeInTheDocument();
     expect(screen.getByRole('button', { name: "Showing Mia's data. Switch profile" })).toBeInTheDocument();
     const [, init] = api.mock.calls.find(([, i]) => i?.method === 'POST')!;
-    expect(JSON.parse(String(init.body))).toEqual({ displayName: 'Mia', colour: 'plum', timeZone: 'Europe/Dublin' });
+    expect(JSON.parse(String(init?.body))).toEqual({ displayName: 'Mia', colour: 'plum', timeZone: 'Europe/Dublin' });
   });
 
   it('asks for a name and a real time zone before sending, and shows a server error under its field', async () => {
