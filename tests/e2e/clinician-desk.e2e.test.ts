@@ -83,7 +83,7 @@ describe("the clinician's desk in the browser", () => {
 
     await phone.getByRole('button', { name: "Open Ada's logbook" }).click();
     await phone.waitForURL(/\/logbook$/);
-    await phone.getByText('Porridge day 1 · 40 g').waitFor();
+    await phone.getByText('Porridge day 1 · 40 g', { exact: true }).waitFor();
     await settled(phone);
     await rig.shot(phone, 'phone-ada-logbook');
     await expect(phone.getByTestId('active-profile').textContent()).resolves.toContain('Ada');
