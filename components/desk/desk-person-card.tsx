@@ -57,7 +57,7 @@ export function DeskPersonCard({ person: p }: { person: DeskPerson }) {
           <Text>{rangeText(p)}</Text>
         </View>
       </View>
-      <View style={styles.fact}>
+      <View style={styles.flags}>
         <Text variant="label" color="textMuted">
           Ratio review flags
         </Text>
@@ -89,6 +89,8 @@ export function DeskPersonCard({ person: p }: { person: DeskPerson }) {
 const styles = StyleSheet.create({
   head: { flexDirection: 'row', alignItems: 'center', gap: 8, flexWrap: 'wrap' },
   facts: { flexDirection: 'row', flexWrap: 'wrap', gap: 16 },
+  // flexBasis only inside the row of facts; in the card's column it would be a height.
   fact: { gap: 2, flexGrow: 1, flexBasis: 280, minWidth: 0 },
+  flags: { gap: 2 },
   actions: { flexDirection: 'row', flexWrap: 'wrap', gap: 8 },
 });

@@ -83,8 +83,9 @@ describe("the clinician's desk in the browser", () => {
 
     await phone.getByRole('button', { name: "Open Ada's logbook" }).click();
     await phone.waitForURL(/\/logbook$/);
-    await phone.getByText('Porridge day 1 · 40 g').waitFor();
-    await settled(phone);
+    await phone.getByText('Porridge day 1 · 40 g', { exact: true }).waitFor();
+    // Not settled(): the desk stays mounted (hidden) in the tab navigator, and its heading would be found first.
+    await phone.waitForLoadState('networkidle');
     await rig.shot(phone, 'phone-ada-logbook');
     await expect(phone.getByTestId('active-profile').textContent()).resolves.toContain('Ada');
     await expect(phone.getByRole('button', { name: 'Add an entry' }).count()).resolves.toBe(0);
