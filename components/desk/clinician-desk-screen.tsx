@@ -2,7 +2,7 @@ import { StyleSheet, View } from 'react-native';
 import { formatGlucose } from '../../shared/compute/units';
 import type { DeskInvitation } from '../../shared/schemas/clinician-desk';
 import { useClinicianDesk } from '../api/clinician-desk';
-import { dayText } from '../logbook/log-format';
+import { dayText } from '../ui/date-format';
 import { ProfileDot } from '../nav/profile-switcher';
 import { Callout } from '../ui/callout';
 import { Card } from '../ui/card';

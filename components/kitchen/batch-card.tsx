@@ -7,7 +7,8 @@ import { Callout } from '../ui/callout';
 import { Card } from '../ui/card';
 import { Text } from '../ui/text';
 import { formatCarb } from '../../shared/compute/units';
-import { dateWord, gramsText, shortDate, shelfStatus } from './kitchen-format';
+import { dateWord, gramsText, shelfStatus } from './kitchen-format';
+import { dayText } from '../ui/date-format';
 
 /** One batch on the inventory shelf: where it is, how long it keeps, what is left. */
 export function BatchCard({ batch, today }: { batch: BatchSummary; today: string }) {
@@ -24,7 +25,7 @@ export function BatchCard({ batch, today }: { batch: BatchSummary; today: string
         </Text>
       </View>
       <Text color="textMuted">
-        Cooked {shortDate(batch.cookedOn)} · {dateWord(batch.storage)} {shortDate(batch.useBy)} · {batch.counts.available} left, {batch.counts.eaten} eaten,{' '}
+        Cooked {dayText(batch.cookedOn)} · {dateWord(batch.storage)} {dayText(batch.useBy)} · {batch.counts.available} left, {batch.counts.eaten} eaten,{' '}
         {batch.counts.discarded} thrown away
       </Text>
       {left.length > 0 ? (

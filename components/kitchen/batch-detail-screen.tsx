@@ -11,7 +11,8 @@ import { Text } from '../ui/text';
 import { formatCarb } from '../../shared/compute/units';
 import { CarbUnknownCallout, Figure } from './cooked-weight-step';
 import { carbUnderstated } from '../../shared/compute/batch';
-import { dateWord, gramsText, localToday, shortDate, shelfStatus } from './kitchen-format';
+import { dateWord, gramsText, localToday, shelfStatus } from './kitchen-format';
+import { dayText } from '../ui/date-format';
 import { useBatch, useUpdateBatch } from '../api/batches';
 import { useSetPortionStatus } from '../api/portions';
 
@@ -33,7 +34,7 @@ export function BatchDetailScreen({ id }: { id: number }) {
   return (
     <Screen
       title={b.recipeTitle}
-      subtitle={`Cooked ${shortDate(b.cookedOn)}${b.cookedBy ? ` by ${b.cookedBy.displayName}` : ''} · ${b.storage === 'freezer' ? 'freezer' : 'fridge'}`}
+      subtitle={`Cooked ${dayText(b.cookedOn)}${b.cookedBy ? ` by ${b.cookedBy.displayName}` : ''} · ${b.storage === 'freezer' ? 'freezer' : 'fridge'}`}
       backHref="/kitchen"
       actions={<Button label="Print labels" onPress={() => router.push(`/batches/${b.id}/labels`)} />}
     >
@@ -52,7 +53,7 @@ export function BatchDetailScreen({ id }: { id: number }) {
         </Text>
         <Text variant="label" color={status.tone === 'ok' ? 'inRange' : status.tone}>
           {status.tone === 'ok' ? '✓ ' : '! '}
-          {when[0].toUpperCase() + when.slice(1)} {shortDate(b.useBy)}: {status.text}
+          {when[0].toUpperCase() + when.slice(1)} {dayText(b.useBy)}: {status.text}
         </Text>
         <Text variant="caption" color="textMuted">
           {b.useByNote}
@@ -67,7 +68,7 @@ export function BatchDetailScreen({ id }: { id: number }) {
         ) : null}
         {update.isSuccess ? (
           <Callout tone="caution" title="Printed labels now show an old date">
-            {`Moved to the ${b.storage}: it is now ${when} ${shortDate(b.useBy)}. Labels printed before show the old date.`}
+            {`Moved to the ${b.storage}: it is now ${when} ${dayText(b.useBy)}. Labels printed before show the old date.`}
             <Button variant="secondary" label="Reprint labels" onPress={() => router.push(`/batches/${b.id}/labels`)} />
           </Callout>
         ) : null}

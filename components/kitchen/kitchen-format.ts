@@ -32,8 +32,3 @@ export function shelfStatus(useBy: string, today: string, storage: Storage = 'fr
   return { text: `${days} days left`, tone: 'ok' };
 }
 
-/** "Tue 10 Mar" style date for labels and lists. */
-export function shortDate(iso: string): string {
-  const d = new Date(`${iso}T12:00:00Z`);
-  return d.toLocaleDateString('en-GB', { weekday: 'short', day: 'numeric', month: 'short', timeZone: 'UTC' });
-}

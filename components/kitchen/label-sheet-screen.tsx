@@ -8,7 +8,8 @@ import { Button } from '../ui/button';
 import { Screen } from '../ui/screen';
 import { ErrorState, LoadingState } from '../ui/states';
 import { Text } from '../ui/text';
-import { dateWord, shortDate } from './kitchen-format';
+import { dateWord } from './kitchen-format';
+import { dayText } from '../ui/date-format';
 import { useLabelSheet } from '../api/batches';
 import { canPrint, printPage, usePrintStyles } from './print';
 
@@ -56,7 +57,7 @@ function LabelCard({ label, personName }: { label: PortionLabel; personName: str
         </Text>
         {personName ? <Text weight="bold">For {personName}</Text> : null}
         <Text variant="caption">
-          Cooked {shortDate(label.cookedOn)} · {dateWord(label.storage)} {shortDate(label.useBy)} ({label.storage})
+          Cooked {dayText(label.cookedOn)} · {dateWord(label.storage)} {dayText(label.useBy)} ({label.storage})
         </Text>
         <Text variant="lead" weight="bold">
           {label.text.carbLine}

@@ -10,7 +10,8 @@ import { ErrorState, LoadingState } from '../ui/states';
 import { Text } from '../ui/text';
 import { formatCarb } from '../../shared/compute/units';
 import { Figure } from './cooked-weight-step';
-import { dateWord, gramsText, localToday, shelfStatus, shortDate } from './kitchen-format';
+import { dateWord, gramsText, localToday, shelfStatus } from './kitchen-format';
+import { dateTimeText, dayText } from '../ui/date-format';
 import { usePortion, useSetPortionStatus } from '../api/portions';
 import { doseCheckHref } from '../dose/dose-href';
 
@@ -52,12 +53,12 @@ export function PortionScreen({ code }: { code: string }) {
           {p.containerName ? ` In ${p.containerName}.` : ''}
         </Text>
         <Text>
-          Cooked {shortDate(p.cookedOn)} · {dateWord(p.storage)} {shortDate(p.useBy)} · {p.storage}
+          Cooked {dayText(p.cookedOn)} · {dateWord(p.storage)} {dayText(p.useBy)} · {p.storage}
         </Text>
       </Card>
       {p.status !== 'available' ? (
         <Callout tone="info" title={p.status === 'eaten' ? 'Already eaten' : 'Thrown away'}>
-          {`Marked ${p.status === 'eaten' ? 'eaten' : 'thrown away'}${p.statusChangedAt ? ` on ${new Date(p.statusChangedAt).toLocaleString()}` : ''}.`}
+          {`Marked ${p.status === 'eaten' ? 'eaten' : 'thrown away'}${p.statusChangedAt ? ` on ${dateTimeText(p.statusChangedAt)}` : ''}.`}
           {undoable ? <Button variant="secondary" label="Undo" loading={mark.isPending} onPress={() => markAs('available')} /> : null}
         </Callout>
       ) : shelf.tone === 'danger' ? (

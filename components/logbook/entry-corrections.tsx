@@ -11,7 +11,8 @@ import { Callout } from '../ui/callout';
 import { ErrorState, LoadingState } from '../ui/states';
 import { Text } from '../ui/text';
 import { EditEntryForm } from './edit-entry-form';
-import { dayText, entrySummary } from './log-format';
+import { dayText } from '../ui/date-format';
+import { entrySummary } from './log-format';
 
 type Units = Pick<LogHistoryPage, 'glucoseUnit' | 'carbBasis' | 'carbUnit'>;
 const ACTION_WORDS: Record<LogEntryChange['action'], string> = { edit: 'Edited', delete: 'Deleted', restore: 'Restored' };

@@ -4,7 +4,8 @@ import { useTheme } from '../theme/use-theme';
 import { Card } from '../ui/card';
 import { Text } from '../ui/text';
 import { EntryCorrections } from './entry-corrections';
-import { dayText, entrySummary, glucoseText, unitsText } from './log-format';
+import { dayText } from '../ui/date-format';
+import { entrySummary, glucoseText, unitsText } from './log-format';
 
 type Units = Pick<LogHistoryPage, 'glucoseUnit' | 'carbBasis' | 'carbUnit'>;
 

@@ -6,7 +6,8 @@ import type { LogCharts } from '../../shared/schemas/logbook-read';
 import { useTheme } from '../theme/use-theme';
 import { Card } from '../ui/card';
 import { Text } from '../ui/text';
-import { dayText, percentText, unitsText } from './log-format';
+import { dayText } from '../ui/date-format';
+import { percentText, unitsText } from './log-format';
 
 const CHART_HEIGHT = 150;
 const keepTogether = { dataSet: { print: 'label' } } as object;

@@ -42,11 +42,6 @@ export function entrySummary(row: LogHistoryRow, glucoseUnit: GlucoseUnit, basis
   return row.note ?? '';
 }
 
-/** "Mon 2 Mar" for a local date. */
-export function dayText(date: string): string {
-  return new Date(`${date}T12:00:00Z`).toLocaleDateString(undefined, { weekday: 'short', day: 'numeric', month: 'short', timeZone: 'UTC' });
-}
-
 /** The default period: the last 14 local days up to today. */
 export function defaultPeriod(now: Date = new Date()): { from: string; to: string } {
   const to = localToday(now);

@@ -1,6 +1,6 @@
 import { toLocalTime } from '../../shared/compute/local-time';
 import { minutesToTime } from '../../shared/schemas/profile-settings';
-import { shortDate } from '../kitchen/kitchen-format';
+import { dayText } from '../ui/date-format';
 import { Callout } from '../ui/callout';
 import { Text } from '../ui/text';
 
@@ -12,7 +12,7 @@ export function offlineStampText(asOf: number | null, now: number, timeZone: str
   if (asOf == null) return 'Offline — nothing saved on this device yet';
   const at = toLocalTime(asOf, timeZone);
   const sameDay = at.localDate === toLocalTime(now, timeZone).localDate;
-  return `Offline — as of ${sameDay ? '' : `${shortDate(at.localDate)} `}${minutesToTime(at.localMinute)}`;
+  return `Offline — as of ${sameDay ? '' : `${dayText(at.localDate)} `}${minutesToTime(at.localMinute)}`;
 }
 
 /** Above a screen shown from its offline copy: when the copy is from, and that nothing is saved or worked out offline. */

@@ -7,7 +7,8 @@ import { useTheme } from '../theme/use-theme';
 import { Button } from '../ui/button';
 import { Card } from '../ui/card';
 import { Text } from '../ui/text';
-import { dayLabel, mealCarbText, plannedDoseText, totalsText } from './plan-format';
+import { dayText } from '../ui/date-format';
+import { mealCarbText, plannedDoseText, totalsText } from './plan-format';
 
 // A printed week shows the plan, not its buttons.
 const hideInPrint = { dataSet: { print: 'hide' } } as object;
@@ -22,8 +23,8 @@ export function PlanDayCard({ day, unit, compact, onRemove }: { day: PlanDay; un
   // Seven columns are narrow: the totals take the smaller type so long words are not broken.
   const size = compact ? 'caption' : 'body';
   return (
-    <Card aria-label={dayLabel(day.date, day.weekday)} style={compact ? styles.compact : undefined}>
-      <Text variant="heading">{dayLabel(day.date, day.weekday)}</Text>
+    <Card aria-label={dayText(day.date)} style={compact ? styles.compact : undefined}>
+      <Text variant="heading">{dayText(day.date)}</Text>
       <Text color="textMuted">{day.dayKind ? `${day.dayKind.name} (${FROM_WORDS[day.dayKind.from]})` : 'No kind of day'}</Text>
       {day.meals.length === 0 ? <Text color="textMuted">No meals planned.</Text> : null}
       {day.meals.map((m) => (

@@ -1,4 +1,4 @@
-import { WEEKDAY_NAMES, type PlanMealView } from '../../shared/schemas/plan';
+import type { PlanMealView } from '../../shared/schemas/plan';
 import { formatCarb } from '../../shared/compute/units';
 import type { Totals } from '../../shared/compute/plan';
 import type { CarbUnit } from '../../shared/schemas/units';
@@ -6,12 +6,6 @@ import { formatDoseUnits } from '../dose/insulin-format';
 
 /** The one line every planned dose carries (README glossary: planned dose). */
 export const PLANNED_DOSE_WORDS = 'Planned dose — meal part only; glucose unknown until you eat.';
-
-/** "Mon 9 Mar" for a YYYY-MM-DD date. */
-export function dayLabel(date: string, weekday: number): string {
-  const d = new Date(`${date}T00:00:00Z`);
-  return `${WEEKDAY_NAMES[weekday - 1].slice(0, 3)} ${d.getUTCDate()} ${d.toLocaleDateString('en-GB', { month: 'short', timeZone: 'UTC' })}`;
-}
 
 /** A planned meal's dose as text: "3.5 units (1 unit per 10 g)" or why there is none. */
 export function plannedDoseText(dose: PlanMealView['dose']): string {

@@ -7,7 +7,8 @@ import { Screen } from '../ui/screen';
 import { ErrorState, LoadingState } from '../ui/states';
 import { Text } from '../ui/text';
 import { PlanDayCard } from './plan-day';
-import { dayLabel, PLANNED_DOSE_WORDS, totalsText } from './plan-format';
+import { dayText } from '../ui/date-format';
+import { PLANNED_DOSE_WORDS, totalsText } from './plan-format';
 import { PlanWarnings } from './plan-warnings';
 
 const hideInPrint = { dataSet: { print: 'hide' } } as object;
@@ -23,7 +24,7 @@ export function PlanPrintScreen({ date }: { date: string }) {
   const w = week.data;
   const totals = totalsText(w.totals, w.unit);
   return (
-    <Screen title={`Week of ${dayLabel(w.days[0].date, w.days[0].weekday)}`} subtitle={`${profile.displayName} · ${PLANNED_DOSE_WORDS}`} backHref="/plan">
+    <Screen title={`Week of ${dayText(w.days[0].date)}`} subtitle={`${profile.displayName} · ${PLANNED_DOSE_WORDS}`} backHref="/plan">
       <View {...hideInPrint} style={styles.row}>{canPrint ? <Button label="Print" onPress={printPage} /> : null}</View>
       <PlanWarnings warnings={w.warnings} />
       <View style={styles.grid}>

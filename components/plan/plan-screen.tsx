@@ -12,7 +12,8 @@ import { Screen } from '../ui/screen';
 import { ErrorState, LoadingState } from '../ui/states';
 import { Text } from '../ui/text';
 import { PlanDayCard } from './plan-day';
-import { dayLabel, PLANNED_DOSE_WORDS, totalsText } from './plan-format';
+import { dayText } from '../ui/date-format';
+import { PLANNED_DOSE_WORDS, totalsText } from './plan-format';
 import { PlanWarnings } from './plan-warnings';
 
 /** The week plan: warnings first, then the days (one at a time on a phone, seven columns on a wide screen) and the week's totals. */
@@ -39,7 +40,7 @@ export function PlanScreen() {
   const onRemove = (id: number) => remove.mutate(id);
 
   return (
-    <Screen title="Plan" subtitle={`Week of ${dayLabel(w.days[0].date, w.days[0].weekday)}`}>
+    <Screen title="Plan" subtitle={`Week of ${dayText(w.days[0].date)}`}>
       <View style={styles.row}>
         <Button variant="secondary" label="‹ Week before" onPress={() => step(-1)} />
         <Button variant="secondary" label="Week after ›" onPress={() => step(1)} />

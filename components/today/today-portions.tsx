@@ -5,7 +5,8 @@ import { formatCarb } from '../../shared/compute/units';
 import type { BatchSummary } from '../../shared/schemas/batch';
 import type { CarbUnit } from '../../shared/schemas/units';
 import { doseCheckHref } from '../dose/dose-href';
-import { dateWord, shelfStatus, shortDate } from '../kitchen/kitchen-format';
+import { dateWord, shelfStatus } from '../kitchen/kitchen-format';
+import { dayText } from '../ui/date-format';
 import { useBatches } from '../api/batches';
 import { useTheme } from '../theme/use-theme';
 import { Button } from '../ui/button';
@@ -38,7 +39,7 @@ function PortionRow({ row, unit, today }: { row: Row; unit: CarbUnit; today: str
       <View style={styles.rowText}>
         <Text weight="bold">{row.title}</Text>
         <Text color="textMuted">
-          {formatPortionCode(row.code)} · {row.storage === 'freezer' ? 'Freezer' : 'Fridge'} · {Math.round(row.netGrams)} g · {dateWord(row.storage)} {shortDate(row.useBy)}
+          {formatPortionCode(row.code)} · {row.storage === 'freezer' ? 'Freezer' : 'Fridge'} · {Math.round(row.netGrams)} g · {dateWord(row.storage)} {dayText(row.useBy)}
         </Text>
         {shelf.tone !== 'ok' ? (
           <Text variant="label" color={shelf.tone === 'danger' ? 'danger' : 'caution'}>
