@@ -2,7 +2,7 @@ import { Link } from 'expo-router';
 import { useState } from 'react';
 import { StyleSheet, View } from 'react-native';
 import { addDaysIso } from '../../shared/compute/plan';
-import { useActiveProfile } from '../api/auth';
+import { useActiveProfile, useProfileCan } from '../api/auth';
 import { useDeletePlanMeal, usePlanWeek } from '../api/plan';
 import { useLayout } from '../theme/use-theme';
 import { Button } from '../ui/button';
@@ -24,6 +24,8 @@ export function PlanScreen() {
   const week = usePlanWeek(profile?.id, date);
   const remove = useDeletePlanMeal(profile?.id);
   const { isWide } = useLayout();
+  // A clinician reads the plan: no buttons the server would refuse.
+  const canWrite = useProfileCan('plan.write');
 
   if (!profile || week.isPending) return <Screen title="Plan"><LoadingState label="Loading the week…" /></Screen>;
   if (week.isError) return <Screen title="Plan"><ErrorState error={week.error} onRetry={() => void week.refetch()} /></Screen>;
@@ -37,7 +39,7 @@ export function PlanScreen() {
     setDate(addDaysIso(w.weekStart, by * 7));
     setDayIndex(0);
   };
-  const onRemove = (id: number) => remove.mutate(id);
+  const onRemove = canWrite ? (id: number) => remove.mutate(id) : undefined;
 
   return (
     <Screen title="Plan" subtitle={`Week of ${dayText(w.days[0].date)}`}>
@@ -46,15 +48,19 @@ export function PlanScreen() {
         <Button variant="secondary" label="Week after ›" onPress={() => step(1)} />
       </View>
       <View style={styles.row}>
-        <Link href={{ pathname: '/plan/meal', params: { date: day.date } }} asChild>
-          <Button label="Plan a meal" />
-        </Link>
-        <Link href={{ pathname: '/plan/cook', params: { date: day.date } }} asChild>
-          <Button variant="secondary" label="Plan a cook" />
-        </Link>
-        <Link href="/plan/settings" asChild>
-          <Button variant="secondary" label="Weekly pattern and meals" />
-        </Link>
+        {canWrite ? (
+          <>
+            <Link href={{ pathname: '/plan/meal', params: { date: day.date } }} asChild>
+              <Button label="Plan a meal" />
+            </Link>
+            <Link href={{ pathname: '/plan/cook', params: { date: day.date } }} asChild>
+              <Button variant="secondary" label="Plan a cook" />
+            </Link>
+            <Link href="/plan/settings" asChild>
+              <Button variant="secondary" label="Weekly pattern and meals" />
+            </Link>
+          </>
+        ) : null}
         <Link href={{ pathname: '/plan/shopping', params: { date: w.weekStart } }} asChild>
           <Button variant="secondary" label="Shopping list" />
         </Link>
