@@ -5,9 +5,11 @@ import { Text } from 'react-native';
 import { activeProfileStore } from '@/components/auth/active-profile-store';
 import { ClinicianDeskScreen } from '@/components/desk/clinician-desk-screen';
 import { OfferToMyPeople } from '@/components/recipes/offer-to-my-people';
+import { PlanScreen } from '@/components/plan/plan-screen';
 import { DayKindsScreen } from '@/components/settings/day-kinds-screen';
 import type { Me } from '@/shared/schemas/auth';
 import type { ClinicianDesk, DeskPerson } from '@/shared/schemas/clinician-desk';
+import type { PlanWeek } from '@/shared/schemas/plan';
 import { AppRoot, fakeApi, renderSignedIn } from './render-with-api';
 
 const summary = { managed: false, glucoseUnit: 'mmol_l', carbBasis: 'available', carbUnit: 'g', preferredFoodTable: 'usda_sr28', timeZone: 'UTC' } as const;
@@ -112,6 +114,28 @@ describe('what a clinician sees on the screens the desk opens', () => {
     // Link-wrapped buttons: found by their words, whatever role the link gives them.
     expect(screen.queryByText('Edit Rest') != null).toBe(edit);
     expect(screen.queryByText('Add a day kind') != null).toBe(edit);
+  });
+  const none = { carbGrams: 0, carbIncomplete: false, rapidUnits: 0, rapidIncomplete: false, longActingUnits: null };
+  const WEEK: PlanWeek = {
+    weekStart: '2026-03-02', today: '2026-03-02', timeZone: 'UTC', basis: 'available', unit: 'g', doseReady: false,
+    days: Array.from({ length: 7 }, (_, i) => ({ date: `2026-03-0${2 + i}`, weekday: i + 1, dayKind: null, meals: [], totals: none })),
+    cooks: [], use: [], totals: none, warnings: [],
+  };
+
+  it.each([
+    { name: 'a clinician reads the plan without its write buttons', me: NURSE, active: 11, write: false },
+    { name: 'the owner gets them', me: undefined, active: 1, write: true },
+  ])('$name', async ({ me, active, write }) => {
+    fakeApi({ ...(me ? { 'GET /me': [200, me] } : {}), [`GET /profiles/${active}/plan/week`]: [200, WEEK] });
+    activeProfileStore.set(active);
+
+    renderSignedIn(PlanScreen);
+    await screen.findByLabelText('Week totals');
+
+    expect(screen.queryByText('Plan a meal') != null).toBe(write);
+    expect(screen.queryByText('Plan a cook') != null).toBe(write);
+    expect(screen.queryByText('Weekly pattern and meals') != null).toBe(write);
+    expect(screen.getByText('Shopping list')).toBeInTheDocument();
   });
 });
 
