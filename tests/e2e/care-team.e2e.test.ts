@@ -42,7 +42,7 @@ const seenColours = new Map<string, string>();
 
 /** The header of the page names the profile whose data it shows, in that profile's own colour. */
 async function expectShowing(page: Page, profile: Pick<ProfileSummary, 'displayName' | 'colour'>) {
-  await page.getByRole('button', { name: new RegExp(`^Showing ${profile.displayName}'s data`) }).waitFor();
+  await page.getByRole('button', { name: new RegExp(`Showing ${profile.displayName}'s data`) }).waitFor();
   const name = page.getByTestId('active-profile').getByText(profile.displayName, { exact: true });
   const shown = await name.evaluate((el) => getComputedStyle(el).color);
   if (!seenColours.has(profile.colour)) {
@@ -54,7 +54,7 @@ async function expectShowing(page: Page, profile: Pick<ProfileSummary, 'displayN
 
 /** Picks a profile from the header's switch. */
 async function switchTo(page: Page, name: string) {
-  await page.getByRole('button', { name: /Switch profile$/ }).click();
+  await page.getByRole('button', { name: /switch profile$/ }).click();
   await page.getByRole('radiogroup', { name: 'Profiles' }).getByRole('radio', { name: new RegExp(`^${name}`) }).click();
 }
 
@@ -146,7 +146,7 @@ describe('care team in the browser: invite, accept, revoke', () => {
     await expectShowing(carer, me.profiles[0]);
     await shotBoth(carer, 'carer-after-revoke');
     await carer.reload();
-    await carer.getByRole('button', { name: "Showing Jo's data" }).waitFor();
+    await carer.getByRole('button', { name: /Showing Jo's data/ }).waitFor();
     expect(await carer.getByText('Alex', { exact: true }).count()).toBe(0);
     await Promise.all([carer.context().close(), ownerPage.context().close()]);
   });
