@@ -76,6 +76,9 @@ export function restoreOfflineCopy(qc: QueryClient, now = Date.now()) {
   if (!copy || copy.version !== VERSION || !sessionCookie.csrf() || now - copy.savedAt > OFFLINE_COPY_MAX_AGE_MS) return offlineCopyStore.clear();
   const queries = copy.state.queries.filter((q) => now - q.state.dataUpdatedAt <= OFFLINE_COPY_MAX_AGE_MS);
   hydrate(qc, { ...copy.state, queries });
+  // The copy is for when the server cannot be reached: online, every restored query is fetched again when a screen
+  // shows it (within the stale time it would otherwise pass as fresh, e.g. a portion eaten since would still show).
+  for (const q of queries) void qc.invalidateQueries({ queryKey: q.queryKey, exact: true, refetchType: 'none' });
 }
 
 /**

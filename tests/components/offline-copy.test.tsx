@@ -107,6 +107,9 @@ describe('saving and restoring the copy', () => {
     expect(restored.getQueryState(batchKeys.list({ profileId: 1, include: 'available' }))?.dataUpdatedAt).toBe(at);
     expect(restored.getQueryData(authKeys.me())).toEqual(ME);
     expect(restored.getQueryData(settingsKeys.settings(1))).toBeUndefined();
+    // Shown at once, but never taken as fresh: online, the screen fetches it again (a portion eaten since must go).
+    expect(restored.getQueryState(batchKeys.list({ profileId: 1, include: 'available' }))?.isInvalidated).toBe(true);
+    expect(restored.getQueryState(authKeys.me())?.isInvalidated).toBe(true);
   });
 
   it.each([
