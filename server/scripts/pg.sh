@@ -5,6 +5,12 @@
 set -euo pipefail
 ROOT="$(cd "$(dirname "${BASH_SOURCE[0]}")/../.." && pwd)"
 DATA="${PG_DATA_DIR:-$ROOT/.pgdata}"
+# As root the server runs as the postgres user, which cannot enter a checkout under a private folder (/root, a mode-700
+# temp dir): the cluster then lives under /var/lib/carbwright, one folder per checkout.
+if [ -z "${PG_DATA_DIR:-}" ] && [ "$(id -u)" = 0 ] && id -u postgres >/dev/null 2>&1 && ! runuser -u postgres -- test -x "$ROOT"; then
+  DATA="/var/lib/carbwright/$(printf '%s' "$ROOT" | sha256sum | cut -c1-12)/pgdata"
+  mkdir -p "$(dirname "$DATA")" && chmod 755 /var/lib/carbwright "$(dirname "$DATA")"
+fi
 PORT="${PGPORT:-54329}"
 DB="${PG_DB:-carbwright}"
 PWFILE="$DATA.pw"

@@ -4,7 +4,9 @@ set -euo pipefail
 ROOT="$(cd "$(dirname "${BASH_SOURCE[0]}")/../.." && pwd)"
 cd "$ROOT"
 bash server/scripts/ensure-deps.sh
-export DATABASE_URL="${DATABASE_URL:-$(bash server/scripts/pg.sh start)}"
+# Assigned before export so that a database that cannot start stops npm start here (set -e).
+DATABASE_URL="${DATABASE_URL:-$(bash server/scripts/pg.sh start)}"
+export DATABASE_URL
 stop_all() {
   trap - INT TERM EXIT
   [ -n "${SERVER_PID:-}" ] && kill "$SERVER_PID" 2>/dev/null && wait "$SERVER_PID" 2>/dev/null || true
