@@ -7,6 +7,7 @@
  * whose names contain any of the parts.
  */
 import { AsyncLocalStorage } from 'node:async_hooks';
+import { Session } from 'node:inspector/promises';
 import fs from 'node:fs';
 import { createServer } from 'node:http';
 import type { AddressInfo } from 'node:net';
@@ -25,6 +26,27 @@ import { DEFAULT_VOLUME, generateVolume } from './volume';
 const SECONDS = Number(process.env.BENCH_SECONDS ?? 5);
 const CONNECTIONS = Number(process.env.BENCH_CONNECTIONS ?? 10);
 const OUT_DIR = path.resolve(__dirname, '../../.bench');
+
+/**
+ * BENCH_PROFILE=1: a CPU profile of the server's process while each scenario runs, written to
+ * .bench/profile-<scenario>.cpuprofile (open it in Chromium's DevTools, or summarise it with server/bench/profile-top.ts).
+ */
+async function profiled<T>(name: string, run: () => Promise<T>): Promise<T> {
+  if (process.env.BENCH_PROFILE !== '1') return run();
+  const session = new Session();
+  session.connect();
+  await session.post('Profiler.enable');
+  await session.post('Profiler.start');
+  try {
+    return await run();
+  } finally {
+    const { profile } = await session.post('Profiler.stop');
+    fs.mkdirSync(OUT_DIR, { recursive: true });
+    const slug = name.replace(/[^a-z0-9]+/gi, '-').replace(/^-|-$/g, '').slice(0, 60).toLowerCase();
+    fs.writeFileSync(path.join(OUT_DIR, `profile-${slug}.cpuprofile`), JSON.stringify(profile));
+    session.disconnect();
+  }
+}
 
 type HttpResult = { name: string; path: string; method: string; queries: number; latency: Latency; checks: Check[] };
 
@@ -129,7 +151,7 @@ async function main() {
   const floorScenario: HttpScenario = { kind: 'http', name: 'floor: GET /api/bench/floor (SELECT 1)', path: '/api/bench/floor', auth: false, target: 'none' };
   // The floor is measured only when an endpoint is (BENCH_ONLY=web measures no endpoint).
   const anyHttp = scenarios.some((s) => s.kind === 'http');
-  const floor = anyHttp ? await measure(baseUrl, floorScenario, ctx.member.token) : { rps: 0, p50: 0, p97_5: 0, p99: 0 };
+  const floor = anyHttp ? await profiled(floorScenario.name, () => measure(baseUrl, floorScenario, ctx.member.token)) : { rps: 0, p50: 0, p97_5: 0, p99: 0 };
   const http: HttpResult[] = anyHttp
     ? [{ name: floorScenario.name, path: floorScenario.path, method: 'GET', queries: await countQueries(ctx, floorScenario), latency: floor, checks: [] }]
     : [];
@@ -143,7 +165,7 @@ async function main() {
     const queries = await countQueries(ctx, s);
     const kind = s.target ?? (method === 'GET' ? 'read' : 'write');
     try {
-      const latency = await measure(baseUrl, s, ctx.member.token);
+      const latency = await profiled(s.name, () => measure(baseUrl, s, ctx.member.token));
       http.push({ name: s.name, path: s.path, method, queries, latency, checks: checkTargets(kind, latency, floor) });
     } catch (err) {
       // A scenario that fails or never finishes is a target not met, not the end of the run.
