@@ -56,11 +56,19 @@ const MEASURES_JSON = `COALESCE((SELECT json_agg(json_build_object('label', m.la
 /**
  * Foods by id as plain objects (no model instances: the recipe shelf reads hundreds), with their measures unless
  * `measures: false`; `userId` applies the visibility rule. Ids that are absent (or not visible) are left out.
+ * `inRecipe` reads every food a recipe's lines name instead of the ids (so they load beside the lines, not after).
  */
-export async function loadFoods(ids: number[], opts: { userId?: number; measures?: boolean; transaction?: Transaction } = {}): Promise<Map<number, Food>> {
+export async function loadFoods(
+  ids: number[],
+  opts: { userId?: number; measures?: boolean; transaction?: Transaction; inRecipe?: number } = {},
+): Promise<Map<number, Food>> {
   const unique = [...new Set(ids)].filter((id) => Number.isInteger(id) && id > 0);
-  if (!unique.length) return new Map();
-  const where: WhereOptions<FoodModel> = opts.userId === undefined ? { id: { [Op.in]: unique } } : { [Op.and]: [{ id: { [Op.in]: unique } }, visibleWhere(opts.userId)] };
+  if (!unique.length && opts.inRecipe === undefined) return new Map();
+  const byId: WhereOptions<FoodModel> =
+    opts.inRecipe === undefined
+      ? { id: { [Op.in]: unique } }
+      : { id: { [Op.in]: literal(`(SELECT food_id FROM recipe_ingredients WHERE recipe_id = ${Math.trunc(Number(opts.inRecipe))})`) } };
+  const where: WhereOptions<FoodModel> = opts.userId === undefined ? byId : { [Op.and]: [byId, visibleWhere(opts.userId)] };
   const rows = (await FoodModel.findAll({
     where,
     attributes: opts.measures === false ? undefined : { include: [[literal(MEASURES_JSON), 'measuresJson']] },

@@ -86,7 +86,7 @@ async function lastCooked(recipeIds: number[], userId: number): Promise<Map<numb
 }
 
 function summarise(
-  recipe: RecipeModel,
+  recipe: Pick<RecipeModel, 'id' | 'title' | 'description' | 'tags' | 'defaultPortions' | 'visibility' | 'ownerUserId' | 'photoLargeKey' | 'photoThumbKey' | 'copiedFromRecipeId' | 'updatedAt'>,
   owner: { displayName: string } | null | undefined,
   lines: Line[],
   foods: Map<number, Food>,
@@ -122,9 +122,69 @@ function summarise(
 }
 
 /**
+ * The SQL form of canViewRecipe, for statements that read a recipe and decide in the same round trip: owner, public,
+ * or shared with the user while not private. `userParam` must be a bound parameter.
+ */
+function viewableRecipeSql(alias: string, userParam: string): string {
+  return `(${alias}.owner_user_id = ${userParam} OR ${alias}.visibility = 'public' OR (${alias}.visibility <> 'private'
+    AND EXISTS (SELECT 1 FROM recipe_shares vs WHERE vs.recipe_id = ${alias}.id AND vs.user_id = ${userParam})))`;
+}
+
+type RecipePageRow = Pick<
+  RecipeModel,
+  | 'id' | 'ownerUserId' | 'title' | 'description' | 'methodSteps' | 'tags' | 'defaultPortions' | 'visibility'
+  | 'photoLargeKey' | 'photoThumbKey' | 'copiedFromRecipeId' | 'updatedAt'
+> & {
+  viewable: boolean;
+  ownerName: string | null;
+  ownBasis: CarbBasis | null;
+  ownUnit: CarbUnit | null;
+  lastCookedAt: Date | null;
+  sourceId: number | null;
+  sourceTitle: string | null;
+  sourceViewable: boolean | null;
+};
+
+/**
+ * The recipe page's own row in one statement: the recipe, whether the user may see it, its owner's name, the user's
+ * own carbohydrate basis and unit, when they (or anyone on a profile they can open) last cooked it, and the recipe
+ * it was copied from with whether they may see that one.
+ */
+async function recipePageRow(recipeId: number, userId: number, transaction?: Transaction): Promise<RecipePageRow | undefined> {
+  const [row] = await RecipeModel.sequelize!.query<RecipePageRow>(
+    `SELECT r.id, r.owner_user_id AS "ownerUserId", r.title, r.description, r.method_steps AS "methodSteps", r.tags,
+            r.default_portions AS "defaultPortions", r.visibility, r.photo_large_key AS "photoLargeKey",
+            r.photo_thumb_key AS "photoThumbKey", r.copied_from_recipe_id AS "copiedFromRecipeId", r.updated_at AS "updatedAt",
+            ${viewableRecipeSql('r', ':userId')} AS viewable,
+            u.display_name AS "ownerName", own.carb_basis AS "ownBasis", own.carb_unit AS "ownUnit",
+            (SELECT max(b.created_at) FROM batches b WHERE b.recipe_id = r.id
+               AND (b.cooked_by_user_id = :userId OR b.profile_id IN (SELECT profile_id FROM profile_access WHERE user_id = :userId))) AS "lastCookedAt",
+            src.id AS "sourceId", src.title AS "sourceTitle", ${viewableRecipeSql('src', ':userId')} AS "sourceViewable"
+       FROM recipes r
+       LEFT JOIN users u ON u.id = r.owner_user_id
+       LEFT JOIN recipes src ON src.id = r.copied_from_recipe_id
+       LEFT JOIN LATERAL (SELECT carb_basis, carb_unit FROM profiles WHERE owner_user_id = :userId ORDER BY id LIMIT 1) own ON true
+      WHERE r.id = :recipeId`,
+    { replacements: { recipeId, userId }, type: QueryTypes.SELECT, transaction },
+  );
+  return row;
+}
+
+/** Who the owner shared a recipe with, oldest share first. */
+async function recipeShares(recipeId: number, transaction?: Transaction) {
+  return RecipeModel.sequelize!.query<{ userId: number; displayName: string; email: string; createdAt: Date }>(
+    `SELECT s.user_id AS "userId", u.display_name AS "displayName", u.email, s.created_at AS "createdAt"
+       FROM recipe_shares s JOIN users u ON u.id = s.user_id
+      WHERE s.recipe_id = :recipeId ORDER BY s.created_at, s.id`,
+    { replacements: { recipeId }, type: QueryTypes.SELECT, transaction },
+  );
+}
+
+/**
  * One recipe with its ingredients (each with its food), method and the full computed breakdown, in the
  * profile's carbohydrate basis and unit; optionally scaled by a factor or to a number of portions.
- * 404 when the user may not see it.
+ * 404 when the user may not see it. Outside a transaction its four reads run at once (the recipe page is one round
+ * trip after the sign-in check); the ingredients and shares are dropped unread when the recipe is not theirs to see.
  */
 export async function getRecipeForUser(
   recipeId: number,
@@ -132,28 +192,25 @@ export async function getRecipeForUser(
   view: RecipeViewQuery = {},
   transaction?: Transaction,
 ): Promise<RecipeDetail> {
-  const recipe = await findViewableRecipe(recipeId, userId, transaction);
-  const isOwner = recipe.ownerUserId === userId;
   // Inside a transaction every query shares one connection, which runs one at a time; outside, they run together.
-  const [display, lineMap, owner, cooked, shares, source] = await together(transaction, [
-    () => resolveDisplay(userId, view.profileId),
-    () => loadIngredients([recipe.id], transaction),
-    () => UserModel.findByPk(recipe.ownerUserId, { attributes: ['displayName'], raw: true, transaction }),
-    () => lastCooked([recipe.id], userId),
-    () =>
-      isOwner
-        ? RecipeShareModel.findAll({ where: { recipeId }, include: [{ model: UserModel, as: 'user' }], order: [['createdAt', 'ASC']], transaction })
-        : Promise.resolve(null),
-    () => (recipe.copiedFromRecipeId ? RecipeModel.findByPk(recipe.copiedFromRecipeId, { transaction }) : Promise.resolve(null)),
+  const [recipe, lineMap, foods, shareRows, named] = await together(transaction, [
+    () => recipePageRow(recipeId, userId, transaction),
+    () => loadIngredients([recipeId], transaction),
+    () => loadFoods([], { inRecipe: recipeId, transaction }),
+    () => recipeShares(recipeId, transaction),
+    () => (view.profileId !== undefined ? resolveDisplay(userId, view.profileId) : Promise.resolve(null)),
   ] as const);
+  if (!recipe || !recipe.viewable) throw AppError.notFound('recipe');
+  const isOwner = recipe.ownerUserId === userId;
+  const display: Display = named ?? { basis: recipe.ownBasis ?? 'available', unit: recipe.ownUnit ?? 'g' };
   const lines = lineMap.get(recipe.id) ?? [];
-  const foods = await loadFoods(lines.map((l) => l.foodId), { transaction });
   const scale =
     view.portions !== undefined
       ? { factor: scaleFactorForPortions(recipe.defaultPortions, view.portions), portions: view.portions }
       : { factor: view.factor ?? 1, portions: recipe.defaultPortions };
-  const { summary, nutrition } = summarise(recipe, owner, lines, foods, display, userId, cooked.get(recipe.id) ?? null, scale);
-  const sourceVisible = source ? await canViewRecipe(source, userId) : false;
+  const cookedAt = recipe.lastCookedAt ? new Date(recipe.lastCookedAt).toISOString() : null;
+  const owner = recipe.ownerName === null ? null : { displayName: recipe.ownerName };
+  const { summary, nutrition } = summarise(recipe, owner, lines, foods, display, userId, cookedAt, scale);
   return {
     ...summary,
     methodSteps: recipe.methodSteps,
@@ -168,10 +225,10 @@ export async function getRecipeForUser(
     })),
     nutrition,
     scale,
-    sharedWith: shares
-      ? shares.map((s) => ({ userId: s.userId, displayName: s.user!.displayName, email: s.user!.email, sharedAt: s.createdAt.toISOString() }))
+    sharedWith: isOwner
+      ? shareRows.map((s) => ({ userId: s.userId, displayName: s.displayName, email: s.email, sharedAt: new Date(s.createdAt).toISOString() }))
       : null,
-    copiedFrom: source && sourceVisible ? { id: source.id, title: source.title } : null,
+    copiedFrom: recipe.sourceId !== null && recipe.sourceViewable ? { id: recipe.sourceId, title: recipe.sourceTitle! } : null,
   };
 }
 
