@@ -21,9 +21,18 @@ async function getDummyHash(cost: number) {
   return dummyHash;
 }
 
+// The signing key as a KeyObject, made once per secret: given a string, jsonwebtoken's verify first tries to read it
+// as a PEM public key and builds the secret key from the thrown error, on every request (a few ms of CPU each).
+const signingKeys = new Map<string, crypto.KeyObject>();
+function signingKey(config: Config): crypto.KeyObject {
+  let key = signingKeys.get(config.jwtSecret);
+  if (!key) signingKeys.set(config.jwtSecret, (key = crypto.createSecretKey(Buffer.from(config.jwtSecret, 'utf8'))));
+  return key;
+}
+
 function issueToken(config: Config, user: UserModel): { token: string; expiresAt: Date } {
   const jti = crypto.randomBytes(16).toString('hex');
-  const token = jwt.sign({ tv: user.tokenVersion, jti }, config.jwtSecret, {
+  const token = jwt.sign({ tv: user.tokenVersion, jti }, signingKey(config), {
     algorithm: 'HS256',
     subject: String(user.id),
     expiresIn: Math.round(config.TOKEN_TTL_HOURS * 3600),
@@ -138,7 +147,7 @@ type AuthRow = {
 export async function verifyToken(config: Config, token: string, profileId?: number) {
   let claims: TokenClaims;
   try {
-    claims = jwt.verify(token, config.jwtSecret, { algorithms: ['HS256'] }) as TokenClaims;
+    claims = jwt.verify(token, signingKey(config), { algorithms: ['HS256'] }) as TokenClaims;
   } catch (err) {
     const expired = err instanceof jwt.TokenExpiredError;
     throw AppError.unauthorized(expired ? 'Your session has expired. Please sign in again.' : 'Please sign in.');
