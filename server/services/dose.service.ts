@@ -4,7 +4,6 @@ import type { DoseRequest, DoseSuggestion } from '../../shared/schemas/dose';
 import type { GlucoseUnit } from '../../shared/schemas/units';
 import { timeToMinutes } from '../../shared/schemas/profile-settings';
 import { AppError } from '../errors';
-import { dayKindIdForDate } from './day-kind-days.service';
 import { loadDoseContext, loggedRapidDoses } from './dose-context.service';
 import { DOSE_CAUTION, DOSE_ENGINE_VERSION } from '../../shared/compute/dose-caution';
 
@@ -25,14 +24,16 @@ export function readingToMmol(value: number, unit: GlucoseUnit, field = 'glucose
  * the request's unit (default the profile's); a missing reading time means "now".
  */
 export async function suggestDose(profileId: number, input: DoseRequest, now: Date = new Date()): Promise<DoseSuggestion> {
-  const dayKindId = input.dayKindId ?? (input.date ? await dayKindIdForDate(profileId, input.date) : null);
-  const { profile, settings, dayKind } = await loadDoseContext(profileId, dayKindId);
-  const unit = input.glucoseUnit ?? profile.glucoseUnit;
   const mealAt = input.mealAt ? new Date(input.mealAt) : now;
+  // Insulin still active: the doses logged in the action time (read beside the settings), plus any typed ones given elsewhere.
+  const [{ profile, settings, dayKind }, loggedInRange] = await Promise.all([
+    loadDoseContext(profileId, input.dayKindId, input.date),
+    loggedRapidDoses(profileId, mealAt),
+  ]);
+  const unit = input.glucoseUnit ?? profile.glucoseUnit;
   const glucoseTakenAt = input.glucose != null ? (input.glucoseTakenAt ? new Date(input.glucoseTakenAt) : now) : null;
   if (input.glucose != null) readingToMmol(input.glucose, unit);
-  // Insulin still active: the doses logged in the action time, plus any typed ones given elsewhere.
-  const logged = settings ? await loggedRapidDoses(profileId, mealAt, settings.actionTimeHours) : [];
+  const logged = settings ? loggedInRange : [];
   const typed = (input.earlierDoses ?? []).map((d) => ({ units: d.units, takenAt: new Date(d.takenAt).getTime() }));
   const result = computeDose(settings, dayKind, {
     carbsGrams: input.carbsGrams,
