@@ -1,4 +1,4 @@
-import type { Transaction } from 'sequelize';
+import { QueryTypes, type Transaction } from 'sequelize';
 import { glucoseToMmol } from '../../shared/compute/units';
 import { minutesToTime, timeToMinutes, type DayKind, type DayKindInput } from '../../shared/schemas/profile-settings';
 import type { GlucoseUnit } from '../../shared/schemas/units';
@@ -7,7 +7,11 @@ import { DayKindModel, ProfileModel, TimeOfDayModel } from '../models';
 import { loadProfile, show } from './profiles.service';
 import { recordChange } from './settings-history.service';
 
-function dayKindToView(kind: DayKindModel, unit: GlucoseUnit): DayKind {
+type DayKindRow = Pick<DayKindModel, 'id' | 'name' | 'isDefault' | 'longActingUnits' | 'updatedAt'> & {
+  timesOfDay?: Pick<TimeOfDayModel, 'startMinute' | 'endMinute' | 'carbRatio' | 'correctionFactorMmol'>[];
+};
+
+function dayKindToView(kind: DayKindRow, unit: GlucoseUnit): DayKind {
   const timesOfDay = [...(kind.timesOfDay ?? [])].sort((a, b) => a.startMinute - b.startMinute);
   return {
     id: kind.id,
@@ -30,9 +34,20 @@ export const withTimesOfDay = { include: [{ model: TimeOfDayModel, as: 'timesOfD
 
 /** The profile's day kinds, default first, each with its times of day in the profile's glucose unit. */
 export async function listDayKinds(profileId: number): Promise<DayKind[]> {
-  const profile = await loadProfile(profileId);
-  const kinds = await DayKindModel.findAll({ where: { profileId }, ...withTimesOfDay, order: [['isDefault', 'DESC'], ['name', 'ASC']] });
-  return kinds.map((k) => dayKindToView(k, profile.glucoseUnit));
+  // One plain statement: the profile's glucose unit beside each kind and its times of day (a profile without kinds gives one row of nulls).
+  const rows = await DayKindModel.sequelize!.query<Omit<DayKindRow, 'id'> & { id: number | null; glucoseUnit: GlucoseUnit }>(
+    `SELECT p.glucose_unit AS "glucoseUnit", k.id, k.name, k.is_default AS "isDefault", k.long_acting_units AS "longActingUnits",
+            k.updated_at AS "updatedAt",
+            COALESCE((SELECT json_agg(json_build_object('startMinute', t.start_minute, 'endMinute', t.end_minute,
+                                                        'carbRatio', t.carb_ratio, 'correctionFactorMmol', t.correction_factor_mmol))
+                        FROM times_of_day t WHERE t.day_kind_id = k.id), '[]'::json) AS "timesOfDay"
+       FROM profiles p LEFT JOIN day_kinds k ON k.profile_id = p.id
+      WHERE p.id = :profileId
+      ORDER BY k.is_default DESC, k.name ASC`,
+    { replacements: { profileId }, type: QueryTypes.SELECT },
+  );
+  if (!rows.length) throw AppError.notFound('profile');
+  return rows.filter((r): r is typeof r & { id: number } => r.id !== null).map((k) => dayKindToView(k, k.glucoseUnit));
 }
 
 async function findDayKind(profileId: number, dayKindId: number, transaction?: Transaction) {
