@@ -15,9 +15,13 @@ export const NUTRIENT_KEYS = [
 export type NutrientKey = (typeof NUTRIENT_KEYS)[number];
 export type Nutrients = Record<NutrientKey, number | null>;
 
-/** All-null nutrients (nothing known). */
+/**
+ * All-null nutrients (nothing known). A literal, keys in NUTRIENT_KEYS order: every nutrient object then shares one
+ * shape, and a recipe shelf makes thousands of them per request (building it from the key list cost most of
+ * computeRecipe's time).
+ */
 export function emptyNutrients(): Nutrients {
-  return Object.fromEntries(NUTRIENT_KEYS.map((k) => [k, null])) as Nutrients;
+  return { energyKcal: null, energyKj: null, carbAvailable: null, carbTotal: null, fibre: null, sugars: null, protein: null, fat: null, water: null };
 }
 
 /** Nutrients in `grams` of a food given per 100 g: value × grams / 100 (null stays null). */
