@@ -7,7 +7,7 @@ import { DayKindModel, ProfileModel, TimeOfDayModel } from '../models';
 import { loadProfile, show } from './profiles.service';
 import { recordChange } from './settings-history.service';
 
-function dayKindToView(kind: DayKindModel, unit: GlucoseUnit): DayKind {
+export function dayKindToView(kind: DayKindModel, unit: GlucoseUnit): DayKind {
   const timesOfDay = [...(kind.timesOfDay ?? [])].sort((a, b) => a.startMinute - b.startMinute);
   return {
     id: kind.id,
