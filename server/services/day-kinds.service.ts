@@ -11,7 +11,7 @@ type DayKindRow = Pick<DayKindModel, 'id' | 'name' | 'isDefault' | 'longActingUn
   timesOfDay?: Pick<TimeOfDayModel, 'startMinute' | 'endMinute' | 'carbRatio' | 'correctionFactorMmol'>[];
 };
 
-function dayKindToView(kind: DayKindRow, unit: GlucoseUnit): DayKind {
+export function dayKindToView(kind: DayKindRow, unit: GlucoseUnit): DayKind {
   const timesOfDay = [...(kind.timesOfDay ?? [])].sort((a, b) => a.startMinute - b.startMinute);
   return {
     id: kind.id,

@@ -1,10 +1,12 @@
 import { minutesToTime } from '../../shared/schemas/profile-settings';
-import { Op, type WhereOptions } from 'sequelize';
+import { literal, Op, type WhereOptions } from 'sequelize';
 import {
   dailyTotals,
   glucoseBeforeMeals,
+  MEAL_DOSE_MINUTES,
   mealDoses,
   ratioReview,
+  READING_BEFORE_MINUTES,
   readingBefore,
   REVIEW_MINIMUM_MEALS,
   timeInRange,
@@ -22,9 +24,9 @@ import {
   type MealContext,
 } from '../../shared/schemas/logbook-read';
 import type { CarbBasis } from '../../shared/schemas/units';
-import { DayKindModel, LogEntryChangeModel, LogEntryModel, ProfileSettingsModel } from '../models';
-import { listDayKinds, withTimesOfDay } from './day-kinds.service';
-import { LOG_ENTRY_INCLUDE, toLogEntry } from './log-view';
+import { DayKindModel, LogEntryModel, ProfileSettingsModel } from '../models';
+import { dayKindToView, withTimesOfDay } from './day-kinds.service';
+import { LOG_ENTRY_INCLUDE, plainIncludes, toLogEntry } from './log-view';
 import { loadProfile } from './profiles.service';
 
 const MINUTE = 60_000;
@@ -54,22 +56,30 @@ function suggestedUnits(suggestion: Record<string, unknown> | null): number | nu
   return typeof units === 'number' ? units : null;
 }
 
+/** The columns the meal context reads: the review fields and the dose's suggestion. */
+const CONTEXT_ATTRIBUTES = ['id', 'kind', 'occurredAt', 'localDate', 'localMinute', 'dayKindId', 'groupKey', 'glucoseMmol', 'carbAvailableG', 'carbTotalG', 'units', 'suggestion'] as const;
+
 async function mealContexts(profileId: number, meals: LogEntryModel[], basis: CarbBasis, unit: LogHistoryPage['glucoseUnit']) {
   const out = new Map<number, MealContext>();
   if (!meals.length) return out;
-  const times = meals.map((m) => m.occurredAt.getTime());
   const groups = meals.map((m) => m.groupKey).filter((g): g is string => g != null);
-  const nearby = await LogEntryModel.findAll({
+  // Only the windows the rules look in (READING_BEFORE_MINUTES before to MEAL_DOSE_MINUTES after each meal), not the
+  // whole span from the first meal to the last: a page of meals over a month is otherwise every sensor reading of it.
+  const windows = meals.map((m) => {
+    const t = m.occurredAt.getTime();
+    return { occurredAt: { [Op.between]: [new Date(t - READING_BEFORE_MINUTES * MINUTE), new Date(t + MEAL_DOSE_MINUTES * MINUTE)] } };
+  });
+  const nearby = (await LogEntryModel.findAll({
     where: {
       profileId,
       deletedAt: null,
       kind: { [Op.in]: ['reading', 'rapid_dose'] },
-      [Op.or]: [
-        { occurredAt: { [Op.between]: [new Date(Math.min(...times) - 60 * MINUTE), new Date(Math.max(...times) + 30 * MINUTE)] } },
-        ...(groups.length ? [{ groupKey: { [Op.in]: groups } }] : []),
-      ],
+      [Op.or]: [...windows, ...(groups.length ? [{ groupKey: { [Op.in]: groups } }] : [])],
     },
-  });
+    attributes: [...CONTEXT_ATTRIBUTES],
+    order: [['occurredAt', 'ASC'], ['id', 'ASC']],
+    raw: true,
+  })) as LogEntryModel[];
   const context = nearby.map((r) => toReviewEntry(r, basis));
   const byId = new Map(nearby.map((r) => [r.id, r]));
   for (const meal of meals) {
@@ -86,9 +96,11 @@ async function mealContexts(profileId: number, meals: LogEntryModel[], basis: Ca
   return out;
 }
 
+/** Whether the entry was ever edited, deleted or restored (log_entry_changes), as a column of the page query. */
+const CHANGED_SQL = 'EXISTS (SELECT 1 FROM log_entry_changes c WHERE c.entry_id = "LogEntryModel"."id")';
+
 /** One page of the logbook, newest or oldest first, filtered; each meal with its reading before and its doses. */
 export async function listLogHistory(profileId: number, q: LogHistoryQuery): Promise<LogHistoryPage> {
-  const profile = await loadProfile(profileId);
   const desc = q.sort === 'newest';
   const and: WhereOptions[] = [{ profileId, deletedAt: null }];
   if (q.from) and.push({ localDate: { [Op.gte]: q.from } });
@@ -102,21 +114,25 @@ export async function listLogHistory(profileId: number, q: LogHistoryQuery): Pro
     and.push({ [Op.or]: [{ occurredAt: { [cmp]: at } }, { occurredAt: at, id: { [cmp]: id } }] });
   }
   const dir = desc ? 'DESC' : 'ASC';
-  const rows = await LogEntryModel.findAll({
-    where: { [Op.and]: and },
-    include: LOG_ENTRY_INCLUDE,
-    order: [['occurredAt', dir], ['id', dir]],
-    limit: q.limit + 1,
-  });
-  const page = rows.slice(0, q.limit);
+  // The profile and the page together; plain rows, with "has a change" asked in the same query.
+  const [profile, rows] = await Promise.all([
+    loadProfile(profileId),
+    LogEntryModel.findAll({
+      where: { [Op.and]: and },
+      attributes: { include: [[literal(CHANGED_SQL), 'changed']] },
+      include: LOG_ENTRY_INCLUDE,
+      order: [['occurredAt', dir], ['id', dir]],
+      limit: q.limit + 1,
+      raw: true,
+      nest: true,
+    }) as unknown as Promise<(LogEntryModel & { changed: boolean })[]>,
+  ]);
+  const page = rows.slice(0, q.limit).map(plainIncludes);
   const last = page[page.length - 1];
   const nextCursor = rows.length > q.limit && last ? `${last.occurredAt.getTime()}.${last.id}` : null;
-  const changed = page.length
-    ? new Set((await LogEntryChangeModel.findAll({ where: { entryId: { [Op.in]: page.map((r) => r.id) } }, attributes: ['entryId'] })).map((c) => c.entryId))
-    : new Set<number>();
   const contexts = await mealContexts(profileId, page.filter((r) => r.kind === 'meal'), profile.carbBasis, profile.glucoseUnit);
   return {
-    entries: page.map((r) => ({ ...toLogEntry(r, profile.glucoseUnit, changed.has(r.id)), mealContext: contexts.get(r.id) ?? null })),
+    entries: page.map((r) => ({ ...toLogEntry(r, profile.glucoseUnit, r.changed), mealContext: contexts.get(r.id) ?? null })),
     nextCursor,
     glucoseUnit: profile.glucoseUnit,
     carbBasis: profile.carbBasis,
@@ -127,22 +143,24 @@ export async function listLogHistory(profileId: number, q: LogHistoryQuery): Pro
 /** One profile's period of local dates, with the basis its carbohydrate is counted in. */
 export type ProfilePeriod = { profileId: number; from: string; to: string; basis: CarbBasis };
 
-/** The entries of each profile's period as the pure review rules take them, in one query (profile id → entries, oldest first). */
-export async function periodEntriesOf(periods: ProfilePeriod[]): Promise<Map<number, ReviewEntry[]>> {
-  const out = new Map<number, ReviewEntry[]>(periods.map((p) => [p.profileId, []]));
-  if (!periods.length) return out;
-  const rows = await LogEntryModel.findAll({
+/** Plain rows (review columns) of each profile's period, oldest first, in one query. */
+async function periodRows(periods: Omit<ProfilePeriod, 'basis'>[]): Promise<LogEntryModel[]> {
+  if (!periods.length) return [];
+  // Plain rows: a month of sensor readings is thousands of entries, and a model instance each costs more than the query.
+  return (await LogEntryModel.findAll({
     where: { deletedAt: null, [Op.or]: periods.map((p) => ({ profileId: p.profileId, localDate: { [Op.between]: [p.from, p.to] } })) },
     attributes: ['id', 'profileId', 'kind', 'occurredAt', 'localDate', 'localMinute', 'dayKindId', 'groupKey', 'glucoseMmol', 'carbAvailableG', 'carbTotalG', 'units'],
     order: [['occurredAt', 'ASC'], ['id', 'ASC']],
-  });
-  const basis = new Map(periods.map((p) => [p.profileId, p.basis]));
-  for (const r of rows) out.get(r.profileId)!.push(toReviewEntry(r, basis.get(r.profileId)!));
-  return out;
+    raw: true,
+  })) as LogEntryModel[];
 }
 
-async function periodEntries(profileId: number, q: LogPeriodQuery, basis: CarbBasis): Promise<ReviewEntry[]> {
-  return (await periodEntriesOf([{ profileId, ...q, basis }])).get(profileId)!;
+/** The entries of each profile's period as the pure review rules take them, in one query (profile id → entries, oldest first). */
+export async function periodEntriesOf(periods: ProfilePeriod[]): Promise<Map<number, ReviewEntry[]>> {
+  const out = new Map<number, ReviewEntry[]>(periods.map((p) => [p.profileId, []]));
+  const basis = new Map(periods.map((p) => [p.profileId, p.basis]));
+  for (const r of await periodRows(periods)) out.get(r.profileId)!.push(toReviewEntry(r, basis.get(r.profileId)!));
+  return out;
 }
 
 /** The range time in range counts against: the profile's targets, else the 2019 consensus range. */
@@ -168,12 +186,14 @@ export function reviewTimesOfDay(kinds: DayKindModel[]): ReviewTimeOfDay[] {
 
 /** Chart data for a period: carbohydrate and insulin per day, glucose before meals per day kind, time in range. */
 export async function logCharts(profileId: number, q: LogPeriodQuery): Promise<LogCharts> {
-  const profile = await loadProfile(profileId);
-  const [settings, kinds, entries] = await Promise.all([
-    ProfileSettingsModel.findByPk(profileId),
-    DayKindModel.findAll({ where: { profileId }, attributes: ['id', 'name'] }),
-    periodEntries(profileId, q, profile.carbBasis),
+  // The profile is read beside the entries (not before them): its carbohydrate basis is applied after.
+  const [profile, settings, kinds, rows] = await Promise.all([
+    loadProfile(profileId),
+    ProfileSettingsModel.findByPk(profileId, { attributes: ['targetLowMmol', 'targetHighMmol'], raw: true }),
+    DayKindModel.findAll({ where: { profileId }, attributes: ['id', 'name'], raw: true }),
+    periodRows([{ profileId, ...q }]),
   ]);
+  const entries = rows.map((r) => toReviewEntry(r, profile.carbBasis));
   const range = targetRangeOf(settings);
   return {
     from: q.from,
@@ -190,13 +210,15 @@ export async function logCharts(profileId: number, q: LogPeriodQuery): Promise<L
 
 /** The ratio review for a period: average change after meals per day kind and time of day, never a new ratio. */
 export async function logReview(profileId: number, q: LogPeriodQuery): Promise<LogReview> {
-  const profile = await loadProfile(profileId);
-  const [kinds, views, entries] = await Promise.all([
+  // The day kinds are read once: the review's times of day and the list it answers come from the same rows.
+  const [profile, kinds, rows] = await Promise.all([
+    loadProfile(profileId),
     DayKindModel.findAll({ where: { profileId }, ...withTimesOfDay, order: REVIEW_DAY_KIND_ORDER }),
-    listDayKinds(profileId),
-    periodEntries(profileId, q, profile.carbBasis),
+    periodRows([{ profileId, ...q }]),
   ]);
+  const entries = rows.map((r) => toReviewEntry(r, profile.carbBasis));
   const times = reviewTimesOfDay(kinds);
+  const views = kinds.map((k) => dayKindToView(k, profile.glucoseUnit));
   return {
     from: q.from,
     to: q.to,

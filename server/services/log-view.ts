@@ -13,6 +13,15 @@ export const LOG_ENTRY_INCLUDE: Includeable[] = [
   { model: PortionModel, as: 'portion', attributes: ['id', 'code'] },
 ];
 
+/**
+ * A plain row read with LOG_ENTRY_INCLUDE (`raw: true, nest: true`) answers a missing include as an object of nulls;
+ * this turns those back into null, as a model instance has them.
+ */
+export function plainIncludes<T extends LogEntryModel>(row: T): T {
+  const present = <I extends { id: number } | null | undefined>(inc: I) => (inc && inc.id != null ? inc : null);
+  return Object.assign(row, { enteredBy: present(row.enteredBy), dayKind: present(row.dayKind), portion: present(row.portion) });
+}
+
 /** One stored entry (loaded with LOG_ENTRY_INCLUDE) as the API answers it, glucose in the profile's unit. */
 export function toLogEntry(row: LogEntryModel, glucoseUnit: GlucoseUnit, changed = false): LogEntry {
   const isDose = row.kind === 'rapid_dose' || row.kind === 'long_dose';

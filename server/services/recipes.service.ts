@@ -234,10 +234,10 @@ export async function getRecipeForUser(
 
 const escapeLike = (s: string) => s.replace(/[\\%_]/g, (c) => `\\${c}`);
 
-/** One shelf of the library (mine, shared with me, public), searched by title, tag and ingredient name, sorted. */
-export async function listRecipes(query: RecipeListQuery, userId: number): Promise<RecipeSummary[]> {
-  const display = await resolveDisplay(userId, query.profileId);
-  const sharedIds = (await RecipeShareModel.findAll({ where: { userId }, attributes: ['recipeId'], raw: true })).map((s) => s.recipeId);
+/** The shelf's recipe rows with their owner's name, newest change first, 300 at most (migration 0810 reads them in this order). */
+async function shelfRows(query: RecipeListQuery, userId: number): Promise<RecipeModel[]> {
+  const sharedIds =
+    query.scope === 'shared' ? (await RecipeShareModel.findAll({ where: { userId }, attributes: ['recipeId'], raw: true })).map((s) => s.recipeId) : [];
   const scopeWhere: WhereOptions<RecipeModel> =
     query.scope === 'mine'
       ? { ownerUserId: userId }
@@ -259,14 +259,21 @@ export async function listRecipes(query: RecipeListQuery, userId: number): Promi
     });
   }
   // Plain rows throughout: a public shelf is 300 recipes and their foods.
-  const recipes = (await RecipeModel.findAll({
+  return (await RecipeModel.findAll({
     where: { [Op.and]: and },
     include: [{ model: UserModel, as: 'owner', attributes: ['id', 'displayName'] }],
-    order: [['updatedAt', 'DESC']],
+    // Newest change first; the id orders recipes changed in the same instant (a bulk write), so a page is always the same.
+    order: [['updatedAt', 'DESC'], ['id', 'DESC']],
     limit: 300,
     raw: true,
     nest: true,
   })) as RecipeModel[];
+}
+
+/** One shelf of the library (mine, shared with me, public), searched by title, tag and ingredient name, sorted. */
+export async function listRecipes(query: RecipeListQuery, userId: number): Promise<RecipeSummary[]> {
+  // The display units are read beside the shelf; the user's shares only for the shelf of recipes shared with them.
+  const [display, recipes] = await Promise.all([resolveDisplay(userId, query.profileId), shelfRows(query, userId)]);
   const ids = recipes.map((r) => r.id);
   const [lines, cooked] = await Promise.all([loadIngredients(ids), lastCooked(ids, userId)]);
   const foods = await loadFoods([...lines.values()].flat().map((l) => l.foodId), { measures: false });

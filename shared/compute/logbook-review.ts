@@ -47,11 +47,15 @@ const ofKind = (entries: ReviewEntry[], kind: LogEntryKind) => entries.filter((e
 
 /** The reading before a meal: one saved with it, else the latest from READING_BEFORE_MINUTES before up to the meal. */
 export function readingBefore(meal: ReviewEntry, entries: ReviewEntry[]): ReviewEntry | null {
-  const readings = ofKind(entries, 'reading').filter((r) => r.glucoseMmol != null);
-  const sameGroup = meal.groupKey ? readings.find((r) => r.groupKey === meal.groupKey) : undefined;
-  if (sameGroup) return sameGroup;
-  const inWindow = readings.filter((r) => r.at <= meal.at && r.at >= meal.at - READING_BEFORE_MINUTES * MINUTE);
-  return inWindow.reduce<ReviewEntry | null>((best, r) => (!best || r.at > best.at ? r : best), null);
+  // One pass, no copies: it runs once per meal over a period's readings (a month of sensor readings is thousands).
+  const from = meal.at - READING_BEFORE_MINUTES * MINUTE;
+  let latest: ReviewEntry | null = null;
+  for (const r of entries) {
+    if (r.kind !== 'reading' || r.glucoseMmol == null) continue;
+    if (meal.groupKey && r.groupKey === meal.groupKey) return r;
+    if (r.at <= meal.at && r.at >= from && (!latest || r.at > latest.at)) latest = r;
+  }
+  return latest;
 }
 
 /** The rapid-acting doses that belong to a meal: saved with it, or within MEAL_DOSE_MINUTES either side. */
