@@ -89,7 +89,7 @@ function summarise(
   recipe: Pick<RecipeModel, 'id' | 'title' | 'description' | 'tags' | 'defaultPortions' | 'visibility' | 'ownerUserId' | 'photoLargeKey' | 'photoThumbKey' | 'copiedFromRecipeId' | 'updatedAt'>,
   owner: { displayName: string } | null | undefined,
   lines: Line[],
-  foods: Map<number, Food>,
+  foods: ReadonlyMap<number, Pick<Food, 'name' | 'per100g'>>,
   display: Display,
   userId: number,
   cookedAt: string | null,
@@ -270,13 +270,44 @@ async function shelfRows(query: RecipeListQuery, userId: number): Promise<Recipe
   })) as RecipeModel[];
 }
 
+type ShelfFood = Pick<Food, 'name' | 'per100g'>;
+
+/**
+ * The lines of the shelf's recipes with the name and per-100 g values of their foods, in one plain statement (a shelf
+ * shows ingredient names and carbohydrate per portion, nothing else of a food; a public shelf is 300 recipes).
+ */
+async function shelfLines(recipeIds: number[]): Promise<{ lines: Map<number, Line[]>; foods: Map<number, ShelfFood> }> {
+  const lines = new Map<number, Line[]>();
+  const foods = new Map<number, ShelfFood>();
+  if (!recipeIds.length) return { lines, foods };
+  const rows = await RecipeModel.sequelize!.query<Line & { name: string } & ShelfFood['per100g']>(
+    `SELECT ri.id, ri.recipe_id AS "recipeId", ri.position, ri.food_id AS "foodId", ri.grams, ri.measure_label AS "measureLabel", ri.note,
+            f.name, f.energy_kcal AS "energyKcal", f.energy_kj AS "energyKj", f.carb_available AS "carbAvailable",
+            f.carb_total AS "carbTotal", f.fibre, f.sugars, f.protein, f.fat, f.water
+       FROM recipe_ingredients ri JOIN foods f ON f.id = ri.food_id
+      WHERE ri.recipe_id IN (:recipeIds)
+      ORDER BY ri.recipe_id, ri.position`,
+    { replacements: { recipeIds }, type: QueryTypes.SELECT },
+  );
+  for (const r of rows) {
+    const line: Line = { id: r.id, recipeId: r.recipeId, position: r.position, foodId: r.foodId, grams: r.grams, measureLabel: r.measureLabel, note: r.note };
+    const list = lines.get(r.recipeId);
+    if (list) list.push(line);
+    else lines.set(r.recipeId, [line]);
+    if (!foods.has(r.foodId)) {
+      const per100g: ShelfFood['per100g'] = { energyKcal: r.energyKcal, energyKj: r.energyKj, carbAvailable: r.carbAvailable, carbTotal: r.carbTotal, fibre: r.fibre, sugars: r.sugars, protein: r.protein, fat: r.fat, water: r.water };
+      foods.set(r.foodId, { name: r.name, per100g });
+    }
+  }
+  return { lines, foods };
+}
+
 /** One shelf of the library (mine, shared with me, public), searched by title, tag and ingredient name, sorted. */
 export async function listRecipes(query: RecipeListQuery, userId: number): Promise<RecipeSummary[]> {
   // The display units are read beside the shelf; the user's shares only for the shelf of recipes shared with them.
   const [display, recipes] = await Promise.all([resolveDisplay(userId, query.profileId), shelfRows(query, userId)]);
   const ids = recipes.map((r) => r.id);
-  const [lines, cooked] = await Promise.all([loadIngredients(ids), lastCooked(ids, userId)]);
-  const foods = await loadFoods([...lines.values()].flat().map((l) => l.foodId), { measures: false });
+  const [{ lines, foods }, cooked] = await Promise.all([shelfLines(ids), lastCooked(ids, userId)]);
   const items = recipes.map(
     (r) => summarise(r, r.owner, lines.get(r.id) ?? [], foods, display, userId, cooked.get(r.id) ?? null).summary,
   );
