@@ -150,7 +150,10 @@ export async function searchFoods(query: FoodSearchQuery, userId: number): Promi
     'f.rank_penalty',
   ];
   /**
-   * One statement: the matches with their cheap keys (hits); the key tuple of the last row the page needs (cut); the
+   * One statement: the matches with their cheap keys (hits: the full-text matches, and the others only when the
+   * full-text ones are too few to fill the page and to decide on corrections, as every other match ranks after every
+   * full-text one; so `total` is the number of matches, or of the full-text ones when that is at least FUZZY_BELOW and
+   * the page); the key tuple of the last row the page needs (cut); the
    * full order only for hits whose tuple is not after the cut (a hit after it has at least offset + limit hits before
    * it, so it cannot reach the page: the page is exactly that of ordering every match); then the page's foods, in that
    * order, with the number of matches.
@@ -158,13 +161,17 @@ export async function searchFoods(query: FoodSearchQuery, userId: number): Promi
   const ranked = (match: string, closeness: string | null) => {
     const keys = cheapKeys(closeness).map((expr, i) => ({ expr, name: `k${i}` }));
     const names = keys.map((k) => k.name).join(', ');
-    return sequelize.query<FoodModel & { total: string }>(
-      `${q ? `${queries},` : 'WITH'}
-      hits AS MATERIALIZED (
+    const hitsSql = (where: string) => `
         SELECT f.id, ${keys.map((k) => `${k.expr} AS ${k.name}`).join(', ')}
           FROM ${q ? 'qs, ' : ''}foods f
          WHERE ${scope}
-           AND ${match}),
+           AND ${where}`;
+    return sequelize.query<FoodModel & { total: string }>(
+      `${q ? `${queries},` : 'WITH'}
+      ${q ? `text_hits AS MATERIALIZED (${hitsSql(`${fullText}`)}),
+      other_hits AS MATERIALIZED (${hitsSql(`${match} AND NOT (${fullText})`)}
+           AND (SELECT count(*) FROM text_hits) < GREATEST(:limit + :offset, ${FUZZY_BELOW})),
+      hits AS (SELECT * FROM text_hits UNION ALL SELECT * FROM other_hits),` : `hits AS MATERIALIZED (${hitsSql(match)}),`}
       cut AS (SELECT ${names} FROM hits ORDER BY ${names} OFFSET :limit + :offset - 1 LIMIT 1)
      SELECT ${foodColumns()}, page.total
        FROM (SELECT hit.id, hit.total, row_number() OVER () AS pos FROM (
