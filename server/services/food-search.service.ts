@@ -16,38 +16,47 @@ const SIMILARITY_FLOOR = 0.4;
 // A correction this much less similar than the best one is another word, not what was meant.
 const NEAR_MARGIN = 0.25;
 
+type Correction = { word: string; sim: number; others: string[][] };
+
 /**
- * Up to 3 corrections of a typed word from the lexicon (words of table-food names and aliases), at least
- * SIMILARITY_FLOOR similar (`<->` is 1 − similarity, answered by the lexicon's GiST index). None when the word
- * is itself in the lexicon; none that contain the word (the substring match covers them).
+ * For each typed word of 3 letters or more, up to 3 corrections from the lexicon (words of table-food names, aliases
+ * and synonyms), at least SIMILARITY_FLOOR similar (`<->` is 1 − similarity, answered by the lexicon's GiST index),
+ * each with its other names from the synonym table (as lists of words); one query for every word. None for a word
+ * that is itself in the lexicon; none that contain the word (the substring match covers them).
  */
-async function nearWords(word: string): Promise<{ word: string; sim: number }[]> {
-  const rows = await FoodModel.sequelize!.query<{ word: string; sim: number }>(
-    `SELECT word, similarity(word, :word)::float8 AS sim FROM food_words
-      WHERE word % :word AND similarity(word, :word) >= :floor ORDER BY word <-> :word, word LIMIT 3`,
-    { replacements: { word, floor: SIMILARITY_FLOOR }, type: QueryTypes.SELECT },
+async function corrections(words: string[]): Promise<Map<number, Correction[]>> {
+  const out = new Map<number, Correction[]>();
+  const asked = words.map((w, i) => ({ w, i })).filter(({ w }) => w.length >= 3);
+  if (!asked.length) return out;
+  const rows = await FoodModel.sequelize!.query<{ i: number; word: string; sim: number; others: string[] }>(
+    `SELECT q.i, n.word, n.sim,
+            COALESCE((SELECT json_agg(CASE WHEN s.term = n.word THEN s.equivalent ELSE s.term END) FROM food_synonyms s
+                       WHERE s.term = n.word OR s.equivalent = n.word), '[]'::json) AS others
+       FROM unnest(CAST(:words AS text[]), CAST(:positions AS int[])) AS q(w, i)
+       CROSS JOIN LATERAL (SELECT word, similarity(word, q.w)::float8 AS sim FROM food_words
+                            WHERE word % q.w AND similarity(word, q.w) >= :floor ORDER BY word <-> q.w, word LIMIT 3) n
+      ORDER BY q.i, n.sim DESC, n.word`,
+    {
+      replacements: { words: `{${asked.map(({ w }) => `"${w}"`).join(',')}}`, positions: `{${asked.map(({ i }) => i).join(',')}}`, floor: SIMILARITY_FLOOR },
+      type: QueryTypes.SELECT,
+    },
   );
-  if (!rows.length || rows[0].word === word) return [];
-  const best = Number(rows[0].sim);
-  return rows.map((r) => ({ word: r.word, sim: Number(r.sim) })).filter((r) => r.sim >= best - NEAR_MARGIN && !r.word.includes(word));
+  for (const { w, i } of asked) {
+    const near = rows.filter((r) => Number(r.i) === i);
+    if (!near.length || near[0].word === w) continue;
+    const best = Number(near[0].sim);
+    out.set(
+      i,
+      near
+        .filter((r) => Number(r.sim) >= best - NEAR_MARGIN && !r.word.includes(w))
+        .map((r) => ({ word: r.word, sim: Number(r.sim), others: r.others.map((n) => n.split(' ')) })),
+    );
+  }
+  return out;
 }
 
 // A synonym pair whose term or equivalent occurs as whole words in :padded (the normalised query between spaces).
 const SYNONYM_MATCH = `:padded LIKE '% ' || term || ' %' OR :padded LIKE '% ' || equivalent || ' %'`;
-
-/** Synonym pairs whose term or equivalent occurs as whole words in the normalised query. */
-async function synonymsFor(q: string): Promise<SynonymPair[]> {
-  return FoodModel.sequelize!.query<SynonymPair>(
-    `SELECT term, equivalent FROM food_synonyms WHERE ${SYNONYM_MATCH}`,
-    { replacements: { padded: ` ${q} ` }, type: QueryTypes.SELECT },
-  );
-}
-
-/** Every other name of a word or phrase in the synonym table, each as its list of words. */
-async function otherNames(phrase: string): Promise<string[][]> {
-  const pairs = await synonymsFor(phrase);
-  return pairs.flatMap((p) => (p.term === phrase ? [p.equivalent] : p.equivalent === phrase ? [p.term] : [])).map((n) => n.split(' '));
-}
 
 /**
  * The table whose foods come first, as SQL: the given profile's choice when the user may open it, else the user's own
@@ -73,7 +82,7 @@ export async function preferredTableFor(userId: number, profileId?: number): Pro
   return row.preferred;
 }
 
-/** The preferred table and the synonym pairs of the query (see synonymsFor), in one round trip. */
+/** The preferred table and the synonym pairs whose term or equivalent occurs as whole words in the query, in one round trip. */
 async function searchContext(q: string, userId: number, profileId?: number): Promise<{ preferred: PreferredFoodTable; synonyms: SynonymPair[] }> {
   const [row] = await FoodModel.sequelize!.query<{ preferred: PreferredFoodTable; synonyms: SynonymPair[] }>(
     `SELECT ${preferredTableSql(':userId', ':profileId')} AS preferred,
@@ -195,14 +204,15 @@ export async function searchFoods(query: FoodSearchQuery, userId: number): Promi
     if (n < FUZZY_BELOW) {
       const perWord: string[] = [];
       const scores: string[] = [];
-      let corrections = 0;
-      for (const [i, w] of words.entries()) {
-        const near = w.length >= 3 ? await nearWords(w) : [];
-        corrections += near.length;
+      let found = 0;
+      const nearOf = await corrections(words);
+      for (let i = 0; i < words.length; i++) {
+        const near = nearOf.get(i) ?? [];
+        found += near.length;
         const nearConds: string[] = [];
-        for (const [k, { word, sim }] of near.entries()) {
+        for (const [k, { word, sim, others }] of near.entries()) {
           // A correction matches as a substring, or through its other names (a misspelt "porridge" finds oats).
-          const names = [[word], ...(await otherNames(word))];
+          const names = [[word], ...others];
           nearConds.push(`(${names.map((name, m) => `(${name.map((part, p) => {
             repl[`w${i}n${k}m${m}p${p}`] = `%${escapeLike(part)}%`;
             return `f.search_text LIKE :w${i}n${k}m${m}p${p}`;
@@ -213,7 +223,7 @@ export async function searchFoods(query: FoodSearchQuery, userId: number): Promi
         // A word as typed scores 1, a correction its similarity.
         scores.push(`GREATEST(CASE WHEN f.search_text LIKE :w${i} THEN 1 ELSE 0 END${nearConds.map((c, k) => `, CASE WHEN ${c} THEN :w${i}s${k} ELSE 0 END`).join('')})`);
       }
-      if (corrections) rows = await ranked(`(${match} OR (${perWord.join(' AND ')}))`, `-round((${scores.join(' + ')})::numeric, 1)`);
+      if (found) rows = await ranked(`(${match} OR (${perWord.join(' AND ')}))`, `-round((${scores.join(' + ')})::numeric, 1)`);
     }
   }
   const more = rows.length > query.limit;
