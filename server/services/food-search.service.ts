@@ -144,8 +144,7 @@ export async function searchFoods(query: FoodSearchQuery, userId: number): Promi
         AND (CAST(:source AS TEXT) IS NULL OR f.source = CAST(:source AS enum_foods_source))
         AND (CAST(:group AS TEXT) IS NULL OR lower(f.food_group) = lower(:group))`;
   // The order, first to last: sort keys that are cheap to work out for every match, then the full-text rank (costly:
-  // worked out only for the matches that can still reach the page, see below; 0 without a full-text match, which is
-  // what ts_rank_cd gives such a food, after a slow search for a cover), the shorter name, the id.
+  // worked out only for the matches that can still reach the page, see below), the shorter name, the id.
   const cheapKeys = (closeness: string | null) => [
     ...(q
       ? [
@@ -189,7 +188,7 @@ export async function searchFoods(query: FoodSearchQuery, userId: number): Promi
                  FROM ${q ? 'qs, ' : ''}hits h JOIN foods f ON f.id = h.id
                 WHERE NOT EXISTS (SELECT 1 FROM cut) OR (${keys.map((k) => `h.${k.name}`).join(', ')}) <= (SELECT ${names} FROM cut)
                 ORDER BY ${keys.map((k) => `h.${k.name}`).join(', ')},
-                         ${q ? 'CASE WHEN f.search_vector @@ qs.q_all THEN ts_rank_cd(f.search_vector, qs.q_all) ELSE 0 END DESC,' : ''}
+                         ${q ? 'ts_rank_cd(f.search_vector, qs.q_all) DESC,' : ''}
                          length(f.name), f.id
                 LIMIT :limit OFFSET :offset) hit) page
        JOIN foods f ON f.id = page.id
