@@ -3,14 +3,7 @@ import { pipeline } from 'node:stream/promises';
 import type { Sequelize } from 'sequelize';
 import { from as copyFrom } from 'pg-copy-streams';
 import type { ParsedDataset } from '../importers/dataset';
-import { COLUMNS, hashOf, rowOf } from '../importers/write-foods';
-
-const csvCell = (v: unknown): string => {
-  if (v === null || v === undefined) return '';
-  if (Array.isArray(v)) return csvCell(`{${v.map((x) => `"${String(x).replace(/["\\]/g, (c) => `\\${c}`)}"`).join(',')}}`);
-  const text = typeof v === 'object' ? JSON.stringify(v) : String(v);
-  return `"${text.replace(/"/g, '""')}"`;
-};
+import { COLUMNS, csvCell, hashOf, rowOf } from '../importers/write-foods';
 
 /**
  * The importer's floor: a plain `COPY … FROM STDIN (CSV)` of exactly the rows the importer writes (foods with their

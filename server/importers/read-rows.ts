@@ -33,17 +33,19 @@ export async function* readRows(file: string, layout: Layout): AsyncGenerator<Ro
       quote: layout.quote,
       escape: layout.quote,
       bom: true,
-      info: true,
       relax_column_count: true,
       skip_empty_lines: true,
     }),
   );
+  // Each record with the line it ends on. csv-parse's `info: true` builds a copy of its whole state for every record
+  // (a quarter of the parse time of a large file); the parser pushes each record as soon as it has parsed it, so its
+  // live line count at that moment is the same number.
+  const push = parser.push.bind(parser);
+  parser.push = (record: string[] | null) => push(record === null ? null : { fields: record, line: parser.info.lines });
   // A pipe does not pass errors on: a broken gzip stream must stop the parser.
   bytes.on('error', (err: Error) => parser.destroy(err));
   try {
-    for await (const rec of parser as AsyncIterable<{ record: string[]; info: { lines: number } }>) {
-      yield { fields: rec.record, line: rec.info.lines };
-    }
+    yield* parser as AsyncIterable<Row>;
   } catch (err) {
     const e = err as Error & { lines?: number; code?: string };
     const reason =

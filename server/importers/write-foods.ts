@@ -1,4 +1,8 @@
 import { createHash } from 'node:crypto';
+import { Readable } from 'node:stream';
+import { pipeline } from 'node:stream/promises';
+import type { PoolClient } from 'pg';
+import { from as copyFrom } from 'pg-copy-streams';
 import { QueryTypes, type Sequelize, type Transaction } from 'sequelize';
 import type { FoodSource } from '../models/food.model';
 import { searchKeys } from '../search/search-text';
@@ -43,10 +47,29 @@ export function rowOf(input: FoodInput, hash: string, opts: { source: FoodSource
   };
 }
 
+/** One value as a cell of PostgreSQL's CSV COPY format: empty for null, arrays as array literals, objects as JSON. */
+export const csvCell = (v: unknown): string => {
+  if (v === null || v === undefined) return '';
+  if (Array.isArray(v)) return csvCell(`{${v.map((x) => `"${String(x).replace(/["\\]/g, (c) => `\\${c}`)}"`).join(',')}}`);
+  const text = typeof v === 'object' ? JSON.stringify(v) : String(v);
+  return `"${text.replace(/"/g, '""')}"`;
+};
+
+/** Streams CSV lines into `COPY <target> FROM STDIN (FORMAT csv)` on the given client (a few hundred lines a chunk). */
+export async function copyLines(client: PoolClient, target: string, lines: string[]): Promise<void> {
+  const chunks = (function* () {
+    for (let i = 0; i < lines.length; i += 500) yield lines.slice(i, i + 500).join('');
+  })();
+  await pipeline(Readable.from(chunks), client.query(copyFrom(`COPY ${target} FROM STDIN (FORMAT csv)`)));
+}
+
 type WriteOptions = { source: FoodSource; attribution: string; licence: string; importId: number; foods: FoodInput[] };
 
 /** What writing these foods would change (see diffImport), read inside the caller's transaction; writes nothing. */
 export async function planFoods(sequelize: Sequelize, t: Transaction, opts: WriteOptions) {
+  // One import of a source at a time: a second one waits here, then sees the first one's rows (new foods are
+  // written with COPY, which would stop on a code the other import has just added).
+  await sequelize.query(`SELECT pg_advisory_xact_lock(hashtext('foods import ' || :source))`, { replacements: { source: opts.source }, transaction: t });
   const existing = await sequelize.query<StoredRow>(
     `SELECT id, source_code, name, content_hash, ${NUTRIENT_COLUMNS.join(', ')} FROM foods WHERE source = :source`,
     { replacements: { source: opts.source }, type: QueryTypes.SELECT, transaction: t },
@@ -65,15 +88,18 @@ export async function planFoods(sequelize: Sequelize, t: Transaction, opts: Writ
   );
   const hashed = opts.foods.map((input) => ({ input, hash: hashOf(input, opts.attribution, opts.licence) }));
   const diff: ImportDiff = diffImport(stored, hashed);
-  const pending = hashed.filter(({ input, hash }) => stored.get(input.sourceCode)?.hash !== hash);
+  const pending = hashed
+    .filter(({ input, hash }) => stored.get(input.sourceCode)?.hash !== hash)
+    .map((p) => ({ ...p, isNew: !stored.has(p.input.sourceCode) }));
   const counts: WriteCounts = { inserted: diff.added.count, updated: diff.changed.count, unchanged: diff.unchanged };
   return { diff, counts, pending };
 }
 
 /**
- * Upserts foods of one source inside the caller's transaction: new codes are inserted, changed ones updated
- * (their measures replaced), identical ones left alone, so a re-import changes nothing. Each chunk is one
- * set-based statement (rows passed as one JSON parameter), so a full table is written in a few round trips.
+ * Writes foods of one source inside the caller's transaction: new codes are inserted, changed ones updated
+ * (their measures replaced), identical ones left alone, so a re-import changes nothing. New foods (all of them on a
+ * first load) go in with COPY, their ids taken from the sequence first so their measures can follow by COPY too;
+ * changed ones are upserted a chunk per set-based statement (rows passed as one JSON parameter).
  * Pass the plan when the caller has already made one in this transaction.
  */
 export async function writeFoods(
@@ -85,8 +111,15 @@ export async function writeFoods(
 ): Promise<WriteCounts> {
   const { counts, pending } = plan ?? (await planFoods(sequelize, t, opts));
   let written = 0;
-  for (let i = 0; i < pending.length; i += CHUNK) {
-    const chunk = pending.slice(i, i + CHUNK);
+  const fresh = pending.filter((p) => p.isNew);
+  if (fresh.length) {
+    await copyNewFoods(sequelize, t, opts, fresh);
+    written += fresh.length;
+    onProgress?.(written);
+  }
+  const changed = pending.filter((p) => !p.isNew);
+  for (let i = 0; i < changed.length; i += CHUNK) {
+    const chunk = changed.slice(i, i + CHUNK);
     const rows = JSON.stringify(chunk.map(({ input, hash }) => rowOf(input, hash, opts)));
     const saved = await sequelize.query<{ id: number; source_code: string }>(
       `INSERT INTO foods (${COLUMNS.map(([c]) => c).join(', ')}, created_at, updated_at)
@@ -111,4 +144,25 @@ export async function writeFoods(
     onProgress?.(written);
   }
   return counts;
+}
+
+/** COPYs foods the table does not hold yet (the plan checked, under the import lock) and their measures. */
+async function copyNewFoods(sequelize: Sequelize, t: Transaction, opts: WriteOptions, fresh: { input: FoodInput; hash: string }[]): Promise<void> {
+  const ids = await sequelize.query<{ id: string }>(`SELECT nextval(pg_get_serial_sequence('foods', 'id')) AS id FROM generate_series(1, :n)`, {
+    replacements: { n: fresh.length },
+    type: QueryTypes.SELECT,
+    transaction: t,
+  });
+  const foodLines: string[] = [];
+  const measureLines: string[] = [];
+  fresh.forEach(({ input, hash }, i) => {
+    const id = ids[i].id;
+    const row = rowOf(input, hash, opts) as Record<string, unknown>;
+    foodLines.push(`${id},${COLUMNS.map(([c]) => csvCell(row[c])).join(',')},now,now\n`);
+    input.measures.forEach((m, seq) => measureLines.push(`${id},${csvCell(m.label)},${m.grams},${seq}\n`));
+  });
+  // The transaction's own connection: COPY is not a statement Sequelize can send.
+  const client = (t as unknown as { connection: PoolClient }).connection;
+  await copyLines(client, `foods (id, ${COLUMNS.map(([c]) => c).join(', ')}, created_at, updated_at)`, foodLines);
+  if (measureLines.length) await copyLines(client, 'food_measures (food_id, label, grams, seq)', measureLines);
 }
