@@ -2,7 +2,7 @@ import { Lora_400Regular } from '@expo-google-fonts/lora/400Regular';
 import { Lora_600SemiBold } from '@expo-google-fonts/lora/600SemiBold';
 import { Lora_700Bold } from '@expo-google-fonts/lora/700Bold';
 import { QueryClientProvider } from '@tanstack/react-query';
-import { useFonts } from 'expo-font';
+import { FontDisplay, useFonts } from 'expo-font';
 import { Stack } from 'expo-router';
 import { StatusBar } from 'expo-status-bar';
 import { useEffect, useState } from 'react';
@@ -15,11 +15,18 @@ import { palette } from '@/components/theme/tokens';
 
 export { ErrorBoundary } from 'expo-router';
 
+// The Lora weights load beside the first paint, not before it: text shows at once in the browser's fallback serif
+// and swaps to Lora when it arrives (font-display: swap), so a slow font no longer holds back the whole screen.
+const FONTS = {
+  Lora_400Regular: { uri: Lora_400Regular, display: FontDisplay.SWAP },
+  Lora_600SemiBold: { uri: Lora_600SemiBold, display: FontDisplay.SWAP },
+  Lora_700Bold: { uri: Lora_700Bold, display: FontDisplay.SWAP },
+};
+
 export default function RootLayout() {
   const [queryClient] = useState(() => withOfflineCopy(createQueryClient()));
   useEffect(registerServiceWorker, []);
-  const [fontsLoaded, fontError] = useFonts({ Lora_400Regular, Lora_600SemiBold, Lora_700Bold });
-  if (!fontsLoaded && !fontError) return null;
+  useFonts(FONTS);
   return (
     <SafeAreaProvider>
       <QueryClientProvider client={queryClient}>

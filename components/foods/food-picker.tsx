@@ -1,5 +1,5 @@
-import Fuse from 'fuse.js';
 import { useQueryClient } from '@tanstack/react-query';
+import type { IFuseOptions } from 'fuse.js';
 import { useMemo, useState, type ReactNode } from 'react';
 import { StyleSheet, View } from 'react-native';
 import type { Food, FoodSummary } from '../../shared/schemas/food';
@@ -10,6 +10,7 @@ import { Callout } from '../ui/callout';
 import { LoadingState } from '../ui/states';
 import { Text } from '../ui/text';
 import { TextField } from '../ui/text-field';
+import { useFuse } from '../ui/use-fuse';
 import { BASIS_WORDS } from './food-carb';
 import { FoodRow } from './food-row';
 import { myFoods, useMyFoods } from './my-foods-store';
@@ -23,6 +24,8 @@ export type FoodPickerProps = {
   label?: string;
   autoFocus?: boolean;
 };
+
+const SAVED_SEARCH: IFuseOptions<FoodSummary> = { keys: ['name', 'altNames'], threshold: 0.35, ignoreLocation: true };
 
 /**
  * Search-as-you-type food picker: the food table (debounced, stale requests cancelled) plus the person's recent and
@@ -45,8 +48,8 @@ export function FoodPicker({ onPick, selectedId, label = 'Search foods', autoFoc
     for (const f of [...mine.favourites, ...mine.recent]) if (!byId.has(f.id)) byId.set(f.id, f);
     return [...byId.values()];
   }, [mine]);
-  const fuse = useMemo(() => new Fuse(saved, { keys: ['name', 'altNames'], threshold: 0.35, ignoreLocation: true }), [saved]);
-  const localHits = q ? fuse.search(q, { limit: 5 }).map((r) => r.item) : [];
+  const fuse = useFuse(saved, SAVED_SEARCH);
+  const localHits = q && fuse ? fuse.search(q, { limit: 5 }).map((r) => r.item) : [];
   const favouriteIds = new Set(mine.favourites.map((f) => f.id));
 
   const pick = async (food: FoodSummary) => {

@@ -1,5 +1,5 @@
-import Fuse from 'fuse.js';
 import { router } from 'expo-router';
+import type { IFuseOptions } from 'fuse.js';
 import { useDeferredValue, useMemo, useState } from 'react';
 import { Pressable, StyleSheet, View } from 'react-native';
 import type { RecipeScope, RecipeSort, RecipeSummary } from '../../shared/schemas/recipe';
@@ -12,10 +12,14 @@ import { Screen } from '../ui/screen';
 import { EmptyState, ErrorState, LoadingState } from '../ui/states';
 import { Text } from '../ui/text';
 import { TextField } from '../ui/text-field';
+import { useFuse } from '../ui/use-fuse';
 import { RecipeDetailView } from './recipe-detail';
 import { showCarb } from './recipe-format';
 import { RecipePhoto } from './recipe-photo';
 import { useRecipes } from '../api/recipes';
+
+const RECIPE_SEARCH: IFuseOptions<RecipeSummary> = { keys: ['title', 'tags', 'ingredientNames'], threshold: 0.35, ignoreLocation: true };
+const NO_RECIPES: RecipeSummary[] = [];
 
 const SCOPES: { value: RecipeScope; label: string }[] = [
   { value: 'mine', label: 'Mine' },
@@ -39,13 +43,10 @@ export function RecipesScreen() {
   const [selected, setSelected] = useState<number>();
   const serverQ = useDeferredValue(text.trim().length >= 3 ? text.trim() : '');
   const recipes = useRecipes({ scope, sort, q: serverQ, profileId: profile?.id });
-  const fuse = useMemo(
-    () => new Fuse(recipes.data ?? [], { keys: ['title', 'tags', 'ingredientNames'], threshold: 0.35, ignoreLocation: true }),
-    [recipes.data],
-  );
+  const fuse = useFuse(recipes.data ?? NO_RECIPES, RECIPE_SEARCH);
   const shown: RecipeSummary[] = useMemo(() => {
     const needle = text.trim();
-    if (!needle || !recipes.data) return recipes.data ?? [];
+    if (!needle || !recipes.data || !fuse) return recipes.data ?? [];
     return fuse.search(needle).map((r) => r.item).sort((a, b) => (recipes.data!.indexOf(a) - recipes.data!.indexOf(b)));
   }, [fuse, recipes.data, text]);
   const open = (id: number) => (isWide ? setSelected(id) : router.push(`/recipes/${id}`));
