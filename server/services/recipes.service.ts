@@ -16,6 +16,7 @@ import { findProfileAccess } from './auth.service';
 import { getUsableFoods, loadFoods } from './foods.service';
 import { profileUnits } from './profiles.service';
 import { photoUrls } from './photos.service';
+import { together } from '../lib/together';
 
 type Display = { basis: CarbBasis; unit: CarbUnit };
 
@@ -43,6 +44,21 @@ export async function findViewableRecipe(recipeId: number, userId: number, trans
   const recipe = await RecipeModel.findByPk(recipeId, { transaction });
   if (!recipe || !(await canViewRecipe(recipe, userId))) throw AppError.notFound('recipe');
   return recipe;
+}
+
+/**
+ * A recipe's id and title if the user may see it, else null: canViewRecipe's rule in one plain query (for writes
+ * that only need to name the recipe, such as saving a batch).
+ */
+export async function findViewableRecipeRow(recipeId: number, userId: number): Promise<{ id: number; title: string } | null> {
+  const [row] = await RecipeModel.sequelize!.query<{ id: number; title: string }>(
+    `SELECT r.id, r.title FROM recipes r
+      WHERE r.id = :recipeId
+        AND (r.owner_user_id = :userId OR r.visibility = 'public'
+          OR (r.visibility <> 'private' AND EXISTS (SELECT 1 FROM recipe_shares s WHERE s.recipe_id = r.id AND s.user_id = :userId)))`,
+    { replacements: { recipeId, userId }, type: QueryTypes.SELECT },
+  );
+  return row ?? null;
 }
 
 /** The recipe row for its owner; 404 for people who cannot see it, 403 for those who can but do not own it. */
@@ -285,15 +301,4 @@ export async function deleteRecipe(recipeId: number, userId: number): Promise<st
     await recipe.destroy({ transaction });
     return keys;
   });
-}
-
-type Thunks = readonly (() => Promise<unknown>)[];
-type Results<T extends Thunks> = { [K in keyof T]: Awaited<ReturnType<T[K]>> };
-
-/** Runs independent reads together, or one after another on a transaction's single connection. */
-async function together<T extends Thunks>(transaction: Transaction | undefined, steps: T): Promise<Results<T>> {
-  if (!transaction) return (await Promise.all(steps.map((step) => step()))) as Results<T>;
-  const out: unknown[] = [];
-  for (const step of steps) out.push(await step());
-  return out as Results<T>;
 }

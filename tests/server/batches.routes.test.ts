@@ -62,6 +62,35 @@ describe('POST /api/profiles/:profileId/batches (weighed portions)', () => {
   });
 });
 
+describe('the answer to a save', () => {
+  it.each([
+    { name: 'weighed into containers with a pot', split: 'weighed' as const },
+    { name: 'split equally', split: 'equal' as const },
+  ])('is exactly the batch page ($name)', async ({ split }) => {
+    const cook = await member();
+    const { input } = await overnightOats(cook.userId);
+    const containers = `/api/profiles/${cook.profileId}/containers`;
+    const pot = await request(ctx.app).post(containers).set(bearer(cook.token)).send({ name: 'Big pot', kind: 'pot', tareGrams: 480 });
+    const jar = await request(ctx.app).post(containers).set(bearer(cook.token)).send({ name: 'Jar 1', kind: 'container', tareGrams: 212 });
+    const body = {
+      ...input,
+      note: 'Made on Sunday',
+      cookedWeight: { ...input.cookedWeight, containerId: pot.body.id },
+      split: split === 'equal' ? { mode: 'equal', count: 3 } : { mode: 'weighed', portions: input.split.mode === 'weighed' ? input.split.portions.map((p, i) => (i === 0 ? { ...p, containerId: jar.body.id } : p)) : [] },
+    };
+
+    const saved = await postBatch(ctx.app, cook.token, cook.profileId, body);
+    const page = await request(ctx.app).get(`/api/profiles/${cook.profileId}/batches/${saved.body.id}`).set(bearer(cook.token));
+
+    expect(saved.status).toBe(201);
+    // Same keys in the same order and the same values as the batch page reads them back.
+    expect(JSON.stringify(saved.body)).toBe(JSON.stringify(page.body));
+    expect(saved.body).toMatchObject({ potName: 'Big pot', note: 'Made on Sunday', cookedBy: { id: cook.userId } });
+    if (split === 'weighed') expect(saved.body.portions[0]).toMatchObject({ containerName: 'Jar 1', grossGrams: 438, tareGrams: 212 });
+    else expect(saved.body.portions.map((p: { grossGrams: number | null }) => p.grossGrams)).toEqual([null, null, null]);
+  });
+});
+
 describe('equal portions and the profile basis and unit', () => {
   // check-values §2.3 / T1: porridge of oats 500 g, whole milk 1000 g, water 1000 g cooked to 2200 g, 8 portions.
   async function porridge() {
