@@ -16,6 +16,7 @@ import { findProfileAccess } from './auth.service';
 import { getUsableFoods, loadFoods } from './foods.service';
 import { profileUnits } from './profiles.service';
 import { photoUrls } from './photos.service';
+import { currentTransaction } from '../lib/transaction-context';
 import { together } from '../lib/together';
 
 type Display = { basis: CarbBasis; unit: CarbUnit };
@@ -168,8 +169,28 @@ export async function getRecipeForUser(
     view.portions !== undefined
       ? { factor: scaleFactorForPortions(recipe.defaultPortions, view.portions), portions: view.portions }
       : { factor: view.factor ?? 1, portions: recipe.defaultPortions };
-  const { summary, nutrition } = summarise(recipe, owner, lines, foods, display, userId, cooked.get(recipe.id) ?? null, scale);
   const sourceVisible = source ? await canViewRecipe(source, userId) : false;
+  return toDetail(recipe, owner, lines, foods, display, userId, cooked.get(recipe.id) ?? null, scale, {
+    sharedWith: shares
+      ? shares.map((s) => ({ userId: s.userId, displayName: s.user!.displayName, email: s.user!.email, sharedAt: s.createdAt.toISOString() }))
+      : null,
+    copiedFrom: source && sourceVisible ? { id: source.id, title: source.title } : null,
+  });
+}
+
+/** The recipe page's answer from what is in hand: the row, its lines in order, their foods, the scale and who it is shared with. */
+function toDetail(
+  recipe: RecipeModel,
+  owner: { displayName: string } | null | undefined,
+  lines: Line[],
+  foods: Map<number, Food>,
+  display: Display,
+  userId: number,
+  cookedAt: string | null,
+  scale: { factor: number; portions: number },
+  links: Pick<RecipeDetail, 'sharedWith' | 'copiedFrom'>,
+): RecipeDetail {
+  const { summary, nutrition } = summarise(recipe, owner, lines, foods, display, userId, cookedAt, scale);
   return {
     ...summary,
     methodSteps: recipe.methodSteps,
@@ -184,10 +205,8 @@ export async function getRecipeForUser(
     })),
     nutrition,
     scale,
-    sharedWith: shares
-      ? shares.map((s) => ({ userId: s.userId, displayName: s.user!.displayName, email: s.user!.email, sharedAt: s.createdAt.toISOString() }))
-      : null,
-    copiedFrom: source && sourceVisible ? { id: source.id, title: source.title } : null,
+    sharedWith: links.sharedWith,
+    copiedFrom: links.copiedFrom,
   };
 }
 
@@ -239,6 +258,15 @@ export async function listRecipes(query: RecipeListQuery, userId: number): Promi
   return items;
 }
 
+/** A 400 naming ingredients.N.foodId for every line whose food the user may not use (and that is not already in the recipe). */
+function checkIngredientFoods(input: RecipeInputParsed['ingredients'], usable: Map<number, Food>, allowed: Set<number>): void {
+  const fieldErrors: Record<string, string[]> = {};
+  input.forEach((line, index) => {
+    if (!usable.has(line.foodId) && !allowed.has(line.foodId)) fieldErrors[`ingredients.${index}.foodId`] = ['That food was not found.'];
+  });
+  if (Object.keys(fieldErrors).length) throw AppError.validation(fieldErrors);
+}
+
 /**
  * Checks every ingredient's food (usable by the user, or already in this recipe) and writes the lines in order.
  * Unknown foods give a 400 naming ingredients.N.foodId.
@@ -247,11 +275,7 @@ async function writeIngredients(recipeId: number, input: RecipeInputParsed['ingr
   const existing = await RecipeIngredientModel.findAll({ where: { recipeId }, attributes: ['foodId'], transaction });
   const allowed = new Set(existing.map((e) => e.foodId));
   const usable = await getUsableFoods(input.map((i) => i.foodId), userId);
-  const fieldErrors: Record<string, string[]> = {};
-  input.forEach((line, index) => {
-    if (!usable.has(line.foodId) && !allowed.has(line.foodId)) fieldErrors[`ingredients.${index}.foodId`] = ['That food was not found.'];
-  });
-  if (Object.keys(fieldErrors).length) throw AppError.validation(fieldErrors);
+  checkIngredientFoods(input, usable, allowed);
   await RecipeIngredientModel.destroy({ where: { recipeId }, transaction });
   await RecipeIngredientModel.bulkCreate(
     input.map((line, position) => ({ recipeId, position, foodId: line.foodId, grams: line.grams, measureLabel: line.measureLabel, note: line.note })),
@@ -265,16 +289,49 @@ function recipeFields(input: RecipeInputParsed) {
   return { title, description, methodSteps, tags, defaultPortions, visibility };
 }
 
+// A new recipe and its lines in one statement, answered from what it returns (plain rows, no second read).
+const INSERT_RECIPE = `WITH r AS (
+  INSERT INTO recipes (owner_user_id, title, description, method_steps, tags, default_portions, visibility, created_at, updated_at)
+  VALUES (:userId, :title, :description, :methodSteps, ARRAY(SELECT jsonb_array_elements_text(CAST(:tags AS jsonb))), :defaultPortions, :visibility, :now, :now)
+  RETURNING id, owner_user_id AS "ownerUserId", title, description, method_steps AS "methodSteps", tags, default_portions AS "defaultPortions",
+    visibility, photo_large_key AS "photoLargeKey", photo_thumb_key AS "photoThumbKey", copied_from_recipe_id AS "copiedFromRecipeId",
+    created_at AS "createdAt", updated_at AS "updatedAt"
+), i AS (
+  INSERT INTO recipe_ingredients (recipe_id, position, food_id, grams, measure_label, note)
+  SELECT r.id, x.position::int, x.food_id::int, x.grams::float8, x.measure_label::text, x.note::text
+    FROM r, (VALUES :lines) AS x(position, food_id, grams, measure_label, note)
+  RETURNING id, recipe_id AS "recipeId", position, food_id AS "foodId", grams, measure_label AS "measureLabel", note
+)
+SELECT r.*, u.display_name AS "ownerName", (SELECT json_agg(i ORDER BY i.position) FROM i) AS "lineRows"
+  FROM r LEFT JOIN users u ON u.id = r."ownerUserId"`;
+
 /**
- * Creates a recipe with its ingredients in one transaction; returns the detail, read inside the same transaction
- * so a failure after the commit can never turn a saved recipe into an error (and a retried duplicate).
+ * Creates a recipe with its ingredients: the foods and the answer's units are read first (together), then the recipe
+ * and its lines are one INSERT statement (all or nothing) and the answer is built from what it returns, so a failure
+ * after the save can never turn a saved recipe into an error (and a retried duplicate). A new recipe has no batches,
+ * shares or source yet.
  */
 export async function createRecipe(input: RecipeInputParsed, userId: number): Promise<RecipeDetail> {
-  return RecipeModel.sequelize!.transaction(async (transaction) => {
-    const recipe = await RecipeModel.create({ ownerUserId: userId, ...recipeFields(input) }, { transaction });
-    await writeIngredients(recipe.id, input.ingredients, userId, transaction);
-    return getRecipeForUser(recipe.id, userId, {}, transaction);
+  const [usable, display] = await together(currentTransaction(), [
+    () => getUsableFoods(input.ingredients.map((i) => i.foodId), userId),
+    () => resolveDisplay(userId),
+  ] as const);
+  checkIngredientFoods(input.ingredients, usable, new Set());
+  const [row] = await RecipeModel.sequelize!.query<RecipeModel & { ownerName: string | null; lineRows: Line[] }>(INSERT_RECIPE, {
+    replacements: {
+      userId,
+      ...recipeFields(input),
+      methodSteps: JSON.stringify(input.methodSteps),
+      tags: JSON.stringify(input.tags),
+      now: new Date(),
+      lines: input.ingredients.map((line, position) => [position, line.foodId, line.grams, line.measureLabel ?? null, line.note ?? null]),
+    },
+    type: QueryTypes.SELECT,
   });
+  const { ownerName, lineRows, ...recipe } = row;
+  const owner = ownerName == null ? null : { displayName: ownerName };
+  const scale = { factor: 1, portions: recipe.defaultPortions };
+  return toDetail(recipe as RecipeModel, owner, lineRows, usable, display, userId, null, scale, { sharedWith: [], copiedFrom: null });
 }
 
 /**
