@@ -170,7 +170,7 @@ export async function getRecipeForUser(
       ? { factor: scaleFactorForPortions(recipe.defaultPortions, view.portions), portions: view.portions }
       : { factor: view.factor ?? 1, portions: recipe.defaultPortions };
   const sourceVisible = source ? await canViewRecipe(source, userId) : false;
-  return toDetail(recipe, owner, lines, foods, display, userId, cooked.get(recipe.id) ?? null, scale, {
+  return toDetail([recipe, owner, lines, foods, display, userId, cooked.get(recipe.id) ?? null, scale], {
     sharedWith: shares
       ? shares.map((s) => ({ userId: s.userId, displayName: s.user!.displayName, email: s.user!.email, sharedAt: s.createdAt.toISOString() }))
       : null,
@@ -178,19 +178,10 @@ export async function getRecipeForUser(
   });
 }
 
-/** The recipe page's answer from what is in hand: the row, its lines in order, their foods, the scale and who it is shared with. */
-function toDetail(
-  recipe: RecipeModel,
-  owner: { displayName: string } | null | undefined,
-  lines: Line[],
-  foods: Map<number, Food>,
-  display: Display,
-  userId: number,
-  cookedAt: string | null,
-  scale: { factor: number; portions: number },
-  links: Pick<RecipeDetail, 'sharedWith' | 'copiedFrom'>,
-): RecipeDetail {
-  const { summary, nutrition } = summarise(recipe, owner, lines, foods, display, userId, cookedAt, scale);
+/** The recipe page's answer from what is in hand (summarise's arguments, the scale given) and who it is shared with. */
+function toDetail(parts: Required<Parameters<typeof summarise>>, links: Pick<RecipeDetail, 'sharedWith' | 'copiedFrom'>): RecipeDetail {
+  const [recipe, , lines, foods, , , , scale] = parts;
+  const { summary, nutrition } = summarise(...parts);
   return {
     ...summary,
     methodSteps: recipe.methodSteps,
@@ -331,7 +322,7 @@ export async function createRecipe(input: RecipeInputParsed, userId: number): Pr
   const { ownerName, lineRows, ...recipe } = row;
   const owner = ownerName == null ? null : { displayName: ownerName };
   const scale = { factor: 1, portions: recipe.defaultPortions };
-  return toDetail(recipe as RecipeModel, owner, lineRows, usable, display, userId, null, scale, { sharedWith: [], copiedFrom: null });
+  return toDetail([recipe as RecipeModel, owner, lineRows, usable, display, userId, null, scale], { sharedWith: [], copiedFrom: null });
 }
 
 /**
