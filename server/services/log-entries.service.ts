@@ -71,11 +71,12 @@ const INSERT_ENTRIES = `WITH e AS (
     reading_source AS "readingSource", units, planned_units AS "plannedUnits", suggestion, intensity, duration_minutes AS "durationMinutes", note,
     deleted_at AS "deletedAt", created_at AS "createdAt", updated_at AS "updatedAt"
 )
-SELECT e.*, u.display_name AS "enteredByName", k.name AS "dayKindName", p.code AS "portionCode"
+SELECT e.*,
+    -- One primary-key lookup per entry (joins made the planner hash the whole portions table).
+    (SELECT u.display_name FROM users u WHERE u.id = e."enteredByUserId") AS "enteredByName",
+    (SELECT k.name FROM day_kinds k WHERE k.id = e."dayKindId") AS "dayKindName",
+    (SELECT p.code FROM portions p WHERE p.id = e."portionId") AS "portionCode"
   FROM e
-  LEFT JOIN users u ON u.id = e."enteredByUserId"
-  LEFT JOIN day_kinds k ON k.id = e."dayKindId"
-  LEFT JOIN portions p ON p.id = e."portionId"
  ORDER BY e."occurredAt" DESC, e.id DESC`;
 
 type SavedEntry = LogEntryModel & { enteredByName: string | null; dayKindName: string | null; portionCode: string | null };
