@@ -1,5 +1,5 @@
 import { randomInt } from 'node:crypto';
-import { literal, Op, QueryTypes } from 'sequelize';
+import { literal, Op, QueryTypes, UniqueConstraintError } from 'sequelize';
 import { carbUnderstated, computeBatch, gramsLeftToSplit, netGrams, splitBatch, weighingDifference, yieldFactor } from '../../shared/compute/batch';
 import { carbInBasis, type Nutrients } from '../../shared/compute/nutrients';
 import { generatePortionCode } from '../../shared/compute/portion-code';
@@ -28,18 +28,30 @@ async function unitsOf(profileId: number): Promise<Units> {
   return { basis: p.carbBasis, unit: p.carbUnit };
 }
 
+/** `count` distinct new portion codes, not yet checked against the table. */
+function newCodes(count: number): string[] {
+  const codes = new Set<string>();
+  while (codes.size < count) codes.add(generatePortionCode(randomInt));
+  return [...codes];
+}
+
 /** New portion codes that are not in use yet (checked against the table; the unique index is the last word). */
 async function freshCodes(count: number): Promise<string[]> {
   const sequelize = PortionModel.sequelize!;
   const codes = new Set<string>();
   while (codes.size < count) {
-    const wanted = Array.from({ length: count - codes.size }, () => generatePortionCode(randomInt));
+    const wanted = newCodes(count - codes.size).filter((code) => !codes.has(code));
     const taken = await sequelize.query<{ code: string }>('SELECT code FROM portions WHERE code IN (:wanted)', { replacements: { wanted }, type: QueryTypes.SELECT });
     const takenSet = new Set(taken.map((p) => p.code));
     for (const code of wanted) if (!takenSet.has(code)) codes.add(code);
   }
   return [...codes];
 }
+
+/** How many times a save outside a transaction draws new codes after the unique index refused one (about 1 in 1,000 saves on the bench volume). */
+const CODE_ATTEMPTS = 5;
+
+const codeTaken = (err: unknown) => err instanceof UniqueConstraintError && Object.keys(err.fields ?? {}).includes('code');
 
 function batchNumbers(batch: BatchModel, units: Units) {
   const understated = carbUnderstated(batch.totals, batch.incomplete, units.basis);
@@ -246,10 +258,13 @@ type SavedRow = BatchModel & { cookedByName: string | null; ingredientRows: Batc
  */
 export async function createBatch(profileId: number, userId: number, input: CreateBatchParsed): Promise<BatchDetail> {
   const portionCount = input.split.mode === 'equal' ? input.split.count : input.split.portions.length;
-  const [recipe, usable, codes, units] = await together(currentTransaction(), [
+  // Inside a transaction a refused statement would abort it, so codes are checked first; outside one, the statement
+  // is all or nothing and is simply tried again with new codes if the unique index refuses one.
+  const inTransaction = Boolean(currentTransaction() || input.plannedCookId);
+  const [recipe, usable, checkedCodes, units] = await together(currentTransaction(), [
     () => findViewableRecipeRow(input.recipeId, userId),
     () => loadFoods(foodIdsOf(input), { userId, measures: false }),
-    () => freshCodes(portionCount),
+    () => (inTransaction ? freshCodes(portionCount) : Promise.resolve(null)),
     () => unitsOf(profileId),
   ] as const);
   if (!recipe) throw AppError.validation({ recipeId: ['That recipe was not found.'] });
@@ -262,7 +277,7 @@ export async function createBatch(profileId: number, userId: number, input: Crea
   const rule = defaultUseBy(input.cookedOn, input.storage, input.region, containsRice);
   const containers = await containersOf(profileId, input);
   const split = input.split;
-  const portions = shares.map((share, i) => {
+  const portions = (codes: string[]) => shares.map((share, i) => {
     const container = containers.portions[i] ?? null;
     const weighed = split.mode === 'weighed' ? split.portions[i] : null;
     const { containerName, grossGrams, tareGrams } = weighed ? { containerName: container?.name ?? null, grossGrams: weighed.grossGrams, tareGrams: weighed.tareGrams } : noContainer;
@@ -297,12 +312,18 @@ export async function createBatch(profileId: number, userId: number, input: Crea
       const from = l.swappedFromFoodId ? foods.get(l.swappedFromFoodId)! : null;
       return [i + 1, food.foodId, food.name, food.source, JSON.stringify(food.per100g), l.plannedGrams, l.omitted ? null : l.actualGrams, l.omitted, from?.foodId ?? null, from?.name ?? null];
     }),
-    portions,
   };
   const sequelize = BatchModel.sequelize!;
-  const save = async () => {
-    const [row] = await sequelize.query<SavedRow>(INSERT_BATCH, { replacements, type: QueryTypes.SELECT });
-    return row;
+  const save = async (): Promise<SavedRow> => {
+    for (let attempt = 1; ; attempt += 1) {
+      const codes = checkedCodes ?? newCodes(portionCount);
+      try {
+        const [row] = await sequelize.query<SavedRow>(INSERT_BATCH, { replacements: { ...replacements, portions: portions(codes) }, type: QueryTypes.SELECT });
+        return row;
+      } catch (err) {
+        if (checkedCodes || attempt >= CODE_ATTEMPTS || !codeTaken(err)) throw err;
+      }
+    }
   };
   const row = input.plannedCookId
     ? await sequelize.transaction(async (transaction) => {

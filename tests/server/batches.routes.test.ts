@@ -1,5 +1,6 @@
 import request from 'supertest';
 import { BatchIngredientModel, BatchModel, FoodModel, PortionModel, ProfileModel, RecipeModel } from '../../server/models';
+import * as portionCode from '../../shared/compute/portion-code';
 import { normalizePortionCode } from '../../shared/compute/portion-code';
 import { bearer, signUpMember, useTestApp } from '../helpers/api';
 import { createFood, SR_LEGACY, withAvailable } from '../helpers/foods';
@@ -88,6 +89,30 @@ describe('the answer to a save', () => {
     expect(saved.body).toMatchObject({ potName: 'Big pot', note: 'Made on Sunday', cookedBy: { id: cook.userId } });
     if (split === 'weighed') expect(saved.body.portions[0]).toMatchObject({ containerName: 'Jar 1', grossGrams: 438, tareGrams: 212 });
     else expect(saved.body.portions.map((p: { grossGrams: number | null }) => p.grossGrams)).toEqual([null, null, null]);
+  });
+});
+
+describe('portion codes', () => {
+  it('draws new codes and saves once when the unique index refuses a code already in use', async () => {
+    const cook = await member();
+    const { input } = await overnightOats(cook.userId);
+    const first = await postBatch(ctx.app, cook.token, cook.profileId, input);
+    const taken = first.body.portions[0].code as string;
+    const real = portionCode.generatePortionCode;
+    let calls = 0;
+    const spy = jest.spyOn(portionCode, 'generatePortionCode').mockImplementation((randomInt) => (calls++ === 0 ? taken : real(randomInt)));
+    try {
+      const second = await postBatch(ctx.app, cook.token, cook.profileId, input);
+
+      expect(second.status).toBe(201);
+      // Five codes for the refused statement (one of them taken), five new ones for the saved one.
+      expect(calls).toBeGreaterThanOrEqual(10);
+      expect(second.body.portions.map((p: { code: string }) => p.code)).not.toContain(taken);
+      expect(await BatchModel.count({ where: { profileId: cook.profileId } })).toBe(2);
+      expect(await PortionModel.count({ where: { profileId: cook.profileId } })).toBe(10);
+    } finally {
+      spy.mockRestore();
+    }
   });
 });
 
