@@ -48,7 +48,7 @@ async function freshCodes(count: number): Promise<string[]> {
   return [...codes];
 }
 
-/** How many times a save outside a transaction draws new codes after the unique index refused one (about 1 in 1,000 saves on the bench volume). */
+/** How many times a save outside a transaction draws new codes after the unique index refused one (with 80,000 of 148 million codes in use, about 1 eight-portion save in 230). */
 const CODE_ATTEMPTS = 5;
 
 const codeTaken = (err: unknown) => err instanceof UniqueConstraintError && Object.keys(err.fields ?? {}).includes('code');
