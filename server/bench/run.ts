@@ -71,9 +71,12 @@ async function measure(baseUrl: string, s: HttpScenario, token: string): Promise
 }
 
 // Queries are counted per request: each request runs in its own async context, and a sequelize hook adds to it.
-const requestQueries = new AsyncLocalStorage<{ n: number }>();
+const requestQueries = new AsyncLocalStorage<{ n: number; sql?: string[] }>();
 const COUNT_HEADER = 'x-bench-count';
 let lastCounted = -1;
+/** BENCH_SQL=1: prints the statements of the one request each scenario's query count comes from. */
+const PRINT_SQL = process.env.BENCH_SQL === '1';
+let lastSql: string[] = [];
 
 /** Queries one request makes (requests still queued from the previous scenario do not count). */
 async function countQueries(ctx: BenchContext, s: HttpScenario): Promise<number> {
@@ -85,6 +88,7 @@ async function countQueries(ctx: BenchContext, s: HttpScenario): Promise<number>
   });
   await res.arrayBuffer();
   if (!res.ok) throw new Error(`${s.name}: ${res.status}`);
+  if (PRINT_SQL) console.log(`\n${s.name}: ${lastCounted} queries\n${lastSql.map((q) => `  ${q}`).join('\n')}`);
   return lastCounted;
 }
 
@@ -116,12 +120,13 @@ async function main() {
     const store = requestQueries.getStore();
     if (store) store.n += 1;
   });
+  if (PRINT_SQL) (sequelize as unknown as { options: { logging: unknown } }).options.logging = (sql: string) => void requestQueries.getStore()?.sql?.push(sql.replace(/^Executing \([^)]*\): /, ''));
   const volume = process.env.BENCH_VOLUME === '0' ? null : await generateVolume(sequelize, DEFAULT_VOLUME);
   if (volume) console.log(`Volume: ${Object.entries(volume.counts).map(([k, v]) => `${v.toLocaleString('en')} ${k}`).join(', ')} (${(volume.ms / 1000).toFixed(1)} s)`);
   const app = createApp(config, sequelize);
   const server = createServer((req, res) => {
-    const store = { n: 0 };
-    if (req.headers[COUNT_HEADER]) res.on('finish', () => (lastCounted = store.n));
+    const store: { n: number; sql?: string[] } = { n: 0, sql: req.headers[COUNT_HEADER] && PRINT_SQL ? [] : undefined };
+    if (req.headers[COUNT_HEADER]) res.on('finish', () => ((lastCounted = store.n), (lastSql = store.sql ?? [])));
     requestQueries.run(store, () => app(req, res));
   });
   await new Promise<void>((resolve) => server.listen(0, '127.0.0.1', resolve));

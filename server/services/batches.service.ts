@@ -1,20 +1,22 @@
 import { randomInt } from 'node:crypto';
-import { literal, Op, type Transaction } from 'sequelize';
-import { carbUnderstated, computeBatch, gramsLeftToSplit, netGrams, splitBatch, weighingDifference, yieldFactor, type SplitShare } from '../../shared/compute/batch';
+import { literal, Op, QueryTypes, UniqueConstraintError } from 'sequelize';
+import { carbUnderstated, computeBatch, gramsLeftToSplit, netGrams, splitBatch, weighingDifference, yieldFactor } from '../../shared/compute/batch';
 import { carbInBasis, type Nutrients } from '../../shared/compute/nutrients';
 import { generatePortionCode } from '../../shared/compute/portion-code';
 import { batchContainsRice, defaultUseBy } from '../../shared/compute/use-by';
 import type { BatchDetail, BatchIngredient, BatchSummary, CreateBatchParsed, UpdateBatchInput } from '../../shared/schemas/batch';
+import type { Food } from '../../shared/schemas/food';
 import type { PortionStatus } from '../../shared/schemas/portion';
 import type { CarbBasis, CarbUnit } from '../../shared/schemas/units';
 import { AppError, type FieldErrors } from '../errors';
+import { currentTransaction } from '../lib/transaction-context';
+import { together } from '../lib/together';
 import { BatchIngredientModel, BatchModel, FoodModel, PortionModel, RecipeIngredientModel, UserModel } from '../models';
-import { findContainer } from './containers.service';
-import { getUsableFoods, loadFoods, toFood } from './foods.service';
+import { loadFoods, toFood } from './foods.service';
 import { fillPlannedCook } from './plan.service';
 import { carbOf, toPortion } from './portions.service';
 import { profileUnits } from './profiles.service';
-import { findViewableRecipe } from './recipes.service';
+import { findViewableRecipeRow } from './recipes.service';
 
 type Units = { basis: CarbBasis; unit: CarbUnit };
 
@@ -26,17 +28,30 @@ async function unitsOf(profileId: number): Promise<Units> {
   return { basis: p.carbBasis, unit: p.carbUnit };
 }
 
+/** `count` distinct new portion codes, not yet checked against the table. */
+function newCodes(count: number): string[] {
+  const codes = new Set<string>();
+  while (codes.size < count) codes.add(generatePortionCode(randomInt));
+  return [...codes];
+}
+
 /** New portion codes that are not in use yet (checked against the table; the unique index is the last word). */
-async function freshCodes(count: number, transaction: Transaction): Promise<string[]> {
+async function freshCodes(count: number): Promise<string[]> {
+  const sequelize = PortionModel.sequelize!;
   const codes = new Set<string>();
   while (codes.size < count) {
-    const wanted = Array.from({ length: count - codes.size }, () => generatePortionCode(randomInt));
-    const taken = await PortionModel.findAll({ where: { code: { [Op.in]: wanted } }, attributes: ['code'], transaction });
+    const wanted = newCodes(count - codes.size).filter((code) => !codes.has(code));
+    const taken = await sequelize.query<{ code: string }>('SELECT code FROM portions WHERE code IN (:wanted)', { replacements: { wanted }, type: QueryTypes.SELECT });
     const takenSet = new Set(taken.map((p) => p.code));
     for (const code of wanted) if (!takenSet.has(code)) codes.add(code);
   }
   return [...codes];
 }
+
+/** How many times a save outside a transaction draws new codes after the unique index refused one (with 80,000 of 148 million codes in use, about 1 eight-portion save in 230). */
+const CODE_ATTEMPTS = 5;
+
+const codeTaken = (err: unknown) => err instanceof UniqueConstraintError && Object.keys(err.fields ?? {}).includes('code');
 
 function batchNumbers(batch: BatchModel, units: Units) {
   const understated = carbUnderstated(batch.totals, batch.incomplete, units.basis);
@@ -94,6 +109,11 @@ export async function getBatch(profileId: number, id: number): Promise<BatchDeta
     unitsOf(profileId),
   ]);
   if (!batch) throw AppError.notFound('batch');
+  return toDetail(batch, ingredients, portions, units);
+}
+
+/** A batch row (with `cookedBy` as id and name), its lines and its portions, in position order, as the batch page answers them. */
+function toDetail(batch: BatchModel, ingredients: BatchIngredientModel[], portions: PortionModel[], units: Units): BatchDetail {
   return {
     ...toSummary(batch, portions, units),
     scaleFactor: batch.scaleFactor,
@@ -151,10 +171,8 @@ type Snapshot = { foodId: number; name: string; source: string; per100g: Nutrien
  * Loads every food the batch names (used and swapped-from): foods the cook may use, and the recipe's own foods
  * (seeing a recipe lets you see, and so cook, its foods, as the recipe page does). Unknown ids → 400 per line.
  */
-async function snapshotFoods(input: CreateBatchParsed, userId: number, recipeId: number): Promise<Map<number, Snapshot>> {
-  const ids = input.ingredients.flatMap((l) => [l.foodId, ...(l.swappedFromFoodId ? [l.swappedFromFoodId] : [])]);
-  const foods = await loadFoods(ids, { userId, measures: false });
-  const missing = ids.filter((id) => !foods.has(id));
+async function snapshotFoods(input: CreateBatchParsed, foods: Map<number, Food>, recipeId: number): Promise<Map<number, Snapshot>> {
+  const missing = foodIdsOf(input).filter((id) => !foods.has(id));
   if (missing.length) {
     const inRecipe = await RecipeIngredientModel.findAll({ where: { recipeId, foodId: { [Op.in]: missing } }, attributes: ['foodId'] });
     const rows = inRecipe.length ? await FoodModel.findAll({ where: { id: { [Op.in]: inRecipe.map((l) => l.foodId) } } }) : [];
@@ -171,109 +189,152 @@ async function snapshotFoods(input: CreateBatchParsed, userId: number, recipeId:
   return out;
 }
 
+const foodIdsOf = (input: CreateBatchParsed) => input.ingredients.flatMap((l) => [l.foodId, ...(l.swappedFromFoodId ? [l.swappedFromFoodId] : [])]);
+
+type Container = { id: number; name: string };
+
+/** The containers the cook weighed with (the pot and each weighed portion's), each on this profile or a 400 naming its field. */
+async function containersOf(profileId: number, input: CreateBatchParsed): Promise<{ pot: Container | null; portions: (Container | null)[] }> {
+  const wanted: [string, number | null | undefined][] = [
+    ['cookedWeight.containerId', input.cookedWeight.containerId],
+    ...(input.split.mode === 'weighed' ? input.split.portions.map((w, i): [string, number | null | undefined] => [`split.portions.${i}.containerId`, w.containerId]) : []),
+  ];
+  const ids = [...new Set(wanted.map(([, id]) => id).filter((id): id is number => Boolean(id)))];
+  const rows = ids.length
+    ? await BatchModel.sequelize!.query<Container>('SELECT id, name FROM containers WHERE profile_id = :profileId AND id IN (:ids)', { replacements: { profileId, ids }, type: QueryTypes.SELECT })
+    : [];
+  const byId = new Map(rows.map((r) => [r.id, r]));
+  const found = wanted.map(([field, id]) => {
+    if (!id) return null;
+    const row = byId.get(id);
+    if (!row) throw AppError.validation({ [field]: ['That container is not saved on this profile.'] });
+    return row;
+  });
+  return { pot: found[0], portions: found.slice(1) };
+}
+
+// The saved batch, its lines and its portions in one statement, answered as the batch page reads them (plain rows).
+const BATCH_COLUMNS = `id, profile_id AS "profileId", recipe_id AS "recipeId", recipe_title AS "recipeTitle", scale_factor AS "scaleFactor",
+  cooked_by_user_id AS "cookedByUserId", cooked_on AS "cookedOn", storage, use_by AS "useBy", use_by_source AS "useBySource",
+  food_safety_region AS "foodSafetyRegion", use_by_note AS "useByNote", raw_grams AS "rawGrams", cooked_gross_grams AS "cookedGrossGrams",
+  pot_tare_grams AS "potTareGrams", pot_container_id AS "potContainerId", pot_name AS "potName", cooked_grams AS "cookedGrams",
+  split_mode AS "splitMode", totals, per100g, incomplete, note, created_at AS "createdAt", updated_at AS "updatedAt"`;
+const INSERT_BATCH = `WITH b AS (
+  INSERT INTO batches (profile_id, recipe_id, recipe_title, scale_factor, cooked_by_user_id, cooked_on, storage, use_by, use_by_source,
+    food_safety_region, use_by_note, raw_grams, cooked_gross_grams, pot_tare_grams, pot_container_id, pot_name, cooked_grams, split_mode,
+    totals, per100g, incomplete, note, created_at, updated_at)
+  VALUES (:profileId, :recipeId, :recipeTitle, :scaleFactor, :cookedByUserId, :cookedOn, :storage, :useBy, :useBySource,
+    :foodSafetyRegion, :useByNote, :rawGrams, :cookedGrossGrams, :potTareGrams, :potContainerId, :potName, :cookedGrams, :splitMode,
+    :totals, :per100g, ARRAY(SELECT jsonb_array_elements_text(CAST(:incomplete AS jsonb))), :note, :now, :now)
+  RETURNING ${BATCH_COLUMNS}
+), i AS (
+  INSERT INTO batch_ingredients (batch_id, position, food_id, food_name, food_source, per100g, planned_grams, actual_grams, omitted, swapped_from_food_id, swapped_from_name)
+  SELECT b.id, x.position::int, x.food_id::int, x.food_name::text, x.food_source::text, x.per100g::jsonb, x.planned_grams::float8,
+      x.actual_grams::float8, x.omitted::boolean, x.swapped_from_food_id::int, x.swapped_from_name::text
+    FROM b, (VALUES :ingredients) AS x(position, food_id, food_name, food_source, per100g, planned_grams, actual_grams, omitted, swapped_from_food_id, swapped_from_name)
+  RETURNING id, batch_id AS "batchId", position, food_id AS "foodId", food_name AS "foodName", food_source AS "foodSource", per100g,
+    planned_grams AS "plannedGrams", actual_grams AS "actualGrams", omitted, swapped_from_food_id AS "swappedFromFoodId", swapped_from_name AS "swappedFromName"
+), p AS (
+  INSERT INTO portions (batch_id, profile_id, code, position, container_id, container_name, gross_grams, tare_grams, net_grams, carb_available, carb_total, created_at, updated_at)
+  SELECT b.id, b."profileId", x.code::text, x.position::int, x.container_id::int, x.container_name::text, x.gross_grams::float8, x.tare_grams::float8,
+      x.net_grams::float8, x.carb_available::float8, x.carb_total::float8, CAST(:now AS timestamptz), CAST(:now AS timestamptz)
+    FROM b, (VALUES :portions) AS x(code, position, container_id, container_name, gross_grams, tare_grams, net_grams, carb_available, carb_total)
+  RETURNING id, batch_id AS "batchId", profile_id AS "profileId", code, position, container_id AS "containerId", container_name AS "containerName",
+    gross_grams AS "grossGrams", tare_grams AS "tareGrams", net_grams AS "netGrams", carb_available AS "carbAvailable", carb_total AS "carbTotal",
+    status, status_changed_at AS "statusChangedAt", status_changed_by_user_id AS "statusChangedByUserId"
+)
+SELECT b.*, u.display_name AS "cookedByName",
+  (SELECT json_agg(i ORDER BY i.position) FROM i) AS "ingredientRows",
+  (SELECT json_agg(p ORDER BY p.position) FROM p) AS "portionRows"
+FROM b LEFT JOIN users u ON u.id = b."cookedByUserId"`;
+
+type SavedRow = BatchModel & { cookedByName: string | null; ingredientRows: BatchIngredientModel[]; portionRows: PortionModel[] };
+
 /**
- * Saves a whole cook at once, in one transaction: the weighed lines as a snapshot, the cooked weight, the
- * batch arithmetic, the use-by date (default from the food-safety rule unless given) and the portions with codes.
+ * Saves a whole cook at once: the weighed lines as a snapshot, the cooked weight, the batch arithmetic, the use-by
+ * date (default from the food-safety rule unless given) and the portions with codes. The batch, its lines and its
+ * portions are one INSERT statement (all or nothing), answered from what it returns; filling a planned cook joins
+ * it in one transaction. Everything it checks is read before, together.
  */
 export async function createBatch(profileId: number, userId: number, input: CreateBatchParsed): Promise<BatchDetail> {
-  const recipe = await findViewableRecipe(input.recipeId, userId).catch((err: unknown) => {
-    if (err instanceof AppError && err.status === 404) throw AppError.validation({ recipeId: ['That recipe was not found.'] });
-    throw err;
-  });
-  const foods = await snapshotFoods(input, userId, recipe.id);
+  const portionCount = input.split.mode === 'equal' ? input.split.count : input.split.portions.length;
+  // Inside a transaction a refused statement would abort it, so codes are checked first; outside one, the statement
+  // is all or nothing and is simply tried again with new codes if the unique index refuses one.
+  const inTransaction = Boolean(currentTransaction() || input.plannedCookId);
+  const [recipe, usable, checkedCodes, units] = await together(currentTransaction(), [
+    () => findViewableRecipeRow(input.recipeId, userId),
+    () => loadFoods(foodIdsOf(input), { userId, measures: false }),
+    () => (inTransaction ? freshCodes(portionCount) : Promise.resolve(null)),
+    () => unitsOf(profileId),
+  ] as const);
+  if (!recipe) throw AppError.validation({ recipeId: ['That recipe was not found.'] });
+  const foods = await snapshotFoods(input, usable, recipe.id);
   const cookedGrams = netGrams(input.cookedWeight.grossGrams, input.cookedWeight.tareGrams);
   const lines = input.ingredients.map((l) => ({ per100g: foods.get(l.foodId)!.per100g, actualGrams: l.actualGrams ?? 0, omitted: l.omitted }));
   const batch = computeBatch(lines, cookedGrams, 'available');
   const shares = splitBatch(batch, input.split);
   const containsRice = batchContainsRice(input.ingredients.map((l) => ({ foodName: foods.get(l.foodId)!.name, omitted: l.omitted })));
   const rule = defaultUseBy(input.cookedOn, input.storage, input.region, containsRice);
+  const containers = await containersOf(profileId, input);
+  const split = input.split;
+  const portions = (codes: string[]) => shares.map((share, i) => {
+    const container = containers.portions[i] ?? null;
+    const weighed = split.mode === 'weighed' ? split.portions[i] : null;
+    const { containerName, grossGrams, tareGrams } = weighed ? { containerName: container?.name ?? null, grossGrams: weighed.grossGrams, tareGrams: weighed.tareGrams } : noContainer;
+    return [codes[i], i + 1, container?.id ?? null, containerName, grossGrams, tareGrams, share.netGrams, share.carbAvailable, share.carbTotal];
+  });
+  const replacements = {
+    profileId,
+    recipeId: recipe.id,
+    recipeTitle: recipe.title,
+    scaleFactor: input.scaleFactor,
+    cookedByUserId: userId,
+    cookedOn: input.cookedOn,
+    storage: input.storage,
+    useBy: input.useBy ?? rule.useBy,
+    useBySource: input.useBy && input.useBy !== rule.useBy ? 'Set by the cook' : rule.source,
+    foodSafetyRegion: input.region,
+    useByNote: rule.note,
+    rawGrams: batch.rawGrams,
+    cookedGrossGrams: input.cookedWeight.grossGrams,
+    potTareGrams: input.cookedWeight.tareGrams,
+    potContainerId: containers.pot?.id ?? null,
+    potName: containers.pot?.name ?? null,
+    cookedGrams,
+    splitMode: input.split.mode,
+    totals: JSON.stringify(batch.totals),
+    per100g: JSON.stringify(batch.per100gCooked),
+    incomplete: JSON.stringify(batch.incomplete),
+    note: input.note,
+    now: new Date(),
+    ingredients: input.ingredients.map((l, i) => {
+      const food = foods.get(l.foodId)!;
+      const from = l.swappedFromFoodId ? foods.get(l.swappedFromFoodId)! : null;
+      return [i + 1, food.foodId, food.name, food.source, JSON.stringify(food.per100g), l.plannedGrams, l.omitted ? null : l.actualGrams, l.omitted, from?.foodId ?? null, from?.name ?? null];
+    }),
+  };
   const sequelize = BatchModel.sequelize!;
-
-  // The answer is read inside the transaction: once committed, the save is answered from what is in hand.
-  return sequelize.transaction(async (transaction) => {
-    const pot = input.cookedWeight.containerId ? await findContainerOr400(profileId, input.cookedWeight.containerId, 'cookedWeight.containerId', transaction) : null;
-    const row = await BatchModel.create(
-      {
-        profileId,
-        recipeId: recipe.id,
-        recipeTitle: recipe.title,
-        scaleFactor: input.scaleFactor,
-        cookedByUserId: userId,
-        cookedOn: input.cookedOn,
-        storage: input.storage,
-        useBy: input.useBy ?? rule.useBy,
-        useBySource: input.useBy && input.useBy !== rule.useBy ? 'Set by the cook' : rule.source,
-        foodSafetyRegion: input.region,
-        useByNote: rule.note,
-        rawGrams: batch.rawGrams,
-        cookedGrossGrams: input.cookedWeight.grossGrams,
-        potTareGrams: input.cookedWeight.tareGrams,
-        potContainerId: pot?.id ?? null,
-        potName: pot?.name ?? null,
-        cookedGrams,
-        splitMode: input.split.mode,
-        totals: batch.totals,
-        per100g: batch.per100gCooked,
-        incomplete: batch.incomplete,
-        note: input.note,
-      },
-      { transaction },
-    );
-    await BatchIngredientModel.bulkCreate(
-      input.ingredients.map((l, i) => {
-        const food = foods.get(l.foodId)!;
-        const from = l.swappedFromFoodId ? foods.get(l.swappedFromFoodId)! : null;
-        return {
-          batchId: row.id,
-          position: i + 1,
-          foodId: food.foodId,
-          foodName: food.name,
-          foodSource: food.source,
-          per100g: food.per100g,
-          plannedGrams: l.plannedGrams,
-          actualGrams: l.omitted ? null : l.actualGrams,
-          omitted: l.omitted,
-          swappedFromFoodId: from?.foodId ?? null,
-          swappedFromName: from?.name ?? null,
-        };
-      }),
-      { transaction },
-    );
-    const split = input.split;
-    const portions =
-      split.mode === 'equal'
-        ? shares.map((share) => ({ ...noContainer, ...toPortionCarb(share) }))
-        : await inSequence(
-            split.portions.map((w, i) => async () => {
-              const container = w.containerId ? await findContainerOr400(profileId, w.containerId, `split.portions.${i}.containerId`, transaction) : null;
-              return {
-                containerId: container?.id ?? null,
-                containerName: container?.name ?? null,
-                grossGrams: w.grossGrams,
-                tareGrams: w.tareGrams,
-                ...toPortionCarb(shares[i]),
-              };
-            }),
-          );
-    const codes = await freshCodes(portions.length, transaction);
-    await PortionModel.bulkCreate(
-      portions.map((p, i) => ({ ...p, batchId: row.id, profileId, code: codes[i], position: i + 1 })),
-      { transaction },
-    );
-    if (input.plannedCookId) await fillPlannedCook(profileId, input.plannedCookId, row.id, transaction);
-    return getBatch(profileId, row.id);
-  });
-}
-
-async function findContainerOr400(profileId: number, id: number, field: string, transaction: Transaction) {
-  return findContainer(profileId, id, transaction).catch(() => {
-    throw AppError.validation({ [field]: ['That container is not saved on this profile.'] });
-  });
-}
-
-/** The stored columns of one share of the split. */
-function toPortionCarb(share: SplitShare) {
-  return { netGrams: share.netGrams, carbAvailable: share.carbAvailable, carbTotal: share.carbTotal };
+  const save = async (): Promise<SavedRow> => {
+    for (let attempt = 1; ; attempt += 1) {
+      const codes = checkedCodes ?? newCodes(portionCount);
+      try {
+        const [row] = await sequelize.query<SavedRow>(INSERT_BATCH, { replacements: { ...replacements, portions: portions(codes) }, type: QueryTypes.SELECT });
+        return row;
+      } catch (err) {
+        if (checkedCodes || attempt >= CODE_ATTEMPTS || !codeTaken(err)) throw err;
+      }
+    }
+  };
+  const row = input.plannedCookId
+    ? await sequelize.transaction(async (transaction) => {
+        const saved = await save();
+        await fillPlannedCook(profileId, input.plannedCookId!, saved.id, transaction);
+        return saved;
+      })
+    : await save();
+  const { cookedByName, ingredientRows, portionRows, ...saved } = row;
+  const detail = { ...saved, cookedBy: cookedByName == null ? null : { id: userId, displayName: cookedByName } } as BatchModel;
+  return toDetail(detail, ingredientRows, portionRows, units);
 }
 
 /** Moves a batch between fridge and freezer or corrects its use-by date (default follows the new storage, rice rule included). */
@@ -295,11 +356,4 @@ export async function updateBatch(profileId: number, id: number, input: UpdateBa
   }
   await batch.save();
   return getBatch(profileId, id);
-}
-
-/** Runs async steps one after another (a transaction's connection runs one query at a time). */
-async function inSequence<T>(steps: (() => Promise<T>)[]): Promise<T[]> {
-  const out: T[] = [];
-  for (const step of steps) out.push(await step());
-  return out;
 }

@@ -14,7 +14,9 @@ import { findPortionForUser } from './portions.service';
 import { loadProfile } from './profiles.service';
 
 type NewEntry = Partial<Omit<LogEntryModel['_creationAttributes'], 'profileId' | 'kind' | 'occurredAt'>>;
-type Saving = { profile: ProfileModel; userId: number; groupKey: string; transaction: Transaction; now: Date; kinds?: Map<string, Promise<number | null>> };
+type SavingProfile = Pick<ProfileModel, 'id' | 'timeZone' | 'carbBasis' | 'glucoseUnit'>;
+type Pending = { kind: LogEntryModel['kind']; occurredAt: Date; values: NewEntry };
+type Saving = { profile: SavingProfile; userId: number; groupKey: string; transaction?: Transaction; now: Date };
 
 /** Entries may be logged up to this long ahead of now (clock drift between devices), no more. */
 const FUTURE_SLACK_MS = 5 * 60_000;
@@ -35,18 +37,75 @@ async function dayKindFor(profileId: number, localDate: string, transaction?: Tr
   return fallback?.id ?? null;
 }
 
-/** Writes one entry with its local date and minute from the profile's time zone and the day kind of that date. */
-async function insertEntry(s: Saving, kind: LogEntryModel['kind'], occurredAt: Date, values: NewEntry): Promise<LogEntryModel> {
+/** One entry to write (written with the others of its save by insertEntries). */
+function entry(kind: LogEntryModel['kind'], occurredAt: Date, values: NewEntry): Pending {
+  return { kind, occurredAt, values };
+}
+
+// The columns an entry may set, in the order of the VALUES rows below.
+const ENTRY_COLUMNS = [
+  'title', 'mealSource', 'portionId', 'recipeId', 'foodId', 'grams', 'plateTareGrams', 'carbAvailableG', 'carbTotalG', 'planMealId',
+  'glucoseMmol', 'readingSource', 'units', 'plannedUnits', 'suggestion', 'intensity', 'durationMinutes', 'note',
+] as const;
+
+// Every entry of a save in one statement, each with the day kind of its local date (the one set for the date, else the
+// profile's default, as dayKindFor reads it), answered with what toLogEntry shows (LOG_ENTRY_INCLUDE's names and code).
+const INSERT_ENTRIES = `WITH e AS (
+  INSERT INTO log_entries (profile_id, kind, occurred_at, local_date, local_minute, time_zone, day_kind_id, group_key, entered_by_user_id,
+    title, meal_source, portion_id, recipe_id, food_id, grams, plate_tare_grams, carb_available_g, carb_total_g, plan_meal_id,
+    glucose_mmol, reading_source, units, planned_units, suggestion, intensity, duration_minutes, note, created_at, updated_at)
+  SELECT :profileId, CAST(x.kind AS enum_log_entries_kind), CAST(x.occurred_at AS timestamptz), CAST(x.local_date AS date), x.local_minute::int, :timeZone,
+    COALESCE((SELECT d.day_kind_id FROM day_kind_days d WHERE d.profile_id = :profileId AND d.date = CAST(x.local_date AS date) LIMIT 1),
+             (SELECT k.id FROM day_kinds k WHERE k.profile_id = :profileId AND k.is_default LIMIT 1)),
+    CAST(:groupKey AS uuid), :userId,
+    x.title::text, CAST(x.meal_source AS enum_log_entries_meal_source), x.portion_id::int, x.recipe_id::int, x.food_id::int, x.grams::float8,
+    x.plate_tare_grams::float8, x.carb_available_g::float8, x.carb_total_g::float8, x.plan_meal_id::int, x.glucose_mmol::float8,
+    CAST(x.reading_source AS enum_log_entries_reading_source), x.units::float8, x.planned_units::float8, CAST(x.suggestion AS jsonb), x.intensity::text,
+    x.duration_minutes::int, x.note::text, CAST(:now AS timestamptz), CAST(:now AS timestamptz)
+  FROM (VALUES :rows) AS x(kind, occurred_at, local_date, local_minute, title, meal_source, portion_id, recipe_id, food_id, grams, plate_tare_grams,
+    carb_available_g, carb_total_g, plan_meal_id, glucose_mmol, reading_source, units, planned_units, suggestion, intensity, duration_minutes, note)
+  RETURNING id, profile_id AS "profileId", kind, occurred_at AS "occurredAt", local_date AS "localDate", local_minute AS "localMinute",
+    time_zone AS "timeZone", day_kind_id AS "dayKindId", group_key AS "groupKey", entered_by_user_id AS "enteredByUserId", title,
+    meal_source AS "mealSource", portion_id AS "portionId", recipe_id AS "recipeId", food_id AS "foodId", grams, plate_tare_grams AS "plateTareGrams",
+    carb_available_g AS "carbAvailableG", carb_total_g AS "carbTotalG", plan_meal_id AS "planMealId", glucose_mmol AS "glucoseMmol",
+    reading_source AS "readingSource", units, planned_units AS "plannedUnits", suggestion, intensity, duration_minutes AS "durationMinutes", note,
+    deleted_at AS "deletedAt", created_at AS "createdAt", updated_at AS "updatedAt"
+)
+SELECT e.*,
+    -- One primary-key lookup per entry (joins made the planner hash the whole portions table).
+    (SELECT u.display_name FROM users u WHERE u.id = e."enteredByUserId") AS "enteredByName",
+    (SELECT k.name FROM day_kinds k WHERE k.id = e."dayKindId") AS "dayKindName",
+    (SELECT p.code FROM portions p WHERE p.id = e."portionId") AS "portionCode"
+  FROM e
+ ORDER BY e."occurredAt" DESC, e.id DESC`;
+
+type SavedEntry = LogEntryModel & { enteredByName: string | null; dayKindName: string | null; portionCode: string | null };
+
+/**
+ * Writes the entries of one save in one INSERT statement (all or nothing), each with its local date and minute from
+ * the profile's time zone, and answers them as viewEntries does, newest first (new entries have no edits yet).
+ */
+async function insertEntries(s: Saving, pending: Pending[]): Promise<LogEntry[]> {
   const zone = s.profile.timeZone;
-  const { localDate, localMinute } = toLocalTime(occurredAt, zone);
-  // Entries saved together mostly share a local date: look its day kind up once.
-  s.kinds ??= new Map();
-  if (!s.kinds.has(localDate)) s.kinds.set(localDate, dayKindFor(s.profile.id, localDate, s.transaction));
-  const dayKindId = await s.kinds.get(localDate)!;
-  return LogEntryModel.create(
-    { ...values, profileId: s.profile.id, kind, occurredAt, localDate, localMinute, timeZone: zone, dayKindId, groupKey: s.groupKey, enteredByUserId: s.userId },
-    { transaction: s.transaction },
-  );
+  const rows = pending.map(({ kind, occurredAt, values }) => {
+    const { localDate, localMinute } = toLocalTime(occurredAt, zone);
+    const v = values as Record<string, unknown>;
+    return [kind, occurredAt, localDate, localMinute, ...ENTRY_COLUMNS.map((c) => (c === 'suggestion' && v[c] != null ? JSON.stringify(v[c]) : (v[c] ?? null)))];
+  });
+  const saved = await LogEntryModel.sequelize!.query<SavedEntry>(INSERT_ENTRIES, {
+    replacements: { profileId: s.profile.id, timeZone: zone, groupKey: s.groupKey, userId: s.userId, now: new Date(), rows },
+    type: QueryTypes.SELECT,
+    transaction: s.transaction,
+  });
+  return saved.map(({ enteredByName, dayKindName, portionCode, ...row }) => {
+    const view = {
+      ...row,
+      enteredBy: row.enteredByUserId != null && enteredByName != null ? { id: row.enteredByUserId, displayName: enteredByName } : null,
+      dayKind: row.dayKindId != null && dayKindName != null ? { id: row.dayKindId, name: dayKindName } : null,
+      portion: row.portionId != null && portionCode != null ? { id: row.portionId, code: portionCode } : null,
+    };
+    return toLogEntry(view as unknown as LogEntryModel, s.profile.glucoseUnit, false);
+  });
 }
 
 /**
@@ -110,16 +169,30 @@ export async function viewEntries(ids: number[], profile: ProfileModel): Promise
   return rows.map((r) => toLogEntry(r, profile.glucoseUnit, edited.has(r.id)));
 }
 
-async function saveGroup(profileId: number, userId: number, now: Date, write: (s: Saving) => Promise<LogEntryModel[]>): Promise<LogGroup> {
+/** A profile's time zone, units and basis for a save (plain, not locked: two devices may save side by side), or 404. */
+async function savingProfile(profileId: number): Promise<SavingProfile> {
+  const [row] = await LogEntryModel.sequelize!.query<SavingProfile>(
+    'SELECT id, time_zone AS "timeZone", carb_basis AS "carbBasis", glucose_unit AS "glucoseUnit" FROM profiles WHERE id = :profileId',
+    { replacements: { profileId }, type: QueryTypes.SELECT },
+  );
+  if (!row) throw AppError.notFound('profile');
+  return row;
+}
+
+/**
+ * Saves a group of entries: `collect` checks the input and names the entries (reads only, unless it eats a portion),
+ * then they are written in one statement. Eating a portion is a second write, so that save runs in one transaction.
+ */
+async function saveGroup(profileId: number, userId: number, now: Date, eatsPortion: boolean, collect: (s: Saving) => Promise<Pending[]>): Promise<LogGroup> {
   const groupKey = randomUUID();
   try {
-    const { profile, ids } = await LogEntryModel.sequelize!.transaction(async (transaction) => {
-      // Read, not locked: entries of one profile may be saved side by side (two devices, a carer and the person).
-      const p = await loadProfile(profileId);
-      const rows = await write({ profile: p, userId, groupKey, transaction, now });
-      return { profile: p, ids: rows.map((r) => r.id) };
-    });
-    return { groupKey, entries: await viewEntries(ids, profile) };
+    const profile = await savingProfile(profileId);
+    const save = async (transaction?: Transaction) => {
+      const s: Saving = { profile, userId, groupKey, transaction, now };
+      return insertEntries(s, await collect(s));
+    };
+    const entries = eatsPortion ? await LogEntryModel.sequelize!.transaction((transaction) => save(transaction)) : await save();
+    return { groupKey, entries };
   } catch (err) {
     // The partial unique index is the backstop: a portion is eaten by at most one live meal entry.
     if (err instanceof UniqueConstraintError) throw AppError.conflict('This portion has already been logged as eaten. Nothing was saved.');
@@ -132,21 +205,20 @@ async function saveGroup(profileId: number, userId: number, now: Date, write: (s
  * the doses actually taken with the suggestion shown. All or nothing; a portion already eaten gives 409.
  */
 export async function logMeal(profileId: number, userId: number, input: LogMealInput, now: Date = new Date()): Promise<LogGroup> {
-  return saveGroup(profileId, userId, now, async (s) => {
+  return saveGroup(profileId, userId, now, input.meal.source === 'portion', async (s) => {
     const mealAt = instant(input.occurredAt, now);
-    if (input.planMealId != null && !(await PlanMealModel.findOne({ where: { id: input.planMealId, profileId }, transaction: s.transaction }))) {
+    if (input.planMealId != null && !(await PlanMealModel.findOne({ where: { id: input.planMealId, profileId }, attributes: ['id'], raw: true, transaction: s.transaction }))) {
       throw AppError.validation({ planMealId: ['That planned meal is not on this profile’s plan.'] });
     }
-    const meal = await insertEntry(s, 'meal', mealAt, { ...(await resolveMeal(s, input.meal)), planMealId: input.planMealId ?? null });
-    const rows = [meal];
+    const rows = [entry('meal', mealAt, { ...(await resolveMeal(s, input.meal)), planMealId: input.planMealId ?? null })];
     if (input.reading) {
       const unit = input.reading.glucoseUnit ?? s.profile.glucoseUnit;
       const mmol = readingToMmol(input.reading.glucose, unit, 'reading.glucose');
-      rows.push(await insertEntry(s, 'reading', instant(input.reading.occurredAt, now, 'reading.occurredAt'), { glucoseMmol: mmol, readingSource: 'typed' }));
+      rows.push(entry('reading', instant(input.reading.occurredAt, now, 'reading.occurredAt'), { glucoseMmol: mmol, readingSource: 'typed' }));
     }
     for (const [i, dose] of (input.doses ?? []).entries()) {
       const at = instant(dose.occurredAt, now, `doses.${i}.occurredAt`, i > 0 ? LATER_PART_MS : FUTURE_SLACK_MS);
-      rows.push(await insertEntry(s, 'rapid_dose', at, { units: dose.units, suggestion: input.suggestion ?? null }));
+      rows.push(entry('rapid_dose', at, { units: dose.units, suggestion: input.suggestion ?? null }));
     }
     return rows;
   });
@@ -154,25 +226,25 @@ export async function logMeal(profileId: number, userId: number, input: LogMealI
 
 /** Logs one entry of any kind (a meal here also marks its portion eaten, in the same transaction). */
 export async function createLogEntry(profileId: number, userId: number, input: CreateLogEntryInput, now: Date = new Date()): Promise<LogGroup> {
-  return saveGroup(profileId, userId, now, async (s) => {
+  return saveGroup(profileId, userId, now, input.kind === 'meal' && input.meal.source === 'portion', async (s) => {
     const at = instant(input.occurredAt, now);
     switch (input.kind) {
       case 'meal':
-        return [await insertEntry(s, 'meal', at, await resolveMeal(s, input.meal))];
+        return [entry('meal', at, await resolveMeal(s, input.meal))];
       case 'reading': {
         const mmol = readingToMmol(input.glucose, input.glucoseUnit ?? s.profile.glucoseUnit);
-        return [await insertEntry(s, 'reading', at, { glucoseMmol: mmol, readingSource: 'typed' })];
+        return [entry('reading', at, { glucoseMmol: mmol, readingSource: 'typed' })];
       }
       case 'rapid_dose':
-        return [await insertEntry(s, 'rapid_dose', at, { units: input.units, suggestion: input.suggestion ?? null, note: input.note || null })];
+        return [entry('rapid_dose', at, { units: input.units, suggestion: input.suggestion ?? null, note: input.note || null })];
       case 'long_dose': {
         const { localDate } = toLocalTime(at, s.profile.timeZone);
         const kindId = await dayKindFor(s.profile.id, localDate, s.transaction);
         const kind = kindId ? await DayKindModel.findByPk(kindId, { transaction: s.transaction }) : null;
-        return [await insertEntry(s, 'long_dose', at, { units: input.units, plannedUnits: kind?.longActingUnits ?? null, note: input.note || null })];
+        return [entry('long_dose', at, { units: input.units, plannedUnits: kind?.longActingUnits ?? null, note: input.note || null })];
       }
       case 'exercise':
-        return [await insertEntry(s, 'exercise', at, { intensity: input.intensity, durationMinutes: input.durationMinutes, note: input.note || null })];
+        return [entry('exercise', at, { intensity: input.intensity, durationMinutes: input.durationMinutes, note: input.note || null })];
     }
   });
 }

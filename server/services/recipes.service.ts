@@ -16,6 +16,8 @@ import { findProfileAccess } from './auth.service';
 import { getUsableFoods, loadFoods } from './foods.service';
 import { profileUnits } from './profiles.service';
 import { photoUrls } from './photos.service';
+import { currentTransaction } from '../lib/transaction-context';
+import { together } from '../lib/together';
 
 type Display = { basis: CarbBasis; unit: CarbUnit };
 
@@ -43,6 +45,27 @@ export async function findViewableRecipe(recipeId: number, userId: number, trans
   const recipe = await RecipeModel.findByPk(recipeId, { transaction });
   if (!recipe || !(await canViewRecipe(recipe, userId))) throw AppError.notFound('recipe');
   return recipe;
+}
+
+/**
+ * The SQL form of canViewRecipe, for statements that read a recipe and decide in the same round trip: owner, public,
+ * or shared with the user while not private. `userParam` must be a bound parameter.
+ */
+function viewableRecipeSql(alias: string, userParam: string): string {
+  return `(${alias}.owner_user_id = ${userParam} OR ${alias}.visibility = 'public' OR (${alias}.visibility <> 'private'
+    AND EXISTS (SELECT 1 FROM recipe_shares vs WHERE vs.recipe_id = ${alias}.id AND vs.user_id = ${userParam})))`;
+}
+
+/**
+ * A recipe's id and title if the user may see it, else null: canViewRecipe's rule in one plain query (for writes
+ * that only need to name the recipe, such as saving a batch).
+ */
+export async function findViewableRecipeRow(recipeId: number, userId: number): Promise<{ id: number; title: string } | null> {
+  const [row] = await RecipeModel.sequelize!.query<{ id: number; title: string }>(
+    `SELECT r.id, r.title FROM recipes r WHERE r.id = :recipeId AND ${viewableRecipeSql('r', ':userId')}`,
+    { replacements: { recipeId, userId }, type: QueryTypes.SELECT },
+  );
+  return row ?? null;
 }
 
 /** The recipe row for its owner; 404 for people who cannot see it, 403 for those who can but do not own it. */
@@ -121,14 +144,6 @@ function summarise(
   return { summary, nutrition };
 }
 
-/**
- * The SQL form of canViewRecipe, for statements that read a recipe and decide in the same round trip: owner, public,
- * or shared with the user while not private. `userParam` must be a bound parameter.
- */
-function viewableRecipeSql(alias: string, userParam: string): string {
-  return `(${alias}.owner_user_id = ${userParam} OR ${alias}.visibility = 'public' OR (${alias}.visibility <> 'private'
-    AND EXISTS (SELECT 1 FROM recipe_shares vs WHERE vs.recipe_id = ${alias}.id AND vs.user_id = ${userParam})))`;
-}
 
 type RecipePageRow = Pick<
   RecipeModel,
@@ -210,7 +225,23 @@ export async function getRecipeForUser(
       : { factor: view.factor ?? 1, portions: recipe.defaultPortions };
   const cookedAt = recipe.lastCookedAt ? new Date(recipe.lastCookedAt).toISOString() : null;
   const owner = recipe.ownerName === null ? null : { displayName: recipe.ownerName };
-  const { summary, nutrition } = summarise(recipe, owner, lines, foods, display, userId, cookedAt, scale);
+  return toDetail([recipe, owner, lines, foods, display, userId, cookedAt, scale], {
+    sharedWith: isOwner
+      ? shareRows.map((s) => ({ userId: s.userId, displayName: s.displayName, email: s.email, sharedAt: new Date(s.createdAt).toISOString() }))
+      : null,
+    copiedFrom: recipe.sourceId !== null && recipe.sourceViewable ? { id: recipe.sourceId, title: recipe.sourceTitle! } : null,
+  });
+}
+
+type SummaryArgs = Required<Parameters<typeof summarise>>;
+
+/** The recipe page's answer from what is in hand (summarise's arguments, the foods in full, the scale given) and who it is shared with. */
+function toDetail(
+  parts: [SummaryArgs[0] & Pick<RecipeModel, 'methodSteps'>, SummaryArgs[1], SummaryArgs[2], ReadonlyMap<number, Food>, SummaryArgs[4], SummaryArgs[5], SummaryArgs[6], SummaryArgs[7]],
+  links: Pick<RecipeDetail, 'sharedWith' | 'copiedFrom'>,
+): RecipeDetail {
+  const [recipe, , lines, foods, , , , scale] = parts;
+  const { summary, nutrition } = summarise(...parts);
   return {
     ...summary,
     methodSteps: recipe.methodSteps,
@@ -225,10 +256,8 @@ export async function getRecipeForUser(
     })),
     nutrition,
     scale,
-    sharedWith: isOwner
-      ? shareRows.map((s) => ({ userId: s.userId, displayName: s.displayName, email: s.email, sharedAt: new Date(s.createdAt).toISOString() }))
-      : null,
-    copiedFrom: recipe.sourceId !== null && recipe.sourceViewable ? { id: recipe.sourceId, title: recipe.sourceTitle! } : null,
+    sharedWith: links.sharedWith,
+    copiedFrom: links.copiedFrom,
   };
 }
 
@@ -318,6 +347,15 @@ export async function listRecipes(query: RecipeListQuery, userId: number): Promi
   return items;
 }
 
+/** A 400 naming ingredients.N.foodId for every line whose food the user may not use (and that is not already in the recipe). */
+function checkIngredientFoods(input: RecipeInputParsed['ingredients'], usable: Map<number, Food>, allowed: Set<number>): void {
+  const fieldErrors: Record<string, string[]> = {};
+  input.forEach((line, index) => {
+    if (!usable.has(line.foodId) && !allowed.has(line.foodId)) fieldErrors[`ingredients.${index}.foodId`] = ['That food was not found.'];
+  });
+  if (Object.keys(fieldErrors).length) throw AppError.validation(fieldErrors);
+}
+
 /**
  * Checks every ingredient's food (usable by the user, or already in this recipe) and writes the lines in order.
  * Unknown foods give a 400 naming ingredients.N.foodId.
@@ -326,11 +364,7 @@ async function writeIngredients(recipeId: number, input: RecipeInputParsed['ingr
   const existing = await RecipeIngredientModel.findAll({ where: { recipeId }, attributes: ['foodId'], transaction });
   const allowed = new Set(existing.map((e) => e.foodId));
   const usable = await getUsableFoods(input.map((i) => i.foodId), userId);
-  const fieldErrors: Record<string, string[]> = {};
-  input.forEach((line, index) => {
-    if (!usable.has(line.foodId) && !allowed.has(line.foodId)) fieldErrors[`ingredients.${index}.foodId`] = ['That food was not found.'];
-  });
-  if (Object.keys(fieldErrors).length) throw AppError.validation(fieldErrors);
+  checkIngredientFoods(input, usable, allowed);
   await RecipeIngredientModel.destroy({ where: { recipeId }, transaction });
   await RecipeIngredientModel.bulkCreate(
     input.map((line, position) => ({ recipeId, position, foodId: line.foodId, grams: line.grams, measureLabel: line.measureLabel, note: line.note })),
@@ -344,16 +378,49 @@ function recipeFields(input: RecipeInputParsed) {
   return { title, description, methodSteps, tags, defaultPortions, visibility };
 }
 
+// A new recipe and its lines in one statement, answered from what it returns (plain rows, no second read).
+const INSERT_RECIPE = `WITH r AS (
+  INSERT INTO recipes (owner_user_id, title, description, method_steps, tags, default_portions, visibility, created_at, updated_at)
+  VALUES (:userId, :title, :description, :methodSteps, ARRAY(SELECT jsonb_array_elements_text(CAST(:tags AS jsonb))), :defaultPortions, :visibility, :now, :now)
+  RETURNING id, owner_user_id AS "ownerUserId", title, description, method_steps AS "methodSteps", tags, default_portions AS "defaultPortions",
+    visibility, photo_large_key AS "photoLargeKey", photo_thumb_key AS "photoThumbKey", copied_from_recipe_id AS "copiedFromRecipeId",
+    created_at AS "createdAt", updated_at AS "updatedAt"
+), i AS (
+  INSERT INTO recipe_ingredients (recipe_id, position, food_id, grams, measure_label, note)
+  SELECT r.id, x.position::int, x.food_id::int, x.grams::float8, x.measure_label::text, x.note::text
+    FROM r, (VALUES :lines) AS x(position, food_id, grams, measure_label, note)
+  RETURNING id, recipe_id AS "recipeId", position, food_id AS "foodId", grams, measure_label AS "measureLabel", note
+)
+SELECT r.*, u.display_name AS "ownerName", (SELECT json_agg(i ORDER BY i.position) FROM i) AS "lineRows"
+  FROM r LEFT JOIN users u ON u.id = r."ownerUserId"`;
+
 /**
- * Creates a recipe with its ingredients in one transaction; returns the detail, read inside the same transaction
- * so a failure after the commit can never turn a saved recipe into an error (and a retried duplicate).
+ * Creates a recipe with its ingredients: the foods and the answer's units are read first (together), then the recipe
+ * and its lines are one INSERT statement (all or nothing) and the answer is built from what it returns, so a failure
+ * after the save can never turn a saved recipe into an error (and a retried duplicate). A new recipe has no batches,
+ * shares or source yet.
  */
 export async function createRecipe(input: RecipeInputParsed, userId: number): Promise<RecipeDetail> {
-  return RecipeModel.sequelize!.transaction(async (transaction) => {
-    const recipe = await RecipeModel.create({ ownerUserId: userId, ...recipeFields(input) }, { transaction });
-    await writeIngredients(recipe.id, input.ingredients, userId, transaction);
-    return getRecipeForUser(recipe.id, userId, {}, transaction);
+  const [usable, display] = await together(currentTransaction(), [
+    () => getUsableFoods(input.ingredients.map((i) => i.foodId), userId),
+    () => resolveDisplay(userId),
+  ] as const);
+  checkIngredientFoods(input.ingredients, usable, new Set());
+  const [row] = await RecipeModel.sequelize!.query<RecipeModel & { ownerName: string | null; lineRows: Line[] }>(INSERT_RECIPE, {
+    replacements: {
+      userId,
+      ...recipeFields(input),
+      methodSteps: JSON.stringify(input.methodSteps),
+      tags: JSON.stringify(input.tags),
+      now: new Date(),
+      lines: input.ingredients.map((line, position) => [position, line.foodId, line.grams, line.measureLabel ?? null, line.note ?? null]),
+    },
+    type: QueryTypes.SELECT,
   });
+  const { ownerName, lineRows, ...recipe } = row;
+  const owner = ownerName == null ? null : { displayName: ownerName };
+  const scale = { factor: 1, portions: recipe.defaultPortions };
+  return toDetail([recipe as RecipeModel, owner, lineRows, usable, display, userId, null, scale], { sharedWith: [], copiedFrom: null });
 }
 
 /**
@@ -380,15 +447,4 @@ export async function deleteRecipe(recipeId: number, userId: number): Promise<st
     await recipe.destroy({ transaction });
     return keys;
   });
-}
-
-type Thunks = readonly (() => Promise<unknown>)[];
-type Results<T extends Thunks> = { [K in keyof T]: Awaited<ReturnType<T[K]>> };
-
-/** Runs independent reads together, or one after another on a transaction's single connection. */
-async function together<T extends Thunks>(transaction: Transaction | undefined, steps: T): Promise<Results<T>> {
-  if (!transaction) return (await Promise.all(steps.map((step) => step()))) as Results<T>;
-  const out: unknown[] = [];
-  for (const step of steps) out.push(await step());
-  return out as Results<T>;
 }

@@ -1,5 +1,6 @@
 import request from 'supertest';
 import { BatchIngredientModel, BatchModel, FoodModel, PortionModel, ProfileModel, RecipeModel } from '../../server/models';
+import * as portionCode from '../../shared/compute/portion-code';
 import { normalizePortionCode } from '../../shared/compute/portion-code';
 import { bearer, signUpMember, useTestApp } from '../helpers/api';
 import { createFood, SR_LEGACY, withAvailable } from '../helpers/foods';
@@ -59,6 +60,59 @@ describe('POST /api/profiles/:profileId/batches (weighed portions)', () => {
     expect(res.status).toBe(201);
     expect(res.body.useBy).toBe(useBy);
     expect(res.body.useBySource).toMatch(source);
+  });
+});
+
+describe('the answer to a save', () => {
+  it.each([
+    { name: 'weighed into containers with a pot', split: 'weighed' as const },
+    { name: 'split equally', split: 'equal' as const },
+  ])('is exactly the batch page ($name)', async ({ split }) => {
+    const cook = await member();
+    const { input } = await overnightOats(cook.userId);
+    const containers = `/api/profiles/${cook.profileId}/containers`;
+    const pot = await request(ctx.app).post(containers).set(bearer(cook.token)).send({ name: 'Big pot', kind: 'pot', tareGrams: 480 });
+    const jar = await request(ctx.app).post(containers).set(bearer(cook.token)).send({ name: 'Jar 1', kind: 'container', tareGrams: 212 });
+    const body = {
+      ...input,
+      note: 'Made on Sunday',
+      cookedWeight: { ...input.cookedWeight, containerId: pot.body.id },
+      split: split === 'equal' ? { mode: 'equal', count: 3 } : { mode: 'weighed', portions: input.split.mode === 'weighed' ? input.split.portions.map((p, i) => (i === 0 ? { ...p, containerId: jar.body.id } : p)) : [] },
+    };
+
+    const saved = await postBatch(ctx.app, cook.token, cook.profileId, body);
+    const page = await request(ctx.app).get(`/api/profiles/${cook.profileId}/batches/${saved.body.id}`).set(bearer(cook.token));
+
+    expect(saved.status).toBe(201);
+    // Same keys in the same order and the same values as the batch page reads them back.
+    expect(JSON.stringify(saved.body)).toBe(JSON.stringify(page.body));
+    expect(saved.body).toMatchObject({ potName: 'Big pot', note: 'Made on Sunday', cookedBy: { id: cook.userId } });
+    if (split === 'weighed') expect(saved.body.portions[0]).toMatchObject({ containerName: 'Jar 1', grossGrams: 438, tareGrams: 212 });
+    else expect(saved.body.portions.map((p: { grossGrams: number | null }) => p.grossGrams)).toEqual([null, null, null]);
+  });
+});
+
+describe('portion codes', () => {
+  it('draws new codes and saves once when the unique index refuses a code already in use', async () => {
+    const cook = await member();
+    const { input } = await overnightOats(cook.userId);
+    const first = await postBatch(ctx.app, cook.token, cook.profileId, input);
+    const taken = first.body.portions[0].code as string;
+    const real = portionCode.generatePortionCode;
+    let calls = 0;
+    const spy = jest.spyOn(portionCode, 'generatePortionCode').mockImplementation((randomInt) => (calls++ === 0 ? taken : real(randomInt)));
+    try {
+      const second = await postBatch(ctx.app, cook.token, cook.profileId, input);
+
+      expect(second.status).toBe(201);
+      // Five codes for the refused statement (one of them taken), five new ones for the saved one.
+      expect(calls).toBeGreaterThanOrEqual(10);
+      expect(second.body.portions.map((p: { code: string }) => p.code)).not.toContain(taken);
+      expect(await BatchModel.count({ where: { profileId: cook.profileId } })).toBe(2);
+      expect(await PortionModel.count({ where: { profileId: cook.profileId } })).toBe(10);
+    } finally {
+      spy.mockRestore();
+    }
   });
 });
 

@@ -4,7 +4,7 @@ import { ConnectionRefusedError, DatabaseError, type Sequelize } from 'sequelize
 import { createApp } from '../../server/app';
 import { createSequelize } from '../../server/db';
 import { isDatabaseUnavailable } from '../../server/middleware/error-handler';
-import { RecipeModel, UserModel } from '../../server/models';
+import { RecipeModel } from '../../server/models';
 import { bearer, signUpMember } from '../helpers/api';
 import { resetDatabase, testConfig, workerDatabaseUrl } from '../helpers/db';
 import { createFood, SR_LEGACY, withAvailable } from '../helpers/foods';
@@ -75,15 +75,21 @@ describe('an API whose database goes away and comes back', () => {
     expect(await RecipeModel.count({ where: { ownerUserId: cook.userId } })).toBe(1);
   });
 
-  it('never answers an error for a recipe it saved: a failing read-back rolls the save back', async () => {
+  it('never answers an error for a recipe it saved: the save and its answer are one statement, so a save that fails keeps nothing', async () => {
     const cook = await signUpMember(app, 'Readback');
     const oats = await createFood(withAvailable({ ...SR_LEGACY.oats, name: 'Oats, rolled, dry' }));
     const body = { title: 'Flapjack', defaultPortions: 8, visibility: 'private', ingredients: [{ foodId: oats.id, grams: 200 }] };
-    // The owner lookup is part of reading the new recipe back; make it fail as a dropped connection would.
-    const spy = jest.spyOn(UserModel, 'findByPk').mockRejectedValueOnce(new DatabaseError(new Error('Connection terminated unexpectedly') as never));
+    // The recipe, its lines and the answer come from one INSERT … RETURNING (no read-back after it); make that
+    // statement fail as a dropped connection would.
+    const query = sequelize.query.bind(sequelize);
+    const spy = jest.spyOn(sequelize, 'query').mockImplementation(((sql: unknown, options?: unknown) =>
+      typeof sql === 'string' && sql.startsWith('WITH r AS (\n  INSERT INTO recipes')
+        ? Promise.reject(new DatabaseError(new Error('Connection terminated unexpectedly') as never))
+        : query(sql as string, options as never)) as typeof sequelize.query);
     try {
       const res = await request(app).post('/api/recipes').set(bearer(cook.token)).send(body);
       expect(res.status).toBe(503);
+      expect(spy.mock.calls.some(([sql]) => typeof sql === 'string' && sql.startsWith('WITH r AS'))).toBe(true);
     } finally {
       spy.mockRestore();
     }

@@ -12,6 +12,24 @@ const logMeal = (p: { token: string; profileId: number }, body: object) =>
 const portionStatus = async (code: string) => (await PortionModel.findOne({ where: { code } }))!.status;
 
 describe('POST /api/profiles/:profileId/log-entries/meals (log a meal)', () => {
+  it.each([
+    { name: 'a portion, a reading and a two-part dose on a set day', source: 'portion' },
+    { name: 'typed carbohydrate on a default day', source: 'typed' },
+  ])('answers exactly what the logbook then shows ($name)', async ({ source }) => {
+    const p = await breakfastProfile(ctx.app);
+    await request(ctx.app).put(`/api/profiles/${p.profileId}/days/2026-03-29`).set(bearer(p.token)).send({ dayKindId: p.trainingId }).expect(200);
+    const meal = source === 'portion' ? { source: 'portion', portionCode: p.codes[0] } : { source: 'typed', carbsGrams: 45, note: 'Porridge' };
+    const at = source === 'portion' ? '2026-03-29T07:30:00Z' : '2026-03-30T07:30:00Z';
+
+    const res = await logMeal(p, { occurredAt: at, meal, reading: { glucose: 7.2 }, doses: [{ units: 2.5 }, { units: 1.5, occurredAt: at }], suggestion: SHOWN });
+    const recent = await request(ctx.app).get(`/api/profiles/${p.profileId}/log-entries/recent`).set(bearer(p.token));
+
+    expect(res.status).toBe(201);
+    expect(res.body.entries).toHaveLength(4);
+    // Same keys in the same order, the same values and the same order (newest first) as the logbook reads them back.
+    expect(JSON.stringify(res.body.entries)).toBe(JSON.stringify(recent.body));
+  });
+
   it('saves the meal, the reading, both parts of the dose with the suggestion shown, and the portion eaten, as one group', async () => {
     const p = await breakfastProfile(ctx.app);
     // 29 March 2026 is the night the clocks go forward in London (Directive 2000/84/EC: last Sunday of March, 01:00

@@ -28,6 +28,19 @@ describe('POST /api/recipes', () => {
     expect(rows.map((r) => r.foodId)).toEqual([foods.oats, foods.milk, foods.yogurt, foods.apple, foods.raisins]);
   });
 
+  it('answers exactly what the recipe page then shows', async () => {
+    const cook = await signUpUser(ctx.app, 'Cook');
+    const body = { ...oatsRecipe(foods), description: 'Soak overnight.', methodSteps: ['Mix.', 'Chill.'], visibility: 'public' };
+
+    const saved = await request(ctx.app).post('/api/recipes').set(bearer(cook.token)).send(body);
+    const page = await request(ctx.app).get(`/api/recipes/${saved.body.id}`).set(bearer(cook.token));
+
+    expect(saved.status).toBe(201);
+    // Same keys in the same order and the same values as the page reads them back.
+    expect(JSON.stringify(saved.body)).toBe(JSON.stringify(page.body));
+    expect(saved.body).toMatchObject({ owner: { id: cook.me.user.id, displayName: 'Cook' }, sharedWith: [], copiedFrom: null, lastCookedAt: null, methodSteps: ['Mix.', 'Chill.'] });
+  });
+
   it.each([
     { name: '0 grams', patch: (b: ReturnType<typeof oatsRecipe>) => { b.ingredients[0].grams = 0; }, field: 'ingredients.0.grams' },
     { name: 'negative grams', patch: (b: ReturnType<typeof oatsRecipe>) => { b.ingredients[2].grams = -10; }, field: 'ingredients.2.grams' },
