@@ -11,7 +11,7 @@ import type { FoodInput } from '../importers/dataset';
 import { createSequelize } from '../db';
 import { writeFoods } from '../importers/write-foods';
 
-export type VolumeSizes = { users: number; recipes: number; foods: number; batchesPerProfile: number; portionsPerBatch: number };
+export type VolumeSizes = { users: number; recipes: number; foods: number; batchesPerProfile: number; portionsPerBatch: number; logEntries: number };
 
 export const DEFAULT_VOLUME: VolumeSizes = {
   users: Number(process.env.BENCH_VOLUME_USERS ?? 1_000),
@@ -19,6 +19,7 @@ export const DEFAULT_VOLUME: VolumeSizes = {
   foods: Number(process.env.BENCH_VOLUME_FOODS ?? 10_000),
   batchesPerProfile: 10,
   portionsPerBatch: 8,
+  logEntries: Number(process.env.BENCH_VOLUME_LOG_ENTRIES ?? 200_000),
 };
 
 /** What a volume step made, printed by the bench and kept in its JSON. */
@@ -26,8 +27,7 @@ export type VolumeCounts = Record<string, number>;
 
 /**
  * One generator of bench volume. The steps run in order after the accounts exist; `ctx.userIds` and `ctx.profileIds`
- * are the generated people. Hook for the logbook: when it exists, add a step here that writes at least 200,000
- * logbook entries spread over `ctx.profileIds` (set-based SQL with generate_series, like the steps below).
+ * are the generated people.
  */
 export type VolumeStep = {
   name: string;
@@ -117,6 +117,32 @@ export const VOLUME_STEPS: VolumeStep[] = [
         { replacements: { lo, hi, k: sizes.portionsPerBatch } },
       );
       return { batches: hi - lo + 1, portions: (hi - lo + 1) * sizes.portionsPerBatch };
+    },
+  },
+  {
+    // The other people's logbooks (the bench member's own year is made by logbook.bench.ts): entries spread evenly over
+    // the generated profiles, one every 90 minutes going back from now, in turn a reading, a meal, a rapid dose and a
+    // sensor reading, so every logbook index holds other people's rows beside the member's.
+    name: 'logbook',
+    run: async (sequelize, { sizes, profileIds }) => {
+      const profiles = profileIds[1] - profileIds[0] + 1;
+      await sequelize.query(
+        `INSERT INTO log_entries (profile_id, kind, occurred_at, local_date, local_minute, time_zone, title, meal_source,
+                                  carb_available_g, carb_total_g, glucose_mmol, reading_source, units, created_at, updated_at)
+         SELECT :p0 + (g % :profiles), k.kind::enum_log_entries_kind, t.at, (t.at AT TIME ZONE 'UTC')::date,
+                extract(hour FROM t.at AT TIME ZONE 'UTC')::int * 60 + extract(minute FROM t.at AT TIME ZONE 'UTC')::int, 'UTC',
+                CASE WHEN k.kind = 'meal' THEN 'Volume meal' END, CASE WHEN k.kind = 'meal' THEN 'typed'::enum_log_entries_meal_source END,
+                CASE WHEN k.kind = 'meal' THEN 30 + g % 60 END, CASE WHEN k.kind = 'meal' THEN 34 + g % 60 END,
+                CASE WHEN k.kind = 'reading' THEN 4 + (g % 80) / 10.0 END,
+                CASE WHEN k.kind = 'reading' THEN (CASE WHEN g % 4 = 3 THEN 'imported' ELSE 'typed' END)::enum_log_entries_reading_source END,
+                CASE WHEN k.kind = 'rapid_dose' THEN 2 + g % 6 END, now(), now()
+           FROM generate_series(0, :n - 1) g
+          CROSS JOIN LATERAL (SELECT now() - ((g / :profiles) * interval '90 minutes') AS at) t
+          CROSS JOIN LATERAL (SELECT (ARRAY['reading', 'meal', 'rapid_dose', 'reading'])[1 + (g / :profiles) % 4] AS kind) k`,
+        { replacements: { p0: profileIds[0], profiles, n: sizes.logEntries } },
+      );
+      const [{ n }] = await sequelize.query<{ n: number }>('SELECT count(*)::int n FROM log_entries', { type: QueryTypes.SELECT });
+      return { logEntries: n };
     },
   },
 ];
