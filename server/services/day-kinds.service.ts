@@ -29,6 +29,15 @@ export function dayKindToView(kind: DayKindRow, unit: GlucoseUnit): DayKind {
   };
 }
 
+/**
+ * A day kind's times of day as one JSON array (`startMinute`, `endMinute`, `carbRatio`, `correctionFactorMmol`), in
+ * the order of the day, for plain statements that read kinds with their times; `alias` names the day_kinds row.
+ */
+export function timesOfDayJson(alias: string): string {
+  return `COALESCE((SELECT json_agg(json_build_object('startMinute', t.start_minute, 'endMinute', t.end_minute, 'carbRatio', t.carb_ratio,
+      'correctionFactorMmol', t.correction_factor_mmol) ORDER BY t.start_minute, t.id) FROM times_of_day t WHERE t.day_kind_id = ${alias}.id), '[]'::json)`;
+}
+
 /** Loads a day kind's times of day with it. */
 export const withTimesOfDay = { include: [{ model: TimeOfDayModel, as: 'timesOfDay' }] };
 
@@ -38,9 +47,7 @@ export async function listDayKinds(profileId: number): Promise<DayKind[]> {
   const rows = await DayKindModel.sequelize!.query<Omit<DayKindRow, 'id'> & { id: number | null; glucoseUnit: GlucoseUnit }>(
     `SELECT p.glucose_unit AS "glucoseUnit", k.id, k.name, k.is_default AS "isDefault", k.long_acting_units AS "longActingUnits",
             k.updated_at AS "updatedAt",
-            COALESCE((SELECT json_agg(json_build_object('startMinute', t.start_minute, 'endMinute', t.end_minute,
-                                                        'carbRatio', t.carb_ratio, 'correctionFactorMmol', t.correction_factor_mmol))
-                        FROM times_of_day t WHERE t.day_kind_id = k.id), '[]'::json) AS "timesOfDay"
+            ${timesOfDayJson('k')} AS "timesOfDay"
        FROM profiles p LEFT JOIN day_kinds k ON k.profile_id = p.id
       WHERE p.id = :profileId
       ORDER BY k.is_default DESC, k.name ASC`,

@@ -5,6 +5,7 @@ import type { LoggedDose } from '../../shared/schemas/dose';
 import { AppError } from '../errors';
 import type { CarbBasis, CarbUnit, GlucoseUnit } from '../../shared/schemas/units';
 import { ProfileModel, type ProfileSettingsModel } from '../models';
+import { timesOfDayJson } from './day-kinds.service';
 
 /** The dose settings of a profile's settings row (a model or a plain row). */
 export function toDoseSettings(row: InferAttributes<ProfileSettingsModel>): DoseSettings {
@@ -55,10 +56,7 @@ export async function loadDoseContext(
             s.correction_target_mmol AS "correctionTargetMmol", s.hypo_threshold_mmol AS "hypoThresholdMmol",
             s.very_high_mmol AS "veryHighMmol", s.allow_negative_correction AS "allowNegativeCorrection",
             s.iob_convention AS "iobConvention", s.exercise_reductions AS "exerciseReductions",
-            (SELECT json_build_object('id', k.id, 'name', k.name, 'timesOfDay', COALESCE(
-                      (SELECT json_agg(json_build_object('startMinute', t.start_minute, 'endMinute', t.end_minute,
-                                                         'carbRatio', t.carb_ratio, 'correctionFactorMmol', t.correction_factor_mmol) ORDER BY t.id)
-                         FROM times_of_day t WHERE t.day_kind_id = k.id), '[]'::json))
+            (SELECT json_build_object('id', k.id, 'name', k.name, 'timesOfDay', ${timesOfDayJson('k')})
                FROM day_kinds k
               WHERE k.profile_id = p.id AND CASE WHEN (SELECT id FROM asked) IS NULL THEN k.is_default ELSE k.id = (SELECT id FROM asked) END
               LIMIT 1) AS "dayKind"

@@ -7,6 +7,7 @@ import { remember } from '../lib/request-cache';
 import { AppError } from '../errors';
 import { DayKindDayModel, PlanMealModel, ProfileSettingsModel } from '../models';
 import { toDoseSettings } from './dose-context.service';
+import { timesOfDayJson } from './day-kinds.service';
 import { loadRecipeRows } from './plan-recipes';
 
 export type WeekKind = DayKindRatios & { isDefault: boolean; longActingUnits: number | null };
@@ -71,8 +72,7 @@ export function loadWeekContext(profileId: number): Promise<WeekContext> {
            COALESCE((SELECT json_agg(json_build_object('weekday', w.weekday, 'dayKindId', w.day_kind_id)) FROM plan_weekdays w WHERE w.profile_id = p.id), '[]') AS pattern,
            COALESCE((SELECT json_object_agg(n.id, n.name) FROM plan_meal_names n WHERE n.profile_id = p.id), '{}') AS "mealNames",
            COALESCE((SELECT json_agg(json_build_object('id', k.id, 'name', k.name, 'isDefault', k.is_default, 'longActingUnits', k.long_acting_units,
-               'timesOfDay', COALESCE((SELECT json_agg(json_build_object('startMinute', t.start_minute, 'endMinute', t.end_minute, 'carbRatio', t.carb_ratio,
-                 'correctionFactorMmol', t.correction_factor_mmol) ORDER BY t.start_minute) FROM times_of_day t WHERE t.day_kind_id = k.id), '[]')) ORDER BY k.id)
+               'timesOfDay', ${timesOfDayJson('k')}) ORDER BY k.id)
              FROM day_kinds k WHERE k.profile_id = p.id), '[]') AS kinds
          FROM profiles p WHERE p.id = :profileId`,
         { replacements: { profileId }, type: QueryTypes.SELECT },

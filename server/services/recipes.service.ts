@@ -18,6 +18,7 @@ import { profileUnits } from './profiles.service';
 import { photoUrls } from './photos.service';
 import { currentTransaction } from '../lib/transaction-context';
 import { together } from '../lib/together';
+import { loadIngredients, recipePageRow, recipeShares, shelfLines, viewableRecipeSql, type Line } from './recipe-rows';
 
 type Display = { basis: CarbBasis; unit: CarbUnit };
 
@@ -48,15 +49,6 @@ export async function findViewableRecipe(recipeId: number, userId: number, trans
 }
 
 /**
- * The SQL form of canViewRecipe, for statements that read a recipe and decide in the same round trip: owner, public,
- * or shared with the user while not private. `userParam` must be a bound parameter.
- */
-function viewableRecipeSql(alias: string, userParam: string): string {
-  return `(${alias}.owner_user_id = ${userParam} OR ${alias}.visibility = 'public' OR (${alias}.visibility <> 'private'
-    AND EXISTS (SELECT 1 FROM recipe_shares vs WHERE vs.recipe_id = ${alias}.id AND vs.user_id = ${userParam})))`;
-}
-
-/**
  * A recipe's id and title if the user may see it, else null: canViewRecipe's rule in one plain query (for writes
  * that only need to name the recipe, such as saving a batch).
  */
@@ -73,25 +65,6 @@ export async function findOwnedRecipe(recipeId: number, userId: number, transact
   const recipe = await findViewableRecipe(recipeId, userId, transaction);
   if (recipe.ownerUserId !== userId) throw AppError.forbidden('Only the owner can change this recipe. Copy it into your library to make your own version.');
   return recipe;
-}
-
-type Line = Pick<RecipeIngredientModel, 'id' | 'recipeId' | 'position' | 'foodId' | 'grams' | 'measureLabel' | 'note'>;
-
-async function loadIngredients(recipeIds: number[], transaction?: Transaction) {
-  if (!recipeIds.length) return new Map<number, Line[]>();
-  const rows = (await RecipeIngredientModel.findAll({
-    where: { recipeId: { [Op.in]: recipeIds } },
-    order: [['recipeId', 'ASC'], ['position', 'ASC']],
-    raw: true,
-    transaction,
-  })) as Line[];
-  const out = new Map<number, Line[]>();
-  for (const row of rows) {
-    const list = out.get(row.recipeId);
-    if (list) list.push(row);
-    else out.set(row.recipeId, [row]);
-  }
-  return out;
 }
 
 /** When the user (or anyone on a profile they can open) last cooked each recipe (migration 0350 made the batches table). */
@@ -144,56 +117,6 @@ function summarise(
   return { summary, nutrition };
 }
 
-
-type RecipePageRow = Pick<
-  RecipeModel,
-  | 'id' | 'ownerUserId' | 'title' | 'description' | 'methodSteps' | 'tags' | 'defaultPortions' | 'visibility'
-  | 'photoLargeKey' | 'photoThumbKey' | 'copiedFromRecipeId' | 'updatedAt'
-> & {
-  viewable: boolean;
-  ownerName: string | null;
-  ownBasis: CarbBasis | null;
-  ownUnit: CarbUnit | null;
-  lastCookedAt: Date | null;
-  sourceId: number | null;
-  sourceTitle: string | null;
-  sourceViewable: boolean | null;
-};
-
-/**
- * The recipe page's own row in one statement: the recipe, whether the user may see it, its owner's name, the user's
- * own carbohydrate basis and unit, when they (or anyone on a profile they can open) last cooked it, and the recipe
- * it was copied from with whether they may see that one.
- */
-async function recipePageRow(recipeId: number, userId: number, transaction?: Transaction): Promise<RecipePageRow | undefined> {
-  const [row] = await RecipeModel.sequelize!.query<RecipePageRow>(
-    `SELECT r.id, r.owner_user_id AS "ownerUserId", r.title, r.description, r.method_steps AS "methodSteps", r.tags,
-            r.default_portions AS "defaultPortions", r.visibility, r.photo_large_key AS "photoLargeKey",
-            r.photo_thumb_key AS "photoThumbKey", r.copied_from_recipe_id AS "copiedFromRecipeId", r.updated_at AS "updatedAt",
-            ${viewableRecipeSql('r', ':userId')} AS viewable,
-            u.display_name AS "ownerName", own.carb_basis AS "ownBasis", own.carb_unit AS "ownUnit",
-            (SELECT max(b.created_at) FROM batches b WHERE b.recipe_id = r.id
-               AND (b.cooked_by_user_id = :userId OR b.profile_id IN (SELECT profile_id FROM profile_access WHERE user_id = :userId))) AS "lastCookedAt",
-            src.id AS "sourceId", src.title AS "sourceTitle", ${viewableRecipeSql('src', ':userId')} AS "sourceViewable"
-       FROM recipes r
-       LEFT JOIN users u ON u.id = r.owner_user_id
-       LEFT JOIN recipes src ON src.id = r.copied_from_recipe_id
-       LEFT JOIN LATERAL (SELECT carb_basis, carb_unit FROM profiles WHERE owner_user_id = :userId ORDER BY id LIMIT 1) own ON true
-      WHERE r.id = :recipeId`,
-    { replacements: { recipeId, userId }, type: QueryTypes.SELECT, transaction },
-  );
-  return row;
-}
-
-/** Who the owner shared a recipe with, oldest share first. */
-async function recipeShares(recipeId: number, transaction?: Transaction) {
-  return RecipeModel.sequelize!.query<{ userId: number; displayName: string; email: string; createdAt: Date }>(
-    `SELECT s.user_id AS "userId", u.display_name AS "displayName", u.email, s.created_at AS "createdAt"
-       FROM recipe_shares s JOIN users u ON u.id = s.user_id
-      WHERE s.recipe_id = :recipeId ORDER BY s.created_at, s.id`,
-    { replacements: { recipeId }, type: QueryTypes.SELECT, transaction },
-  );
-}
 
 /**
  * One recipe with its ingredients (each with its food), method and the full computed breakdown, in the
@@ -297,38 +220,6 @@ async function shelfRows(query: RecipeListQuery, userId: number): Promise<Recipe
     raw: true,
     nest: true,
   })) as RecipeModel[];
-}
-
-type ShelfFood = Pick<Food, 'name' | 'per100g'>;
-
-/**
- * The lines of the shelf's recipes with the name and per-100 g values of their foods, in one plain statement (a shelf
- * shows ingredient names and carbohydrate per portion, nothing else of a food; a public shelf is 300 recipes).
- */
-async function shelfLines(recipeIds: number[]): Promise<{ lines: Map<number, Line[]>; foods: Map<number, ShelfFood> }> {
-  const lines = new Map<number, Line[]>();
-  const foods = new Map<number, ShelfFood>();
-  if (!recipeIds.length) return { lines, foods };
-  const rows = await RecipeModel.sequelize!.query<Line & { name: string } & ShelfFood['per100g']>(
-    `SELECT ri.id, ri.recipe_id AS "recipeId", ri.position, ri.food_id AS "foodId", ri.grams, ri.measure_label AS "measureLabel", ri.note,
-            f.name, f.energy_kcal AS "energyKcal", f.energy_kj AS "energyKj", f.carb_available AS "carbAvailable",
-            f.carb_total AS "carbTotal", f.fibre, f.sugars, f.protein, f.fat, f.water
-       FROM recipe_ingredients ri JOIN foods f ON f.id = ri.food_id
-      WHERE ri.recipe_id IN (:recipeIds)
-      ORDER BY ri.recipe_id, ri.position`,
-    { replacements: { recipeIds }, type: QueryTypes.SELECT },
-  );
-  for (const r of rows) {
-    const line: Line = { id: r.id, recipeId: r.recipeId, position: r.position, foodId: r.foodId, grams: r.grams, measureLabel: r.measureLabel, note: r.note };
-    const list = lines.get(r.recipeId);
-    if (list) list.push(line);
-    else lines.set(r.recipeId, [line]);
-    if (!foods.has(r.foodId)) {
-      const per100g: ShelfFood['per100g'] = { energyKcal: r.energyKcal, energyKj: r.energyKj, carbAvailable: r.carbAvailable, carbTotal: r.carbTotal, fibre: r.fibre, sugars: r.sugars, protein: r.protein, fat: r.fat, water: r.water };
-      foods.set(r.foodId, { name: r.name, per100g });
-    }
-  }
-  return { lines, foods };
 }
 
 /** One shelf of the library (mine, shared with me, public), searched by title, tag and ingredient name, sorted. */
